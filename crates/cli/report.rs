@@ -1,0 +1,61 @@
+//! `tautspan report`: the self-contained HTML report, written atomically.
+
+use crate::EXIT_INPUT;
+use crate::read::read_scenario;
+use std::io::Write;
+use std::path::Path;
+use std::process::ExitCode;
+use tautspan_core::CAUTION;
+use tautspan_core::analysis::analyse;
+
+/// Today's date (UTC) as YYYY-MM-DD, from the system clock (civil-from-days,
+/// H. Hinnant's algorithm).
+pub fn today() -> String {
+    let secs = std::time::SystemTime::now().duration_since(std::time::UNIX_EPOCH).map_or(0, |d| d.as_secs());
+    let z = (secs / 86_400) as i64 + 719_468;
+    let era = z.div_euclid(146_097);
+    let doe = z - era * 146_097;
+    let yoe = (doe - doe / 1460 + doe / 36_524 - doe / 146_096) / 365;
+    let doy = doe - (365 * yoe + yoe / 4 - yoe / 100);
+    let mp = (5 * doy + 2) / 153;
+    let d = doy - (153 * mp + 2) / 5 + 1;
+    let m = if mp < 10 { mp + 3 } else { mp - 9 };
+    let y = yoe + era * 400 + i64::from(m <= 2);
+    format!("{y:04}-{m:02}-{d:02}")
+}
+
+/// Write `text` to `path` atomically: a temporary file beside it, flushed
+/// and synced, then renamed over the target.
+pub fn write_atomic(path: &Path, text: &str) -> std::io::Result<()> {
+    let dir = path.parent().filter(|p| !p.as_os_str().is_empty()).unwrap_or(Path::new("."));
+    let name = path.file_name().map_or_else(|| "report".into(), |n| n.to_string_lossy().into_owned());
+    let tmp = dir.join(format!(".{name}.tmp-{}", std::process::id()));
+    {
+        let mut f = std::fs::File::create(&tmp)?;
+        f.write_all(text.as_bytes())?;
+        f.sync_all()?;
+    }
+    std::fs::rename(&tmp, path).inspect_err(|_| {
+        let _ = std::fs::remove_file(&tmp);
+    })
+}
+
+/// Run the command.
+pub fn run(file: &Path, out: &Path) -> ExitCode {
+    let loaded = match read_scenario(file) {
+        Ok(l) => l,
+        Err(e) => {
+            eprintln!("{e}");
+            return ExitCode::from(EXIT_INPUT);
+        }
+    };
+    let a = analyse(&loaded.scenario);
+    let html = tautspan_core::report::html(&loaded.scenario, &a, &today());
+    if let Err(e) = write_atomic(out, &html) {
+        eprintln!("{}: cannot write the report: {e}", out.display());
+        return ExitCode::from(EXIT_INPUT);
+    }
+    eprintln!("wrote {}", out.display());
+    eprintln!("CAUTION: {CAUTION}");
+    ExitCode::from(if a.all_within() { 0 } else { 1 })
+}

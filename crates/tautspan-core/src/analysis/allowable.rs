@@ -1,0 +1,95 @@
+//! Allowable force of a member or a floor, and how it was found.
+//!
+//! Members: allowable = rated strength × efficiency ÷ design factor, where
+//! the rated strength is the minimum breaking strength (rope, chain, cable),
+//! or yield stress × area (rods); a working load limit given directly is the
+//! allowable as is. Floors: the governing (smaller) of the rated
+//! concentrated load and the rated uniform load over the panel's tributary
+//! area (span × span), with the deflection checked separately against
+//! span / limit.
+
+use crate::model::{Floor, Member, Rating};
+use crate::units::format_number;
+
+/// An allowable and its derivation in words.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Allowable {
+    /// Allowable force, N.
+    pub force_n: f64,
+    /// How it was found: formula, inputs and sources.
+    pub explanation: String,
+}
+
+fn kn(v: f64) -> String {
+    format!("{} kN", format_number(v / 1e3, 4))
+}
+
+/// Allowable axial force of a member.
+pub fn member_allowable(m: &Member) -> Allowable {
+    let df = &m.design_factor;
+    let df_src = if df.from_file {
+        format!(
+            "design factor {} given in the file (default {} from {})",
+            df.value, df.default.value, df.default.source
+        )
+    } else {
+        format!("design factor {} ({})", df.value, df.default.source)
+    };
+    match m.rating {
+        Rating::BreakingStrength(f) => {
+            let a = f.value * m.efficiency / df.value;
+            Allowable {
+                force_n: a,
+                explanation: format!(
+                    "minimum breaking strength {} x efficiency {} / {} = {}; strength: {}; efficiency: {}",
+                    kn(f.value),
+                    format_number(m.efficiency, 3),
+                    df_src,
+                    kn(a),
+                    m.rating_note,
+                    m.efficiency_note
+                ),
+            }
+        }
+        Rating::WorkingLoadLimit(f) => Allowable {
+            force_n: f.value,
+            explanation: format!("working load limit {} used as the allowable ({})", kn(f.value), m.rating_note),
+        },
+        Rating::Yield(fy) => {
+            let a = fy.value * m.area.value / df.value;
+            Allowable {
+                force_n: a,
+                explanation: format!(
+                    "yield {} MPa x area {} mm^2 / {} = {}; {}",
+                    format_number(fy.value / 1e6, 4),
+                    format_number(m.area.value * 1e6, 4),
+                    df_src,
+                    kn(a),
+                    m.rating_note
+                ),
+            }
+        }
+    }
+}
+
+/// Allowable normal force of a floor and its deflection limit, m.
+pub fn floor_allowable(f: &Floor) -> (Allowable, f64) {
+    let tributary_m2 = f.span[0].value * f.span[1].value;
+    let uniform = f.rated_uniform.map(|q| q.value * tributary_m2);
+    let point = f.rated_point.map(|p| p.value);
+    let (force_n, explanation) = match (uniform, point) {
+        (Some(u), Some(p)) if p <= u => {
+            (p, format!("rated concentrated load {} governs over rated uniform load x panel area = {}", kn(p), kn(u)))
+        }
+        (Some(u), Some(p)) => {
+            (u, format!("rated uniform load x panel area {} governs over rated concentrated load {}", kn(u), kn(p)))
+        }
+        (Some(u), None) => {
+            (u, format!("rated uniform load x panel area {} m^2 = {}", format_number(tributary_m2, 4), kn(u)))
+        }
+        (None, Some(p)) => (p, format!("rated concentrated load {}", kn(p))),
+        (None, None) => (f64::INFINITY, "no rating given".to_string()),
+    };
+    let short = f.span[0].value.min(f.span[1].value);
+    (Allowable { force_n, explanation }, short / f.deflection_limit)
+}

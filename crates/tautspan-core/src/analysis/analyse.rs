@@ -1,0 +1,446 @@
+//! The whole analysis of a scenario: the static equilibrium, each dynamic
+//! case as a quasi-static solve under its peak load, the limits, the
+//! warnings, and the inspector's comparison table.
+
+use super::evaluate::{Allowables, evaluate};
+use super::formulas::{arrest_time_s, drop_factor, height_for_factor, release_for_factor, swing_factor};
+use super::limits::{critical_factor, item_factors};
+use super::results::{Analysis, CaseResult, ComparisonRow, DynamicLoad, Limits, Warning};
+use super::warnings::case_warnings;
+use crate::CAUTION;
+use crate::library::MemberKind;
+use crate::model::{Case, NetworkLoads, Scenario, to_network};
+use crate::solve::{Equilibrium, Network, SolveOptions, StaticSolver};
+use crate::units::format_number;
+
+/// Arrest shorter than this many wave transits: the spring picture does not
+/// hold (practice: the member must reach a uniform strain many times over
+/// during the arrest for a quasi-static spring to describe it).
+pub const WAVE_TRANSITS_NEEDED: f64 = 10.0;
+
+/// Limits of one mass: the critical factor and the path stiffness.
+#[derive(Debug, Clone, Copy)]
+struct MassLimits {
+    factor: Option<f64>,
+    stiffness_n_per_m: Option<f64>,
+}
+
+fn limits_from(m: &MassLimits, weight_n: f64) -> Limits {
+    Limits {
+        release_deg: m.factor.and_then(release_for_factor).map(|r| r.to_degrees().min(90.0)).or(m.factor.map(|_| 0.0)),
+        drop_height_m: match (m.factor, m.stiffness_n_per_m) {
+            (Some(f), Some(k)) => Some(height_for_factor(weight_n, k, f).unwrap_or(0.0)),
+            _ => None,
+        },
+    }
+}
+
+fn failed_case(case: &Case, message: String) -> CaseResult {
+    CaseResult {
+        id: case.id().to_string(),
+        kind: case.kind_name().to_string(),
+        converged: false,
+        iterations: 0,
+        residual_n: 0.0,
+        error: Some(message.clone()),
+        dynamic: None,
+        members: Vec::new(),
+        floors: Vec::new(),
+        nodes: Vec::new(),
+        supports: Vec::new(),
+        load_path: Vec::new(),
+        limits: Limits::default(),
+        warnings: vec![message.clone()],
+        warning_items: vec![Warning { subject: None, message }],
+    }
+}
+
+struct Solved {
+    result: CaseResult,
+    eq: Equilibrium,
+}
+
+fn solve_case(
+    s: &Scenario,
+    net: &Network,
+    a: &Allowables,
+    solver: &mut StaticSolver,
+    case: &Case,
+    loads: &[[f64; 3]],
+    start: Option<&Equilibrium>,
+    dynamic: Option<DynamicLoad>,
+) -> Result<Solved, String> {
+    let eq = solver
+        .solve(loads, start.map(|e| e.positions_m.as_slice()), &SolveOptions::default())
+        .map_err(|e| e.to_string())?;
+    let ev = evaluate(s, net, a, loads, &eq);
+    Ok(Solved {
+        result: CaseResult {
+            id: case.id().to_string(),
+            kind: case.kind_name().to_string(),
+            converged: true,
+            iterations: eq.iterations,
+            residual_n: eq.residual_n,
+            error: None,
+            dynamic,
+            members: ev.members,
+            floors: ev.floors,
+            nodes: ev.nodes,
+            supports: ev.supports,
+            load_path: ev.load_path,
+            limits: Limits::default(),
+            warnings: Vec::new(),
+            warning_items: Vec::new(),
+        },
+        eq,
+    })
+}
+
+/// Scenario-wide warnings: design factors below the kind's default.
+fn input_warnings(s: &Scenario) -> Vec<Warning> {
+    let mut w = Vec::new();
+    for m in &s.members {
+        let df = &m.design_factor;
+        if df.from_file && df.value < df.default.value - 1e-12 {
+            w.push(Warning {
+                subject: Some(m.id.clone()),
+                message: format!(
+                    "member {}: design factor {} is below the {} default of {} ({})",
+                    m.id,
+                    format_number(df.value, 3),
+                    m.kind.label(),
+                    format_number(df.default.value, 3),
+                    df.default.source
+                ),
+            });
+        }
+        if m.linear_mass.value == 0.0 {
+            w.push(Warning {
+                subject: Some(m.id.clone()),
+                message: format!("member {}: own weight not known and left out ({})", m.id, m.weight_note),
+            });
+        }
+    }
+    w
+}
+
+/// The assumptions printed beside every result.
+pub fn assumptions(s: &Scenario) -> Vec<String> {
+    vec![
+        format!("Gravity {} m/s^2 acting along -y.", format_number(s.gravity_m_s2(), 6)),
+        "Members are axial springs k = E A / L0; rope, chain and cable carry tension only, rods carry both; large-displacement equilibrium by damped Newton on the tangent stiffness.".to_string(),
+        "Members' own weight is lumped half at each end node.".to_string(),
+        "A node on a floor is held sideways (friction or fixing assumed) and carried vertically by a compression-only spring from plate bending at the slab centre: w = alpha P a^2 / D, D = E t^3 / 12(1 - nu^2) (Timoshenko & Woinowsky-Krieger).".to_string(),
+        "Swing: lowest-point load m g (3 - 2 cos theta0) on the swinging mass (rigid line, energy and centripetal balance), network solved quasi-statically; limited to 90 deg, beyond which a rope goes slack.".to_string(),
+        "Drop: F = W (1 + sqrt(1 + 2 k h / W)) with k the static path stiffness at the mass (Timoshenko & Gere, impact); sudden load: factor 2. Member mass, damping and hysteresis ignored (fibre ropes peak lower).".to_string(),
+        "Allowable = rated strength x efficiency / design factor, or a working load limit as given; rods on yield x area.".to_string(),
+        format!("Near limit from utilisation {}; dynamic/static ratio warning above {}.", format_number(s.near_limit, 3), format_number(s.dynamic_ratio_warning, 3)),
+    ]
+}
+
+/// Analyse every case of a scenario.
+pub fn analyse(s: &Scenario) -> Analysis {
+    let (net, loads) = to_network(s);
+    let allow = Allowables::of(s);
+    let mut warnings = input_warnings(s);
+    let mut solver = match StaticSolver::new(&net) {
+        Ok(sv) => sv,
+        Err(e) => {
+            let cases = s.cases.iter().map(|c| failed_case(c, e.to_string())).collect();
+            return Analysis {
+                title: s.title.clone(),
+                caution: CAUTION.to_string(),
+                cases,
+                comparison: Vec::new(),
+                warnings,
+                assumptions: assumptions(s),
+            };
+        }
+    };
+    let static_case = Case::Static { id: "static".to_string() };
+    let base = solve_case(s, &net, &allow, &mut solver, &static_case, &loads.total_n, None, None);
+    let base = match base {
+        Ok(b) => b,
+        Err(e) => {
+            let cases = s.cases.iter().map(|c| failed_case(c, e.clone())).collect();
+            return Analysis {
+                title: s.title.clone(),
+                caution: CAUTION.to_string(),
+                cases,
+                comparison: Vec::new(),
+                warnings,
+                assumptions: assumptions(s),
+            };
+        }
+    };
+
+    // per mass with a dynamic case: path stiffness and critical factor
+    let mut mass_limits: Vec<Option<MassLimits>> = vec![None; s.masses.len()];
+    for c in &s.cases {
+        if let Some(m) = c.mass()
+            && mass_limits[m].is_none()
+        {
+            let node = s.masses[m].node;
+            let k =
+                solver.effective_stiffness(&base.eq, node, [0.0, -1.0, 0.0]).ok().filter(|k| k.is_finite() && *k > 0.0);
+            let factor = critical_factor(&mut solver, s, &allow, &loads, m, &base.eq);
+            mass_limits[m] = Some(MassLimits { factor, stiffness_n_per_m: k });
+        }
+    }
+
+    let mut results: Vec<CaseResult> = Vec::with_capacity(s.cases.len());
+    for c in &s.cases {
+        let r = run_case(s, &net, &allow, &mut solver, &loads, c, &base, &mass_limits);
+        results.push(r);
+    }
+    let static_result = s
+        .cases
+        .iter()
+        .position(|c| matches!(c, Case::Static { .. }))
+        .map(|i| results[i].clone())
+        .unwrap_or_else(|| base.result.clone());
+    for (c, r) in s.cases.iter().zip(results.iter_mut()) {
+        if r.error.is_some() {
+            continue;
+        }
+        let mut items = case_warnings(s, c, r, Some(&static_result));
+        items.extend(dynamic_warnings(s, c, r, &mass_limits, &loads));
+        r.warnings = items.iter().map(|w| w.message.clone()).collect();
+        r.warning_items = items;
+    }
+
+    let comparison = comparison(s, &allow, &results, &static_result, &mut solver, &loads, &base.eq, &mass_limits);
+    warnings.extend(
+        results.iter().filter_map(|r| {
+            r.error.as_ref().map(|e| Warning { subject: None, message: format!("case {}: {e}", r.id) })
+        }),
+    );
+    Analysis {
+        title: s.title.clone(),
+        caution: CAUTION.to_string(),
+        cases: results,
+        comparison,
+        warnings,
+        assumptions: assumptions(s),
+    }
+}
+
+#[allow(clippy::too_many_arguments)]
+fn run_case(
+    s: &Scenario,
+    net: &Network,
+    allow: &Allowables,
+    solver: &mut StaticSolver,
+    loads: &NetworkLoads,
+    c: &Case,
+    base: &Solved,
+    mass_limits: &[Option<MassLimits>],
+) -> CaseResult {
+    let g = s.gravity_m_s2();
+    let (factor, formula, k) = match c {
+        Case::Static { .. } => {
+            let mut r = base.result.clone();
+            r.id = c.id().to_string();
+            return r;
+        }
+        Case::Swing { release, .. } => {
+            let f = swing_factor(release.value.min(std::f64::consts::PI));
+            (
+                f,
+                format!(
+                    "m g (3 - 2 cos {} deg) at the lowest point (rigid line)",
+                    format_number(release.value.to_degrees(), 4)
+                ),
+                None,
+            )
+        }
+        Case::Drop { mass, height, .. } => {
+            let w = s.masses[*mass].mass.value * g;
+            match mass_limits[*mass].and_then(|l| l.stiffness_n_per_m) {
+                Some(k) => (
+                    drop_factor(w, k, height.value),
+                    format!(
+                        "W (1 + sqrt(1 + 2 k h / W)), k = {} kN/m, h = {} m (Timoshenko & Gere, impact)",
+                        format_number(k / 1e3, 4),
+                        format_number(height.value, 4)
+                    ),
+                    Some(k),
+                ),
+                None => {
+                    return failed_case(
+                        c,
+                        format!(
+                            "case {}: the path stiffness at mass {} could not be found",
+                            c.id(),
+                            s.masses[*mass].id
+                        ),
+                    );
+                }
+            }
+        }
+        Case::Sudden { mass, .. } => (
+            2.0,
+            "2 W, suddenly applied (drop height 0)".to_string(),
+            mass_limits[*mass].and_then(|l| l.stiffness_n_per_m),
+        ),
+    };
+    let Some(m) = c.mass() else { return base.result.clone() };
+    let w = s.masses[m].mass.value * g;
+    let l = loads.with_mass_factor(s, m, factor);
+    let dynamic =
+        DynamicLoad { mass: s.masses[m].id.clone(), factor, load_n: factor * w, formula, path_stiffness_n_per_m: k };
+    match solve_case(s, net, allow, solver, c, &l, Some(&base.eq), Some(dynamic)) {
+        Ok(mut solved) => {
+            if let Some(ml) = &mass_limits[m] {
+                solved.result.limits = limits_from(ml, w);
+            }
+            solved.result
+        }
+        Err(e) => failed_case(c, format!("case {}: {e}", c.id())),
+    }
+}
+
+fn dynamic_warnings(
+    s: &Scenario,
+    c: &Case,
+    r: &CaseResult,
+    mass_limits: &[Option<MassLimits>],
+    _loads: &NetworkLoads,
+) -> Vec<Warning> {
+    let mut w = Vec::new();
+    let Some(m) = c.mass() else { return w };
+    let g = s.gravity_m_s2();
+    let mass_kg = s.masses[m].mass.value;
+    let path: Vec<usize> = r
+        .load_path
+        .iter()
+        .filter(|p| p.mass == s.masses[m].id)
+        .flat_map(|p| p.members.iter().filter_map(|id| s.members.iter().position(|x| &x.id == id)))
+        .collect();
+    if let Case::Swing { .. } = c {
+        {
+            for &i in &path {
+                let mr = &r.members[i];
+                let strain = mr.stretch_m / (mr.length_m - mr.stretch_m).max(1e-12);
+                if s.members[i].kind == MemberKind::FibreRope && strain > 0.01 {
+                    w.push(Warning {
+                        subject: Some(mr.id.clone()),
+                        message: format!(
+                            "member {}: soft line (stretch {} % at the swing peak); as a spring pendulum the peak can exceed the rigid-line value: run `tautspan simulate` on this case",
+                            mr.id,
+                            format_number(strain * 100.0, 3)
+                        ),
+                    });
+                }
+            }
+        }
+    }
+    if let (Case::Drop { .. } | Case::Sudden { .. }, Some(k)) = (c, mass_limits[m].and_then(|l| l.stiffness_n_per_m)) {
+        let h = if let Case::Drop { height, .. } = c { height.value } else { 0.0 };
+        let t_arrest = arrest_time_s(mass_kg, k, h, g);
+        for &i in &path {
+            let mem = &s.members[i];
+            if let Some(c_wave) = mem.wave_speed_m_s {
+                let transit = r.members[i].length_m / c_wave;
+                if t_arrest < WAVE_TRANSITS_NEEDED * transit {
+                    w.push(Warning {
+                        subject: Some(mem.id.clone()),
+                        message: format!(
+                            "member {}: arrest in {} ms is under {} stress-wave transits ({} ms each at {} m/s); the spring picture no longer holds, expect higher local forces",
+                            mem.id,
+                            format_number(t_arrest * 1e3, 3),
+                            WAVE_TRANSITS_NEEDED,
+                            format_number(transit * 1e3, 3),
+                            format_number(c_wave, 4)
+                        ),
+                    });
+                }
+            }
+        }
+    }
+    w
+}
+
+#[allow(clippy::too_many_arguments)]
+fn comparison(
+    s: &Scenario,
+    allow: &Allowables,
+    results: &[CaseResult],
+    static_result: &CaseResult,
+    solver: &mut StaticSolver,
+    loads: &NetworkLoads,
+    static_eq: &Equilibrium,
+    mass_limits: &[Option<MassLimits>],
+) -> Vec<ComparisonRow> {
+    let g = s.gravity_m_s2();
+    // per-item limits for the first swing and the first drop/sudden mass
+    let swing_mass = s.cases.iter().find_map(|c| if let Case::Swing { mass, .. } = c { Some(*mass) } else { None });
+    let drop_mass = s.cases.iter().find_map(|c| match c {
+        Case::Drop { mass, .. } | Case::Sudden { mass, .. } => Some(*mass),
+        _ => None,
+    });
+    let swing_items = swing_mass.map(|m| item_factors(solver, s, allow, loads, m, static_eq));
+    let drop_items = drop_mass.map(|m| {
+        if Some(m) == swing_mass {
+            swing_items.clone().unwrap_or_default()
+        } else {
+            item_factors(solver, s, allow, loads, m, static_eq)
+        }
+    });
+
+    let n_members = s.members.len();
+    let mut rows = Vec::new();
+    for k in 0..n_members + s.floors.len() {
+        let is_member = k < n_members;
+        let fi = k.wrapping_sub(n_members);
+        let id = if is_member { s.members[k].id.clone() } else { s.floors[fi].id.clone() };
+        let force_of = |r: &CaseResult| -> Option<f64> {
+            if is_member { r.members.get(k).map(|m| m.force_n) } else { r.floors.get(fi).map(|f| f.normal_force_n) }
+        };
+        let util_of = |r: &CaseResult| -> Option<f64> {
+            if is_member { r.members.get(k).map(|m| m.utilisation) } else { r.floors.get(fi).map(|f| f.utilisation) }
+        };
+        let static_force = force_of(static_result);
+        let force_n: Vec<Option<f64>> = results.iter().map(force_of).collect();
+        let ratio_to_static = force_n
+            .iter()
+            .map(|f| match (f, static_force) {
+                (Some(f), Some(s0)) if s0.abs() > 1e-9 => Some(f / s0),
+                _ => None,
+            })
+            .collect();
+        let utilisation: Vec<Option<f64>> = results.iter().map(util_of).collect();
+        let governing_case = utilisation
+            .iter()
+            .enumerate()
+            .filter_map(|(i, u)| u.map(|u| (i, u)))
+            .max_by(|a, b| a.1.total_cmp(&b.1))
+            .map(|(i, _)| results[i].id.clone());
+        let mut limits = Limits::default();
+        if let (Some(m), Some(items)) = (swing_mass, &swing_items) {
+            let ml = MassLimits { factor: items.get(k).copied().flatten(), stiffness_n_per_m: None };
+            limits.release_deg = limits_from(&ml, 1.0).release_deg;
+            let _ = m;
+        }
+        if let (Some(m), Some(items)) = (drop_mass, &drop_items) {
+            let w = s.masses[m].mass.value * g;
+            let ml = MassLimits {
+                factor: items.get(k).copied().flatten(),
+                stiffness_n_per_m: mass_limits[m].and_then(|l| l.stiffness_n_per_m),
+            };
+            limits.drop_height_m = limits_from(&ml, w).drop_height_m;
+        }
+        let allowable_n = if is_member { allow.member_n[k] } else { allow.floor_n[fi] };
+        rows.push(ComparisonRow {
+            id,
+            static_force_n: static_force,
+            force_n,
+            ratio_to_static,
+            allowable_n,
+            utilisation,
+            governing_case,
+            limits,
+        });
+    }
+    rows
+}

@@ -1,0 +1,185 @@
+//! Turning one solved equilibrium into member, floor, node, support and
+//! load-path results against the allowables, with the state of each.
+
+use super::allowable::{floor_allowable, member_allowable};
+use super::results::{FloorResult, LoadPathResult, MemberResult, NodeResult, State, SupportResult};
+use crate::library::Carries;
+use crate::model::{Scenario, Support};
+use crate::solve::{Equilibrium, Network, load_paths};
+
+/// The allowables of a scenario, computed once.
+#[derive(Debug, Clone)]
+pub struct Allowables {
+    /// Per member, N.
+    pub member_n: Vec<f64>,
+    /// Per member, explanation.
+    pub member_note: Vec<String>,
+    /// Per floor, N.
+    pub floor_n: Vec<f64>,
+    /// Per floor, deflection limit, m.
+    pub floor_deflection_m: Vec<f64>,
+    /// Per floor, explanation.
+    pub floor_note: Vec<String>,
+}
+
+impl Allowables {
+    /// Compute every allowable of a scenario.
+    pub fn of(s: &Scenario) -> Allowables {
+        let (member_n, member_note) =
+            s.members.iter().map(member_allowable).map(|a| (a.force_n, a.explanation)).unzip();
+        let mut floor_n = Vec::new();
+        let mut floor_deflection_m = Vec::new();
+        let mut floor_note = Vec::new();
+        for f in &s.floors {
+            let (a, d) = floor_allowable(f);
+            floor_n.push(a.force_n);
+            floor_deflection_m.push(d);
+            floor_note.push(a.explanation);
+        }
+        Allowables { member_n, member_note, floor_n, floor_deflection_m, floor_note }
+    }
+}
+
+fn state_of(utilisation: f64, near: f64) -> State {
+    if utilisation > 1.0 + 1e-9 {
+        State::Over
+    } else if utilisation >= near {
+        State::Near
+    } else {
+        State::Ok
+    }
+}
+
+/// Floor normal force and largest deflection per floor.
+fn floor_loads(s: &Scenario, eq: &Equilibrium) -> Vec<(f64, f64, bool)> {
+    let mut out = vec![(0.0, 0.0, false); s.floors.len()];
+    for (i, n) in s.nodes.iter().enumerate() {
+        if let Support::Floor(f) = n.support {
+            let force = eq.floor_force_n[i];
+            let defl = (n.position[1].value - eq.positions_m[i][1]).max(0.0);
+            out[f].0 += force;
+            out[f].1 = f64::max(out[f].1, if force > 0.0 { defl } else { 0.0 });
+            out[f].2 |= force <= 0.0;
+        }
+    }
+    out
+}
+
+/// Largest utilisation of any member or floor in an equilibrium.
+pub fn max_utilisation(s: &Scenario, a: &Allowables, eq: &Equilibrium) -> f64 {
+    let m = eq.member_force_n.iter().zip(&a.member_n).map(|(f, al)| f.abs() / al).fold(0.0, f64::max);
+    let f = floor_loads(s, eq)
+        .iter()
+        .enumerate()
+        .map(|(k, (force, defl, _))| f64::max(force / a.floor_n[k], defl / a.floor_deflection_m[k]))
+        .fold(0.0, f64::max);
+    m.max(f)
+}
+
+/// Utilisation of each member then each floor.
+pub fn utilisations(s: &Scenario, a: &Allowables, eq: &Equilibrium) -> Vec<f64> {
+    let mut u: Vec<f64> = eq.member_force_n.iter().zip(&a.member_n).map(|(f, al)| f.abs() / al).collect();
+    for (k, (force, defl, _)) in floor_loads(s, eq).iter().enumerate() {
+        u.push(f64::max(force / a.floor_n[k], defl / a.floor_deflection_m[k]));
+    }
+    u
+}
+
+/// Everything per item of one equilibrium.
+pub struct Evaluated {
+    /// Members.
+    pub members: Vec<MemberResult>,
+    /// Floors.
+    pub floors: Vec<FloorResult>,
+    /// Nodes.
+    pub nodes: Vec<NodeResult>,
+    /// Supports.
+    pub supports: Vec<SupportResult>,
+    /// Load paths.
+    pub load_path: Vec<LoadPathResult>,
+}
+
+/// Evaluate an equilibrium of scenario `s` under `loads`.
+pub fn evaluate(s: &Scenario, net: &Network, a: &Allowables, loads: &[[f64; 3]], eq: &Equilibrium) -> Evaluated {
+    let members = s
+        .members
+        .iter()
+        .enumerate()
+        .map(|(i, m)| {
+            let force = eq.member_force_n[i];
+            let length = eq.member_length_m[i];
+            let [pa, pb] = [eq.positions_m[m.ends[0]], eq.positions_m[m.ends[1]]];
+            let dy = (pb[1] - pa[1]).abs();
+            let angle = if length > 0.0 { (dy / length).clamp(0.0, 1.0).asin().to_degrees() } else { 0.0 };
+            let utilisation = force.abs() / a.member_n[i];
+            let slack = m.kind.carries() == Carries::TensionOnly && force <= 0.0;
+            // d = w⊥ L² / (8 T), w⊥ = μ g cos α (Irvine, Cable Structures, parabolic sag)
+            let w_across = m.linear_mass.value * s.gravity_m_s2() * angle.to_radians().cos();
+            let sag_m = if force > 0.0 && w_across > 0.0 { w_across * length * length / (8.0 * force) } else { 0.0 };
+            MemberResult {
+                id: m.id.clone(),
+                force_n: force,
+                allowable_n: a.member_n[i],
+                utilisation,
+                state: if slack { State::Slack } else { state_of(utilisation, s.near_limit) },
+                stretch_m: length - net.members[i].rest_length_m,
+                length_m: length,
+                sling_angle_deg: angle,
+                sag_m,
+            }
+        })
+        .collect();
+    let floors = floor_loads(s, eq)
+        .iter()
+        .enumerate()
+        .map(|(k, &(force, defl, lifted))| {
+            let utilisation = f64::max(force / a.floor_n[k], defl / a.floor_deflection_m[k]);
+            let any_node = s.nodes.iter().any(|n| n.support == Support::Floor(k));
+            FloorResult {
+                id: s.floors[k].id.clone(),
+                normal_force_n: force,
+                deflection_m: defl,
+                allowable_n: a.floor_n[k],
+                deflection_limit_m: a.floor_deflection_m[k],
+                utilisation,
+                state: if any_node && lifted && force <= 0.0 {
+                    State::Slack
+                } else {
+                    state_of(utilisation, s.near_limit)
+                },
+            }
+        })
+        .collect();
+    let nodes = s
+        .nodes
+        .iter()
+        .enumerate()
+        .map(|(i, n)| NodeResult { id: n.id.clone(), position_m: eq.positions_m[i] })
+        .collect();
+    let supports = s
+        .nodes
+        .iter()
+        .enumerate()
+        .filter(|(_, n)| n.support != Support::Joint)
+        .map(|(i, n)| SupportResult { node: n.id.clone(), reaction_n: eq.reaction_n[i] })
+        .collect();
+    let paths = load_paths(net, eq, loads, 1e-9);
+    let load_path = s
+        .masses
+        .iter()
+        .map(|m| {
+            let p = paths.iter().find(|p| p.node == m.node);
+            LoadPathResult {
+                mass: m.id.clone(),
+                members: p.map(|p| p.members.iter().map(|&k| s.members[k].id.clone()).collect()).unwrap_or_default(),
+                supports: match p {
+                    Some(p) => p.supports.iter().map(|&k| s.nodes[k].id.clone()).collect(),
+                    // a mass hung directly at a support is its own path
+                    None if s.nodes[m.node].support != Support::Joint => vec![s.nodes[m.node].id.clone()],
+                    None => Vec::new(),
+                },
+            }
+        })
+        .collect();
+    Evaluated { members, floors, nodes, supports, load_path }
+}

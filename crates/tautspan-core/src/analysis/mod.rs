@@ -1,0 +1,17 @@
+//! Analysis of a scenario: static and dynamic cases, allowables, states,
+//! limits, warnings and the comparison table.
+
+mod allowable;
+mod analyse;
+mod evaluate;
+pub mod formulas;
+mod limits;
+pub mod results;
+mod simulate_case;
+mod warnings;
+
+pub use allowable::{Allowable, floor_allowable, member_allowable};
+pub use analyse::{analyse, assumptions};
+pub use evaluate::Allowables;
+pub use results::*;
+pub use simulate_case::{CaseSimulation, SimulateRequest, simulate_case};

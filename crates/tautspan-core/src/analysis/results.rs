@@ -1,0 +1,229 @@
+//! What an analysis answers, per case: member forces against allowables,
+//! floor normal forces, node positions, support reactions, the load path,
+//! limits and warnings. Plain `f64` in SI units, names carry the unit.
+
+use serde::Serialize;
+
+/// A member's or floor's state in a case.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Serialize)]
+#[serde(rename_all = "lowercase")]
+pub enum State {
+    /// Within allowable, below the near-limit threshold.
+    Ok,
+    /// At or above the near-limit threshold, within allowable.
+    Near,
+    /// Over the allowable.
+    Over,
+    /// Carrying nothing: a slack rope, or a floor contact that has lifted off.
+    Slack,
+}
+
+impl State {
+    /// The contract's word.
+    pub fn as_str(self) -> &'static str {
+        match self {
+            State::Ok => "ok",
+            State::Near => "near",
+            State::Over => "over",
+            State::Slack => "slack",
+        }
+    }
+}
+
+/// One member in one case.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct MemberResult {
+    /// Member id.
+    pub id: String,
+    /// Axial force, N (tension positive).
+    pub force_n: f64,
+    /// Allowable force, N.
+    pub allowable_n: f64,
+    /// |force| ÷ allowable.
+    pub utilisation: f64,
+    /// State.
+    pub state: State,
+    /// Stretch from the unstretched length, m (negative: shortened rod or slack rope).
+    pub stretch_m: f64,
+    /// Length in the solved geometry, m.
+    pub length_m: f64,
+    /// Angle from horizontal in the solved geometry, degrees.
+    pub sling_angle_deg: f64,
+    /// Own-weight sag at mid-length across the chord, m (parabolic, Irvine).
+    pub sag_m: f64,
+}
+
+/// One floor in one case.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct FloorResult {
+    /// Floor id.
+    pub id: String,
+    /// Normal force of all nodes resting on it, N.
+    pub normal_force_n: f64,
+    /// Deflection at the node (largest, if several), m.
+    pub deflection_m: f64,
+    /// Allowable force (governing rating), N.
+    pub allowable_n: f64,
+    /// Deflection limit, m.
+    pub deflection_limit_m: f64,
+    /// Larger of force ÷ allowable and deflection ÷ limit.
+    pub utilisation: f64,
+    /// State.
+    pub state: State,
+}
+
+/// A node's solved position.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct NodeResult {
+    /// Node id.
+    pub id: String,
+    /// Solved position, m.
+    pub position_m: [f64; 3],
+}
+
+/// A support's reaction: the force the support exerts on the rig.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct SupportResult {
+    /// Node id.
+    pub node: String,
+    /// Reaction, N.
+    pub reaction_n: [f64; 3],
+}
+
+/// The members and supports that carry one mass.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct LoadPathResult {
+    /// Mass id.
+    pub mass: String,
+    /// Member ids on the path.
+    pub members: Vec<String>,
+    /// Support node ids reached.
+    pub supports: Vec<String>,
+}
+
+/// Largest release angle and drop height inside the allowable.
+#[derive(Debug, Clone, PartialEq, Default, Serialize)]
+pub struct Limits {
+    /// Largest release angle from the vertical, degrees (capped at 90: beyond it a rope goes slack).
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub release_deg: Option<f64>,
+    /// Largest free-fall height, m.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub drop_height_m: Option<f64>,
+}
+
+/// A specific warning: who, what limit, by how much.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct Warning {
+    /// Member, floor, node or case it concerns, if any.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub subject: Option<String>,
+    /// The message.
+    pub message: String,
+}
+
+/// How the dynamic load on the case's mass was found.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct DynamicLoad {
+    /// Mass id.
+    pub mass: String,
+    /// Load on the mass ÷ its weight.
+    pub factor: f64,
+    /// Load on the mass, N.
+    pub load_n: f64,
+    /// Formula used, in words, with its source.
+    pub formula: String,
+    /// Effective stiffness of the path at the mass, N/m (drop and sudden).
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub path_stiffness_n_per_m: Option<f64>,
+}
+
+/// One case's answer.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct CaseResult {
+    /// Case id.
+    pub id: String,
+    /// `static`, `swing`, `drop` or `sudden`.
+    pub kind: String,
+    /// Whether the solver converged.
+    pub converged: bool,
+    /// Newton iterations used.
+    pub iterations: usize,
+    /// Out-of-balance force reached, N.
+    pub residual_n: f64,
+    /// Why the case could not be solved, if it could not.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub error: Option<String>,
+    /// The dynamic load, for dynamic cases.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub dynamic: Option<DynamicLoad>,
+    /// Members.
+    pub members: Vec<MemberResult>,
+    /// Floors.
+    pub floors: Vec<FloorResult>,
+    /// Nodes.
+    pub nodes: Vec<NodeResult>,
+    /// Supports.
+    pub supports: Vec<SupportResult>,
+    /// Load paths.
+    pub load_path: Vec<LoadPathResult>,
+    /// Limits for the case's mass.
+    pub limits: Limits,
+    /// Warnings.
+    pub warnings: Vec<String>,
+    /// Warnings with their subjects (same text as `warnings`).
+    #[serde(skip)]
+    pub warning_items: Vec<Warning>,
+}
+
+/// Per member, across cases: the inspector's comparison row.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct ComparisonRow {
+    /// Member or floor id.
+    pub id: String,
+    /// Force in the first static case, N.
+    pub static_force_n: Option<f64>,
+    /// Force per case (same order as the cases), N.
+    pub force_n: Vec<Option<f64>>,
+    /// Ratio of each case's force to the static force.
+    pub ratio_to_static: Vec<Option<f64>>,
+    /// Allowable, N.
+    pub allowable_n: f64,
+    /// Utilisation per case.
+    pub utilisation: Vec<Option<f64>>,
+    /// The case with the highest utilisation.
+    pub governing_case: Option<String>,
+    /// This member's own limits.
+    pub limits: Limits,
+}
+
+/// Everything the analysis of one scenario answers.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct Analysis {
+    /// Scenario title.
+    pub title: String,
+    /// The caution.
+    pub caution: String,
+    /// Cases, in file order.
+    pub cases: Vec<CaseResult>,
+    /// The comparison table, members then floors.
+    pub comparison: Vec<ComparisonRow>,
+    /// Warnings about the scenario as a whole (design factors, inputs).
+    pub warnings: Vec<Warning>,
+    /// The assumptions, formulas and sources used.
+    pub assumptions: Vec<String>,
+}
+
+impl Analysis {
+    /// True when every member and floor is within allowable in every case
+    /// and nothing meant to carry went slack; false otherwise (exit code 1).
+    pub fn all_within(&self) -> bool {
+        self.cases.iter().all(|c| c.converged && c.error.is_none()) && !self.any_fault()
+    }
+
+    fn any_fault(&self) -> bool {
+        self.cases.iter().any(|c| {
+            c.members.iter().any(|m| m.state == State::Over) || c.floors.iter().any(|f| f.state == State::Over)
+        }) || self.cases.iter().any(|c| c.warning_items.iter().any(|w| w.message.contains("meant to carry")))
+    }
+}

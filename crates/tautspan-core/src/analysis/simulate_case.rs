@@ -1,0 +1,184 @@
+//! Time-domain runs of a scenario's cases: the start state each case
+//! implies, the integrator on the scenario's network, and the measured
+//! swing period.
+//!
+//! Start states: a swing starts at rest with the swinging part of the rig
+//! (the free nodes reached from the mass without passing the pivot or a
+//! support) turned about the pivot by the release angle in the x–y plane,
+//! from the static equilibrium; a drop starts from the equilibrium without
+//! the mass's weight, the mass moving down at `√(2 g h)` (the speed of a
+//! free fall of h onto the unloaded path); a sudden load starts there at
+//! rest; the static case starts at its equilibrium.
+
+use crate::model::{Case, Scenario, Support, to_network};
+use crate::solve::{SimulateOptions, Simulation, SimulationStart, SolveOptions, StaticSolver, simulate};
+
+/// A case simulated.
+#[derive(Debug, Clone)]
+pub struct CaseSimulation {
+    /// Case id.
+    pub case_id: String,
+    /// The run.
+    pub run: Simulation,
+    /// Member ids, in the order of the run's forces.
+    pub member_ids: Vec<String>,
+    /// Node ids, in the order of the run's positions.
+    pub node_ids: Vec<String>,
+    /// Swing period measured from the mass's sideways motion, s.
+    pub period_s: Option<f64>,
+    /// The node of the case's mass.
+    pub mass_node: Option<usize>,
+}
+
+/// Settings the user may give.
+#[derive(Debug, Clone, PartialEq)]
+pub struct SimulateRequest {
+    /// Simulated time, s.
+    pub duration_s: f64,
+    /// Time step, s, or automatic.
+    pub time_step_s: Option<f64>,
+    /// Mass-proportional damping, 1/s.
+    pub damping_per_s: f64,
+}
+
+impl Default for SimulateRequest {
+    fn default() -> Self {
+        SimulateRequest { duration_s: 10.0, time_step_s: None, damping_per_s: 0.0 }
+    }
+}
+
+fn rotate_about(p: [f64; 3], c: [f64; 3], angle: f64) -> [f64; 3] {
+    let (dx, dy) = (p[0] - c[0], p[1] - c[1]);
+    let (sn, cs) = angle.sin_cos();
+    [c[0] + cs * dx - sn * dy, c[1] + sn * dx + cs * dy, p[2]]
+}
+
+/// The free nodes that swing with the mass: reached from the mass's node
+/// through members without passing the pivot or any support.
+fn swinging_nodes(s: &Scenario, mass_node: usize, pivot: usize) -> Vec<usize> {
+    let mut seen = vec![false; s.nodes.len()];
+    let mut stack = vec![mass_node];
+    seen[mass_node] = true;
+    let mut out = Vec::new();
+    while let Some(n) = stack.pop() {
+        out.push(n);
+        for m in &s.members {
+            let other = if m.ends[0] == n {
+                m.ends[1]
+            } else if m.ends[1] == n {
+                m.ends[0]
+            } else {
+                continue;
+            };
+            if !seen[other] && other != pivot && s.nodes[other].support == Support::Joint {
+                seen[other] = true;
+                stack.push(other);
+            }
+        }
+    }
+    out
+}
+
+/// The pivot a swing turns about: the case's, else the nearest node above
+/// the mass that a member joins to it.
+fn default_pivot(s: &Scenario, mass_node: usize) -> Option<usize> {
+    let y = s.position_m(mass_node)[1];
+    s.members
+        .iter()
+        .filter_map(|m| {
+            if m.ends[0] == mass_node {
+                Some(m.ends[1])
+            } else if m.ends[1] == mass_node {
+                Some(m.ends[0])
+            } else {
+                None
+            }
+        })
+        .filter(|&o| s.position_m(o)[1] > y)
+        .min_by(|&a, &b| (s.position_m(a)[1] - y).total_cmp(&(s.position_m(b)[1] - y)))
+}
+
+/// Upward zero crossings of `x(t) − x_ref`, averaged into a period.
+fn measured_period(t: &[f64], x: &[f64], x_ref: f64) -> Option<f64> {
+    let mut crossings = Vec::new();
+    for i in 1..t.len() {
+        let (a, b) = (x[i - 1] - x_ref, x[i] - x_ref);
+        if a < 0.0 && b >= 0.0 {
+            let f = a / (a - b);
+            crossings.push(t[i - 1] + f * (t[i] - t[i - 1]));
+        }
+    }
+    if crossings.len() < 2 {
+        return None;
+    }
+    Some((crossings[crossings.len() - 1] - crossings[0]) / (crossings.len() - 1) as f64)
+}
+
+/// Simulate a case of a scenario. `progress` gets the completed fraction and
+/// returns false to stop early.
+pub fn simulate_case(
+    s: &Scenario,
+    case_id: &str,
+    req: &SimulateRequest,
+    progress: &mut dyn FnMut(f64) -> bool,
+) -> Result<CaseSimulation, String> {
+    let case = s.cases.iter().find(|c| c.id() == case_id).ok_or_else(|| {
+        format!(
+            "case \"{case_id}\" is not in the scenario; its cases are {}",
+            s.cases.iter().map(|c| format!("\"{}\"", c.id())).collect::<Vec<_>>().join(", ")
+        )
+    })?;
+    let (net, loads) = to_network(s);
+    let mut solver = StaticSolver::new(&net).map_err(|e| e.to_string())?;
+    let opts = SolveOptions::default();
+    let eq = solver.solve(&loads.total_n, None, &opts).map_err(|e| e.to_string())?;
+    let g = s.gravity_m_s2();
+    let mass_node = case.mass().map(|m| s.masses[m].node);
+    let start = match case {
+        Case::Static { .. } => SimulationStart { positions_m: Some(eq.positions_m.clone()), velocities_m_per_s: None },
+        Case::Swing { mass, release, pivot, .. } => {
+            let node = s.masses[*mass].node;
+            let pivot = pivot
+                .or_else(|| default_pivot(s, node))
+                .ok_or_else(|| format!("case {case_id}: no pivot above mass {}; give `pivot`", s.masses[*mass].id))?;
+            let centre = eq.positions_m[pivot];
+            let mut pos = eq.positions_m.clone();
+            // swing towards +x: turn clockwise about the pivot (negative angle lifts a hanging mass to −x), so use −release to start on the −x side
+            for n in swinging_nodes(s, node, pivot) {
+                pos[n] = rotate_about(eq.positions_m[n], centre, -release.value);
+            }
+            SimulationStart { positions_m: Some(pos), velocities_m_per_s: None }
+        }
+        Case::Drop { mass, .. } | Case::Sudden { mass, .. } => {
+            let unloaded = loads.with_mass_factor(s, *mass, 0.0);
+            let eq0 = solver.solve(&unloaded, Some(&eq.positions_m), &opts).map_err(|e| e.to_string())?;
+            let h = if let Case::Drop { height, .. } = case { height.value } else { 0.0 };
+            let mut v = vec![[0.0; 3]; s.nodes.len()];
+            v[s.masses[*mass].node][1] = -(2.0 * g * h).sqrt();
+            SimulationStart { positions_m: Some(eq0.positions_m), velocities_m_per_s: Some(v) }
+        }
+    };
+    let sim_opts = SimulateOptions {
+        duration_s: req.duration_s,
+        time_step_s: req.time_step_s,
+        output_interval_s: None,
+        mass_damping_per_s: req.damping_per_s,
+        newton: SolveOptions::default(),
+    };
+    let run = simulate(&net, &start, &sim_opts, progress).map_err(|e| e.to_string())?;
+    let period_s = match (case, mass_node) {
+        (Case::Swing { .. }, Some(n)) => {
+            let x: Vec<f64> = run.positions_m.iter().map(|p| p[n][0]).collect();
+            measured_period(&run.time_s, &x, eq.positions_m[n][0])
+        }
+        _ => None,
+    };
+    Ok(CaseSimulation {
+        case_id: case_id.to_string(),
+        member_ids: s.members.iter().map(|m| m.id.clone()).collect(),
+        node_ids: s.nodes.iter().map(|n| n.id.clone()).collect(),
+        run,
+        period_s,
+        mass_node,
+    })
+}

@@ -1,0 +1,13 @@
+//! Scenario files: the file types, reading with located errors, writing.
+
+mod dto;
+mod error;
+mod locate;
+mod read;
+mod write;
+
+pub use dto::{CaseDto, FloorDto, MassDto, MemberDto, NodeDto, Position, Qty, RatingDto, ScenarioDto, SupportDto};
+pub use error::{FileError, FileErrors};
+pub use locate::{Location, SpanIndex};
+pub use read::{FORMAT_WRITTEN, FORMATS_READ, MAX_FILE_BYTES, parse_scenario_text, ron_options};
+pub use write::write_scenario_text;

@@ -1,0 +1,16 @@
+//! The member library: kinds, materials, rope constructions, chain grades,
+//! fibre rope stiffness, floor slabs. Every value carries its source.
+
+mod chain;
+mod fibre_rope;
+mod material;
+mod member_kind;
+mod slab;
+mod wire_rope;
+
+pub use chain::{ChainGrade, chain_area_m2, chain_linear_mass_kg_m};
+pub use fibre_rope::{default_elongation_at_20pct, fibre_axial_stiffness_n, fibre_linear_mass_kg_m};
+pub use material::{Material, MaterialData};
+pub use member_kind::{Carries, DefaultFactor, MemberKind};
+pub use slab::{Edges, flexural_rigidity, point_load_coefficient, point_stiffness_n_per_m};
+pub use wire_rope::{Construction, ROPE_GRADES, rope_linear_mass_kg_m};

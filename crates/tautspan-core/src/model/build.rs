@@ -1,0 +1,676 @@
+//! From file types to the validated model: every quantity parsed in its
+//! dimension, every reference resolved, every member's stiffness and rating
+//! found from the file or the library. Problems are collected (not only the
+//! first) and each names its field path; the file layer adds line and column.
+
+use super::scenario::{Case, DesignFactor, Floor, Mass, Member, Node, Rating, Scenario, Support};
+use crate::file::{CaseDto, FloorDto, MemberDto, Qty, RatingDto, ScenarioDto, SupportDto};
+use crate::library::{
+    ChainGrade, Construction, Material, MemberKind, ROPE_GRADES, chain_area_m2, chain_linear_mass_kg_m,
+    default_elongation_at_20pct, fibre_axial_stiffness_n, fibre_linear_mass_kg_m, point_stiffness_n_per_m,
+    rope_linear_mass_kg_m,
+};
+use crate::units::{Dimension, Sign, parse_quantity};
+use std::collections::HashMap;
+use uom::si::f64::{Acceleration, Angle, Area, Force, Length, LinearMassDensity, Mass as MassQ, Pressure};
+use uom::si::{
+    acceleration::meter_per_second_squared, angle::radian, area::square_meter, force::newton, length::meter,
+    linear_mass_density::kilogram_per_meter, mass::kilogram, pressure::pascal,
+};
+
+/// Standard gravity, m/s² (CGPM 1901; ISO 80000-3).
+pub const STANDARD_GRAVITY_M_S2: f64 = 9.806_65;
+
+/// One problem found while validating, at a field path.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Problem {
+    /// Field path (`members[2].area`).
+    pub path: String,
+    /// What is wrong.
+    pub message: String,
+}
+
+struct Ctx {
+    problems: Vec<Problem>,
+}
+
+impl Ctx {
+    fn err(&mut self, path: impl Into<String>, message: impl Into<String>) {
+        self.problems.push(Problem { path: path.into(), message: message.into() });
+    }
+
+    fn qty(&mut self, q: &Qty, path: &str, dim: Dimension, sign: Sign) -> Option<f64> {
+        match parse_quantity(&q.0, dim, sign) {
+            Ok(v) => Some(v),
+            Err(e) => {
+                self.err(path, e.to_string());
+                None
+            }
+        }
+    }
+
+    fn opt_qty(&mut self, q: &Option<Qty>, path: &str, dim: Dimension, sign: Sign) -> Option<f64> {
+        q.as_ref().and_then(|q| self.qty(q, path, dim, sign))
+    }
+
+    fn number(&mut self, v: f64, path: &str, lo: f64, hi: f64, what: &str) -> Option<f64> {
+        if v.is_finite() && v >= lo && v <= hi {
+            Some(v)
+        } else {
+            self.err(path, format!("{v} is out of range: {what}"));
+            None
+        }
+    }
+}
+
+fn ids<'a>(ctx: &mut Ctx, list: impl Iterator<Item = &'a str>, section: &str, what: &str) -> HashMap<String, usize> {
+    let mut map = HashMap::new();
+    for (i, id) in list.enumerate() {
+        let path = format!("{section}[{i}].id");
+        if id.trim().is_empty() {
+            ctx.err(path, format!("{what} id is empty; give each {what} a name"));
+        } else if let Some(first) = map.get(id) {
+            ctx.err(path, format!("duplicate {what} id \"{id}\" (first used by {section}[{first}])"));
+        } else {
+            map.insert(id.to_string(), i);
+        }
+    }
+    map
+}
+
+/// Validate a scenario's file types into the model.
+pub fn build(dto: &ScenarioDto) -> Result<Scenario, Vec<Problem>> {
+    let mut ctx = Ctx { problems: Vec::new() };
+    let gravity = match &dto.gravity {
+        Some(q) => ctx.qty(q, "gravity", Dimension::Acceleration, Sign::Positive).unwrap_or(STANDARD_GRAVITY_M_S2),
+        None => STANDARD_GRAVITY_M_S2,
+    };
+    let near_limit = match dto.near_limit {
+        Some(v) => {
+            ctx.number(v, "near_limit", 0.01, 1.0, "near_limit is a utilisation between 0.01 and 1").unwrap_or(0.8)
+        }
+        None => 0.8,
+    };
+    let dynamic_ratio_warning = match dto.dynamic_ratio_warning {
+        Some(v) => ctx
+            .number(
+                v,
+                "dynamic_ratio_warning",
+                1.0,
+                1e6,
+                "dynamic_ratio_warning is a multiple of the static force, at least 1",
+            )
+            .unwrap_or(2.0),
+        None => 2.0,
+    };
+
+    let node_ids = ids(&mut ctx, dto.nodes.iter().map(|n| n.id.as_str()), "nodes", "node");
+    let floor_ids = ids(&mut ctx, dto.floors.iter().map(|f| f.id.as_str()), "floors", "floor");
+    let member_ids = ids(&mut ctx, dto.members.iter().map(|m| m.id.as_str()), "members", "member");
+    let mass_ids = ids(&mut ctx, dto.masses.iter().map(|m| m.id.as_str()), "masses", "mass");
+    let _ = ids(&mut ctx, dto.cases.iter().map(CaseDto::id), "cases", "case");
+    let _ = member_ids;
+
+    let floors: Vec<Floor> = dto.floors.iter().enumerate().filter_map(|(i, f)| build_floor(&mut ctx, i, f)).collect();
+
+    let mut nodes = Vec::with_capacity(dto.nodes.len());
+    for (i, n) in dto.nodes.iter().enumerate() {
+        let p = format!("nodes[{i}].at");
+        let x = ctx.qty(&n.at.x, &format!("{p}.0"), Dimension::Length, Sign::Any);
+        let y = ctx.qty(&n.at.y, &format!("{p}.1"), Dimension::Length, Sign::Any);
+        let z = match &n.at.z {
+            Some(z) => ctx.qty(z, &format!("{p}.2"), Dimension::Length, Sign::Any),
+            None => Some(0.0),
+        };
+        let support = match &n.support {
+            SupportDto::Joint => Support::Joint,
+            SupportDto::Anchor => Support::Anchor,
+            SupportDto::Floor(f) => match floor_ids.get(f) {
+                Some(&k) => Support::Floor(k),
+                None => {
+                    let known = if dto.floors.is_empty() {
+                        "no floors are defined; add one under `floors`".to_string()
+                    } else {
+                        format!(
+                            "the floors are {}",
+                            dto.floors.iter().map(|f| format!("\"{}\"", f.id)).collect::<Vec<_>>().join(", ")
+                        )
+                    };
+                    ctx.err(format!("nodes[{i}].support"), format!("floor \"{f}\" is not defined; {known}"));
+                    Support::Joint
+                }
+            },
+        };
+        nodes.push(Node {
+            id: n.id.clone(),
+            position: [
+                Length::new::<meter>(x.unwrap_or(0.0)),
+                Length::new::<meter>(y.unwrap_or(0.0)),
+                Length::new::<meter>(z.unwrap_or(0.0)),
+            ],
+            support,
+        });
+    }
+
+    let node_ref = |ctx: &mut Ctx, id: &str, path: String, what: &str| -> Option<usize> {
+        match node_ids.get(id) {
+            Some(&k) => Some(k),
+            None => {
+                ctx.err(path, format!("{what} names node \"{id}\", which does not exist"));
+                None
+            }
+        }
+    };
+
+    let mut members = Vec::with_capacity(dto.members.len());
+    for (i, m) in dto.members.iter().enumerate() {
+        let a = node_ref(&mut ctx, &m.ends.0, format!("members[{i}].ends.0"), "member end");
+        let b = node_ref(&mut ctx, &m.ends.1, format!("members[{i}].ends.1"), "member end");
+        let (Some(a), Some(b)) = (a, b) else { continue };
+        if a == b {
+            ctx.err(
+                format!("members[{i}].ends"),
+                format!("both ends are node \"{}\"; a member joins two different nodes", m.ends.0),
+            );
+            continue;
+        }
+        let pa = &nodes[a].position;
+        let pb = &nodes[b].position;
+        let drawn = ((pb[0].value - pa[0].value).powi(2)
+            + (pb[1].value - pa[1].value).powi(2)
+            + (pb[2].value - pa[2].value).powi(2))
+        .sqrt();
+        if drawn < 1e-9 {
+            ctx.err(
+                format!("members[{i}].ends"),
+                format!(
+                    "its two ends \"{}\" and \"{}\" coincide; move one node or remove the member",
+                    m.ends.0, m.ends.1
+                ),
+            );
+            continue;
+        }
+        if let Some(mut member) = build_member(&mut ctx, i, m) {
+            member.ends = [a, b];
+            if drawn + member.slack.value <= 1e-9 {
+                ctx.err(
+                    format!("members[{i}].slack"),
+                    format!(
+                        "slack {:.4} m leaves no unstretched length (drawn length {:.4} m); pretension must be less than the length",
+                        member.slack.value, drawn
+                    ),
+                );
+            }
+            if let Some(v) = member.wave_speed_m_s.filter(|v| !v.is_finite() || *v <= 0.0) {
+                ctx.err(format!("members[{i}]"), format!("wave speed {v} is not a positive number"));
+            }
+            members.push(member);
+        }
+    }
+
+    let mut masses = Vec::with_capacity(dto.masses.len());
+    for (i, m) in dto.masses.iter().enumerate() {
+        let node = node_ref(&mut ctx, &m.at, format!("masses[{i}].at"), "mass");
+        let kg = ctx.qty(&m.mass, &format!("masses[{i}].mass"), Dimension::Mass, Sign::Positive);
+        if let (Some(node), Some(kg)) = (node, kg) {
+            masses.push(Mass { id: m.id.clone(), node, mass: MassQ::new::<kilogram>(kg) });
+        }
+    }
+
+    let mass_ref = |ctx: &mut Ctx, id: &str, path: String| -> Option<usize> {
+        match mass_ids.get(id) {
+            Some(&k) => Some(k),
+            None => {
+                let known = if dto.masses.is_empty() {
+                    "no masses are defined".to_string()
+                } else {
+                    format!(
+                        "the masses are {}",
+                        dto.masses.iter().map(|m| format!("\"{}\"", m.id)).collect::<Vec<_>>().join(", ")
+                    )
+                };
+                ctx.err(path, format!("case names mass \"{id}\", which does not exist; {known}"));
+                None
+            }
+        }
+    };
+
+    let mut cases = Vec::with_capacity(dto.cases.len());
+    if dto.cases.is_empty() {
+        ctx.err("cases", "no load cases; add at least `Static(id: \"hanging\")`");
+    }
+    for (i, c) in dto.cases.iter().enumerate() {
+        let case = match c {
+            CaseDto::Static { id } => Some(Case::Static { id: id.clone() }),
+            CaseDto::Swing { id, mass, release, pivot } => {
+                let m = mass_ref(&mut ctx, mass, format!("cases[{i}].mass"));
+                let r = ctx.qty(release, &format!("cases[{i}].release"), Dimension::Angle, Sign::NonNegative);
+                let r = r.and_then(|r| {
+                    if r > std::f64::consts::PI + 1e-12 {
+                        ctx.err(
+                            format!("cases[{i}].release"),
+                            "a release angle is between 0 and 180 deg from the vertical",
+                        );
+                        None
+                    } else {
+                        Some(r)
+                    }
+                });
+                let pv = match pivot {
+                    Some(p) => node_ref(&mut ctx, p, format!("cases[{i}].pivot"), "swing pivot").map(Some),
+                    None => Some(None),
+                };
+                match (m, r, pv) {
+                    (Some(mass), Some(r), Some(pivot)) => {
+                        Some(Case::Swing { id: id.clone(), mass, release: Angle::new::<radian>(r), pivot })
+                    }
+                    _ => None,
+                }
+            }
+            CaseDto::Drop { id, mass, height } => {
+                let m = mass_ref(&mut ctx, mass, format!("cases[{i}].mass"));
+                let h = ctx.qty(height, &format!("cases[{i}].height"), Dimension::Length, Sign::NonNegative);
+                match (m, h) {
+                    (Some(mass), Some(h)) => Some(Case::Drop { id: id.clone(), mass, height: Length::new::<meter>(h) }),
+                    _ => None,
+                }
+            }
+            CaseDto::Sudden { id, mass } => {
+                mass_ref(&mut ctx, mass, format!("cases[{i}].mass")).map(|mass| Case::Sudden { id: id.clone(), mass })
+            }
+        };
+        if let Some(case) = case {
+            cases.push(case);
+        }
+    }
+
+    if !ctx.problems.is_empty() {
+        return Err(ctx.problems);
+    }
+    Ok(Scenario {
+        title: dto.title.clone(),
+        notes: dto.notes.clone(),
+        gravity: Acceleration::new::<meter_per_second_squared>(gravity),
+        near_limit,
+        dynamic_ratio_warning,
+        nodes,
+        members,
+        floors,
+        masses,
+        cases,
+    })
+}
+
+fn material_of(ctx: &mut Ctx, name: &Option<String>, path: &str) -> Option<Material> {
+    let name = name.as_ref()?;
+    match Material::from_name(name) {
+        Some(m) => Some(m),
+        None => {
+            ctx.err(path, format!("material \"{name}\" is not in the library; it knows {}", Material::names()));
+            None
+        }
+    }
+}
+
+fn build_floor(ctx: &mut Ctx, i: usize, f: &FloorDto) -> Option<Floor> {
+    let p = |s: &str| format!("floors[{i}].{s}");
+    let sx = ctx.qty(&f.span.0, &p("span.0"), Dimension::Length, Sign::Positive);
+    let sz = ctx.qty(&f.span.1, &p("span.1"), Dimension::Length, Sign::Positive);
+    let t = ctx.qty(&f.thickness, &p("thickness"), Dimension::Length, Sign::Positive);
+    let material = material_of(ctx, &f.material, &p("material"));
+    let modulus = match (&f.modulus, material) {
+        (Some(q), _) => ctx.qty(q, &p("modulus"), Dimension::Pressure, Sign::Positive),
+        (None, Some(m)) => Some(m.data().modulus_pa),
+        (None, None) => {
+            ctx.err(
+                p("modulus"),
+                "missing: give the slab's `modulus` (e.g. \"30 GPa\") or a `material` (e.g. \"concrete\")",
+            );
+            None
+        }
+    };
+    let poisson = match (f.poisson, material) {
+        (Some(v), _) => ctx.number(v, &p("poisson"), 0.0, 0.499, "Poisson's ratio is between 0 and 0.5"),
+        (None, Some(m)) => Some(m.data().poisson),
+        (None, None) => {
+            ctx.err(p("poisson"), "missing: give `poisson` (0.2 for concrete) or a `material`");
+            None
+        }
+    };
+    let rated_uniform = ctx.opt_qty(&f.rated_uniform, &p("rated_uniform"), Dimension::Pressure, Sign::Positive);
+    let rated_point = ctx.opt_qty(&f.rated_point, &p("rated_point"), Dimension::Force, Sign::Positive);
+    if f.rated_uniform.is_none() && f.rated_point.is_none() {
+        ctx.err(
+            p("rated_point"),
+            "a floor needs a rating: give `rated_point` (e.g. \"8.9 kN\") and/or `rated_uniform` (e.g. \"2.4 kPa\")",
+        );
+    }
+    let pad = match &f.pad {
+        Some((a, b)) => {
+            let a = ctx.qty(a, &p("pad.0"), Dimension::Length, Sign::Positive);
+            let b = ctx.qty(b, &p("pad.1"), Dimension::Length, Sign::Positive);
+            Some([a?, b?])
+        }
+        None => None,
+    };
+    let deflection_limit = match f.deflection_limit {
+        Some(v) => {
+            ctx.number(v, &p("deflection_limit"), 1.0, 1e6, "deflection_limit is span / N with N ≥ 1 (360 is usual)")?
+        }
+        None => 360.0,
+    };
+    let (sx, sz, t, e, nu) = (sx?, sz?, t?, modulus?, poisson?);
+    Some(Floor {
+        id: f.id.clone(),
+        span: [Length::new::<meter>(sx), Length::new::<meter>(sz)],
+        thickness: Length::new::<meter>(t),
+        modulus: Pressure::new::<pascal>(e),
+        poisson: nu,
+        edges: f.edges,
+        rated_uniform: rated_uniform.map(Pressure::new::<pascal>),
+        rated_point: rated_point.map(Force::new::<newton>),
+        pad: pad.map(|[a, b]| [Length::new::<meter>(a), Length::new::<meter>(b)]),
+        deflection_limit,
+        stiffness_n_per_m: point_stiffness_n_per_m(f.edges, sx, sz, t, e, nu),
+    })
+}
+
+fn fraction(ctx: &mut Ctx, v: Option<f64>, path: &str, what: &str) -> f64 {
+    match v {
+        Some(v) => ctx.number(v, path, 0.01, 1.0, &format!("{what} is a fraction between 0.01 and 1")).unwrap_or(1.0),
+        None => 1.0,
+    }
+}
+
+fn build_member(ctx: &mut Ctx, i: usize, m: &MemberDto) -> Option<Member> {
+    let p = |s: &str| format!("members[{i}].{s}");
+    let kind = m.kind;
+    let material = material_of(ctx, &m.material, &p("material"));
+    let diameter = ctx.opt_qty(&m.diameter, &p("diameter"), Dimension::Length, Sign::Positive);
+    let area_given = ctx.opt_qty(&m.area, &p("area"), Dimension::Area, Sign::Positive);
+    let modulus_given = ctx.opt_qty(&m.modulus, &p("modulus"), Dimension::Pressure, Sign::Positive);
+    let slack = ctx.opt_qty(&m.slack, &p("slack"), Dimension::Length, Sign::Any).unwrap_or(0.0);
+    let linear_mass_given = ctx.opt_qty(&m.linear_mass, &p("linear_mass"), Dimension::LinearDensity, Sign::NonNegative);
+
+    let construction = match &m.construction {
+        Some(c) => match Construction::from_name(c) {
+            Some(c) => Some(c),
+            None => {
+                ctx.err(
+                    p("construction"),
+                    format!("construction \"{c}\" is not in the library; it knows {}", Construction::names()),
+                );
+                return None;
+            }
+        },
+        None => None,
+    };
+    if construction.is_some() && !matches!(kind, MemberKind::WireRope | MemberKind::Cable) {
+        ctx.err(
+            p("construction"),
+            format!("a rope construction applies to wire rope or cable, not to {}", kind.label()),
+        );
+    }
+    let chain_grade = if kind == MemberKind::Chain {
+        match &m.grade {
+            Some(g) => match ChainGrade::from_name(g) {
+                Some(g) => Some(g),
+                None => {
+                    ctx.err(p("grade"), format!("chain grade \"{g}\" is not in the library; it knows 80 and 100"));
+                    return None;
+                }
+            },
+            None => None,
+        }
+    } else {
+        None
+    };
+    let rope_grade_pa = if matches!(kind, MemberKind::WireRope | MemberKind::Cable) {
+        match &m.grade {
+            Some(g) => {
+                let digits: String = g.chars().filter(char::is_ascii_digit).collect();
+                match digits.parse::<f64>() {
+                    Ok(v) if ROPE_GRADES.contains(&v) => Some(v * 1e6),
+                    _ => {
+                        ctx.err(
+                            p("grade"),
+                            format!("rope grade \"{g}\" is not one of 1570, 1770, 1960, 2160 (N/mm^2)"),
+                        );
+                        return None;
+                    }
+                }
+            }
+            None => None,
+        }
+    } else {
+        None
+    };
+
+    let rating_given = match &m.rating {
+        Some(RatingDto::BreakingStrength(q)) => ctx
+            .qty(q, &p("rating"), Dimension::Force, Sign::Positive)
+            .map(|v| (Rating::BreakingStrength(Force::new::<newton>(v)), "given in the file".to_string())),
+        Some(RatingDto::WorkingLoadLimit(q)) => ctx.qty(q, &p("rating"), Dimension::Force, Sign::Positive).map(|v| {
+            (Rating::WorkingLoadLimit(Force::new::<newton>(v)), "working load limit given in the file".to_string())
+        }),
+        Some(RatingDto::Yield(q)) => ctx
+            .qty(q, &p("rating"), Dimension::Pressure, Sign::Positive)
+            .map(|v| (Rating::Yield(Pressure::new::<pascal>(v)), "yield stress given in the file".to_string())),
+        None => None,
+    };
+    if m.rating.is_some() && rating_given.is_none() {
+        return None;
+    }
+
+    let circle = diameter.map(|d| std::f64::consts::FRAC_PI_4 * d * d);
+    // area
+    let (area, area_note) = match kind {
+        MemberKind::WireRope | MemberKind::Cable => match (area_given, diameter, construction) {
+            (Some(a), _, _) => (Some(a), "area given".to_string()),
+            (None, Some(d), Some(c)) => {
+                (Some(c.metallic_area_m2(d)), format!("metallic area C d^2, C = {} ({})", c.area_factor(), c.name()))
+            }
+            (None, Some(_), None) => {
+                ctx.err(p("construction"), "missing: a wire rope given by `diameter` needs its `construction` (e.g. \"6x19 IWRC\"), or give `area`");
+                (None, String::new())
+            }
+            (None, None, _) => {
+                ctx.err(p("area"), "missing: give `area` (metallic area) or `diameter` with `construction`");
+                (None, String::new())
+            }
+        },
+        MemberKind::Chain => match (area_given, diameter) {
+            (Some(a), _) => (Some(a), "area given".to_string()),
+            (None, Some(d)) => (Some(chain_area_m2(d)), "both legs of a link, 2 x pi d^2/4".to_string()),
+            (None, None) => {
+                ctx.err(p("diameter"), "missing: a chain needs its nominal `diameter` (with `grade`) or `area`");
+                (None, String::new())
+            }
+        },
+        MemberKind::Rod | MemberKind::FibreRope => match (area_given, circle) {
+            (Some(a), _) => (Some(a), "area given".to_string()),
+            (None, Some(a)) => (Some(a), "circle of the nominal diameter".to_string()),
+            (None, None) => {
+                ctx.err(p("area"), "missing: give `area` or `diameter`");
+                (None, String::new())
+            }
+        },
+    };
+    let area = area?;
+
+    // rating
+    let (rating, rating_note) = match (rating_given, kind) {
+        (Some(r), _) => r,
+        (None, MemberKind::WireRope | MemberKind::Cable) => match (diameter, construction, rope_grade_pa) {
+            (Some(d), Some(c), Some(g)) => (
+                Rating::BreakingStrength(Force::new::<newton>(c.min_breaking_force_n(d, g))),
+                format!(
+                    "minimum breaking force K d^2 R_r, K = {} ({}, grade {:.0}); {}",
+                    c.breaking_factor(),
+                    c.name(),
+                    g / 1e6,
+                    c.source()
+                ),
+            ),
+            _ => {
+                ctx.err(p("rating"), "missing: give `rating` (e.g. BreakingStrength(\"90.7 kN\")) or `diameter`, `construction` and `grade`");
+                return None;
+            }
+        },
+        (None, MemberKind::Chain) => match (diameter, chain_grade) {
+            (Some(d), Some(g)) => {
+                (Rating::BreakingStrength(Force::new::<newton>(g.min_breaking_force_n(d))), g.source().to_string())
+            }
+            _ => {
+                ctx.err(p("rating"), "missing: give `rating` or the chain's `diameter` and `grade` (80 or 100)");
+                return None;
+            }
+        },
+        (None, MemberKind::Rod) => match material.and_then(|m| m.data().yield_pa.map(|y| (m, y))) {
+            Some((mat, y)) => (
+                Rating::Yield(Pressure::new::<pascal>(y)),
+                format!("nominal yield of {} ({})", mat.name(), mat.data().source),
+            ),
+            None => {
+                ctx.err(p("rating"), "missing: give `rating` (e.g. Yield(\"235 MPa\")) or a metal `material`");
+                return None;
+            }
+        },
+        (None, MemberKind::FibreRope) => {
+            ctx.err(
+                p("rating"),
+                "missing: a fibre rope needs its `rating`, e.g. BreakingStrength(\"32 kN\") from the maker's data",
+            );
+            return None;
+        }
+    };
+
+    // stiffness
+    let (ea, stiffness_note) = match kind {
+        MemberKind::FibreRope => {
+            let at = match m.elongation_at_pct {
+                Some(v) => ctx.number(v, &p("elongation_at_pct"), 1.0, 100.0, "percent of break, 1 to 100")? / 100.0,
+                None => 0.2,
+            };
+            let elong = match (m.elongation_pct, material) {
+                (Some(e), _) => Some((
+                    ctx.number(e, &p("elongation_pct"), 0.01, 100.0, "elastic elongation in percent, 0.01 to 100")?
+                        / 100.0,
+                    "given".to_string(),
+                )),
+                (None, Some(mat)) => default_elongation_at_20pct(mat, m.braided.unwrap_or(true)).map(|e| {
+                    (
+                        e,
+                        format!(
+                            "library default for {} {} (Handbook of Fibre Rope Technology, from memory)",
+                            mat.name(),
+                            if m.braided.unwrap_or(true) { "braid" } else { "3-strand" }
+                        ),
+                    )
+                }),
+                (None, None) => None,
+            };
+            match (modulus_given, elong, rating) {
+                (Some(e), _, _) => (e * area, "E A with the modulus given".to_string()),
+                (None, Some((el, note)), Rating::BreakingStrength(f)) => (
+                    fibre_axial_stiffness_n(f.value, at, el),
+                    format!("EA = {:.0} % of break / {:.2} % elongation ({note})", at * 100.0, el * 100.0),
+                ),
+                _ => {
+                    ctx.err(p("elongation_pct"), "missing: a fibre rope's stiffness needs `elongation_pct` (elastic stretch at 20 % of break) with a BreakingStrength rating, a fibre `material`, or a `modulus`");
+                    return None;
+                }
+            }
+        }
+        _ => {
+            let (e, note) = match (modulus_given, construction, material, kind) {
+                (Some(e), _, _, _) => (e, "modulus given".to_string()),
+                (None, Some(c), _, _) => {
+                    (c.effective_modulus_pa(), format!("effective rope modulus for {} (Feyrer, from memory)", c.name()))
+                }
+                (None, None, Some(mat), _) => {
+                    (mat.data().modulus_pa, format!("{} ({})", mat.name(), mat.data().source))
+                }
+                (None, None, None, MemberKind::Chain) => (
+                    Material::Steel.data().modulus_pa,
+                    "steel, EN 1993-1-1; chain stiffer than real (link bending ignored)".to_string(),
+                ),
+                _ => {
+                    ctx.err(
+                        p("modulus"),
+                        "missing: give `modulus` (e.g. \"100 GPa\"), a `construction`, or a `material`",
+                    );
+                    return None;
+                }
+            };
+            (e * area, format!("E A, {note}; area: {area_note}"))
+        }
+    };
+
+    // own weight
+    let (linear_mass, weight_note) = match linear_mass_given {
+        Some(w) => (w, "given".to_string()),
+        None => match (kind, construction, chain_grade, material, diameter) {
+            (MemberKind::WireRope | MemberKind::Cable, Some(_), _, _, _) => {
+                (rope_linear_mass_kg_m(area), "metallic area x 7850 kg/m^3 x 1.1 (estimate)".to_string())
+            }
+            (MemberKind::Chain, _, _, _, Some(d)) => {
+                (chain_linear_mass_kg_m(d), "0.0222 d^2 kg/m (rule of thumb)".to_string())
+            }
+            (MemberKind::FibreRope, _, _, Some(mat), Some(d)) => {
+                (fibre_linear_mass_kg_m(mat, d), "fibre density x 0.6 packing (estimate)".to_string())
+            }
+            (MemberKind::Rod | MemberKind::WireRope | MemberKind::Cable, _, _, Some(mat), _) => {
+                (mat.data().density_kg_m3 * area, format!("{} density x area", mat.name()))
+            }
+            _ => (0.0, "not known: own weight left out (give `linear_mass`)".to_string()),
+        },
+    };
+    let wave_speed_m_s = if linear_mass > 0.0 { Some((ea / linear_mass).sqrt()) } else { None };
+
+    let default = kind.default_design_factor();
+    let design_factor = match m.design_factor {
+        Some(v) => DesignFactor {
+            value: ctx.number(v, &p("design_factor"), 1.0, 100.0, "a design factor is between 1 and 100")?,
+            from_file: true,
+            default,
+        },
+        None => DesignFactor { value: default.value, from_file: false, default },
+    };
+    let te = fraction(ctx, m.termination_efficiency, &p("termination_efficiency"), "termination efficiency");
+    let ke = fraction(ctx, m.knot_efficiency, &p("knot_efficiency"), "knot efficiency");
+    if m.knot_efficiency.is_some() && kind != MemberKind::FibreRope {
+        ctx.err(p("knot_efficiency"), "a knot or hitch efficiency applies to fibre rope only");
+    }
+    let mut parts = Vec::new();
+    if m.termination_efficiency.is_some() {
+        parts.push(format!("termination {te}"));
+    }
+    if m.knot_efficiency.is_some() {
+        parts.push(format!("knot {ke} (CI 1401: knots can cut strength by up to half)"));
+    }
+    let efficiency_note = if parts.is_empty() { "none applied".to_string() } else { parts.join(" x ") };
+
+    Some(Member {
+        id: m.id.clone(),
+        ends: [0, 0],
+        kind,
+        area: Area::new::<square_meter>(area),
+        axial_stiffness: Force::new::<newton>(ea),
+        stiffness_note,
+        rating,
+        rating_note,
+        design_factor,
+        efficiency: te * ke,
+        efficiency_note,
+        slack: Length::new::<meter>(slack),
+        linear_mass: LinearMassDensity::new::<kilogram_per_meter>(linear_mass),
+        weight_note,
+        wave_speed_m_s,
+        may_go_slack: m.may_go_slack,
+        diameter: diameter.map(Length::new::<meter>),
+        construction,
+        chain_grade,
+        material,
+    })
+}

@@ -1,0 +1,252 @@
+//! The validated scenario: every reference resolved to an index, every
+//! quantity a `uom` quantity, every library lookup done, and each derived
+//! value carrying a note of where it came from so reports can explain it.
+
+use crate::library::{ChainGrade, Construction, DefaultFactor, Edges, Material, MemberKind};
+use uom::si::f64::{Acceleration, Angle, Area, Force, Length, LinearMassDensity, Mass as MassQ, Pressure};
+
+/// How a node is held.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum Support {
+    /// Free joint.
+    Joint,
+    /// Fixed anchor.
+    Anchor,
+    /// Resting on a floor (index into [`Scenario::floors`]).
+    Floor(usize),
+}
+
+/// A node.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Node {
+    /// Id from the file.
+    pub id: String,
+    /// Drawn position (x, y, z).
+    pub position: [Length; 3],
+    /// How it is held.
+    pub support: Support,
+}
+
+/// Rated strength as the allowable is derived from it.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub enum Rating {
+    /// Minimum breaking strength; allowable = MBS × efficiency ÷ design factor.
+    BreakingStrength(Force),
+    /// Working load limit, used as the allowable directly.
+    WorkingLoadLimit(Force),
+    /// Yield stress; allowable = yield × area ÷ design factor.
+    Yield(Pressure),
+}
+
+/// The design factor in force for a member and where it comes from.
+#[derive(Debug, Clone, PartialEq)]
+pub struct DesignFactor {
+    /// Rated strength ÷ allowable.
+    pub value: f64,
+    /// True when the file gave it; false when the kind's default applies.
+    pub from_file: bool,
+    /// The kind's default and its source.
+    pub default: DefaultFactor,
+}
+
+/// A member, ready for the solver and the checks.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Member {
+    /// Id from the file.
+    pub id: String,
+    /// End node indices.
+    pub ends: [usize; 2],
+    /// Kind.
+    pub kind: MemberKind,
+    /// Load-carrying area (metallic area for wire rope).
+    pub area: Area,
+    /// Axial stiffness E·A.
+    pub axial_stiffness: Force,
+    /// How E·A was found, for explanations.
+    pub stiffness_note: String,
+    /// Rated strength.
+    pub rating: Rating,
+    /// Where the rating came from.
+    pub rating_note: String,
+    /// Design factor.
+    pub design_factor: DesignFactor,
+    /// Termination efficiency × knot efficiency (1 when none given).
+    pub efficiency: f64,
+    /// What the efficiency is made of, for explanations.
+    pub efficiency_note: String,
+    /// Unstretched length minus drawn length.
+    pub slack: Length,
+    /// Own weight per length (zero when unknown, noted in `weight_note`).
+    pub linear_mass: LinearMassDensity,
+    /// Where the own weight came from.
+    pub weight_note: String,
+    /// Longitudinal wave speed `√(EA/μ)`, m/s, when the own weight is known.
+    pub wave_speed_m_s: Option<f64>,
+    /// May go slack without being a fault.
+    pub may_go_slack: bool,
+    /// Nominal diameter, where given.
+    pub diameter: Option<Length>,
+    /// Rope construction, where given.
+    pub construction: Option<Construction>,
+    /// Chain grade, where given.
+    pub chain_grade: Option<ChainGrade>,
+    /// Material, where given.
+    pub material: Option<Material>,
+}
+
+/// A floor slab.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Floor {
+    /// Id from the file.
+    pub id: String,
+    /// Panel spans (x, z).
+    pub span: [Length; 2],
+    /// Thickness.
+    pub thickness: Length,
+    /// Young's modulus.
+    pub modulus: Pressure,
+    /// Poisson's ratio.
+    pub poisson: f64,
+    /// Edge support.
+    pub edges: Edges,
+    /// Rated uniform load.
+    pub rated_uniform: Option<Pressure>,
+    /// Rated concentrated load.
+    pub rated_point: Option<Force>,
+    /// Bearing pad (x, z).
+    pub pad: Option<[Length; 2]>,
+    /// Deflection limit as span / this.
+    pub deflection_limit: f64,
+    /// Point-load spring stiffness at the centre, N/m.
+    pub stiffness_n_per_m: f64,
+}
+
+/// A mass hung at a node.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Mass {
+    /// Id from the file.
+    pub id: String,
+    /// Node index.
+    pub node: usize,
+    /// Mass.
+    pub mass: MassQ,
+}
+
+/// A load case.
+#[derive(Debug, Clone, PartialEq)]
+pub enum Case {
+    /// Hanging still.
+    Static {
+        /// Id.
+        id: String,
+    },
+    /// Released from rest at an angle; checked at the lowest point.
+    Swing {
+        /// Id.
+        id: String,
+        /// Mass index.
+        mass: usize,
+        /// Release angle from the vertical.
+        release: Angle,
+        /// Pivot node index, if given.
+        pivot: Option<usize>,
+    },
+    /// Free fall `height` before the path takes the load.
+    Drop {
+        /// Id.
+        id: String,
+        /// Mass index.
+        mass: usize,
+        /// Free-fall height.
+        height: Length,
+    },
+    /// Suddenly applied: a drop of zero height.
+    Sudden {
+        /// Id.
+        id: String,
+        /// Mass index.
+        mass: usize,
+    },
+}
+
+impl Case {
+    /// The case's id.
+    pub fn id(&self) -> &str {
+        match self {
+            Case::Static { id } | Case::Swing { id, .. } | Case::Drop { id, .. } | Case::Sudden { id, .. } => id,
+        }
+    }
+
+    /// The contract's name of the case kind.
+    pub fn kind_name(&self) -> &'static str {
+        match self {
+            Case::Static { .. } => "static",
+            Case::Swing { .. } => "swing",
+            Case::Drop { .. } => "drop",
+            Case::Sudden { .. } => "sudden",
+        }
+    }
+
+    /// The mass the case concerns (none for the static case).
+    pub fn mass(&self) -> Option<usize> {
+        match self {
+            Case::Static { .. } => None,
+            Case::Swing { mass, .. } | Case::Drop { mass, .. } | Case::Sudden { mass, .. } => Some(*mass),
+        }
+    }
+}
+
+/// A validated scenario.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Scenario {
+    /// Title.
+    pub title: String,
+    /// Notes.
+    pub notes: String,
+    /// Gravity (magnitude; acts along −y).
+    pub gravity: Acceleration,
+    /// Utilisation from which a member is near its limit.
+    pub near_limit: f64,
+    /// Dynamic/static ratio above which a warning is given.
+    pub dynamic_ratio_warning: f64,
+    /// Nodes.
+    pub nodes: Vec<Node>,
+    /// Members.
+    pub members: Vec<Member>,
+    /// Floors.
+    pub floors: Vec<Floor>,
+    /// Masses.
+    pub masses: Vec<Mass>,
+    /// Cases.
+    pub cases: Vec<Case>,
+}
+
+impl Scenario {
+    /// Drawn position of a node, m.
+    pub fn position_m(&self, node: usize) -> [f64; 3] {
+        let p = &self.nodes[node].position;
+        [p[0].value, p[1].value, p[2].value]
+    }
+
+    /// Drawn length of a member, m.
+    pub fn drawn_length_m(&self, member: usize) -> f64 {
+        let [a, b] = self.members[member].ends;
+        let (pa, pb) = (self.position_m(a), self.position_m(b));
+        ((pb[0] - pa[0]).powi(2) + (pb[1] - pa[1]).powi(2) + (pb[2] - pa[2]).powi(2)).sqrt()
+    }
+
+    /// Unstretched length of a member, m.
+    pub fn rest_length_m(&self, member: usize) -> f64 {
+        self.drawn_length_m(member) + self.members[member].slack.value
+    }
+
+    /// Gravity magnitude, m/s².
+    pub fn gravity_m_s2(&self) -> f64 {
+        self.gravity.value
+    }
+
+    /// Index of a case by id.
+    pub fn case_index(&self, id: &str) -> Option<usize> {
+        self.cases.iter().position(|c| c.id() == id)
+    }
+}

@@ -1,0 +1,83 @@
+//! `check --format csv`: one row per case and item (member or floor), with
+//! the case's limits; the caution on a leading `#` line.
+
+use crate::CAUTION;
+use crate::analysis::Analysis;
+
+/// Quote a CSV field when it needs it (RFC 4180).
+pub fn field(s: &str) -> String {
+    if s.contains([',', '"', '\n', '\r']) { format!("\"{}\"", s.replace('"', "\"\"")) } else { s.to_string() }
+}
+
+fn num(v: f64) -> String {
+    if v.is_finite() { format!("{v}") } else { String::new() }
+}
+
+fn opt(v: Option<f64>) -> String {
+    v.map(num).unwrap_or_default()
+}
+
+/// The CSV header line.
+pub const HEADER: &str = "file,case,kind,item,item_type,force_n,allowable_n,utilisation,state,stretch_m,deflection_m,ratio_to_static,governing_case,release_limit_deg,drop_limit_m";
+
+/// The caution line (as a `#` comment) for the top of a CSV output.
+pub fn caution_line() -> String {
+    format!("# {CAUTION}")
+}
+
+/// The rows of one file (no header).
+pub fn check_csv_rows(file: &str, a: &Analysis) -> String {
+    let mut out = String::new();
+    for (ci, c) in a.cases.iter().enumerate() {
+        let lim = (opt(c.limits.release_deg), opt(c.limits.drop_height_m));
+        for (k, m) in c.members.iter().enumerate() {
+            let row = a.comparison.get(k);
+            out.push_str(
+                &[
+                    field(file),
+                    field(&c.id),
+                    field(&c.kind),
+                    field(&m.id),
+                    "member".into(),
+                    num(m.force_n),
+                    num(m.allowable_n),
+                    num(m.utilisation),
+                    m.state.as_str().into(),
+                    num(m.stretch_m),
+                    String::new(),
+                    opt(row.and_then(|r| r.ratio_to_static.get(ci).copied().flatten())),
+                    field(row.and_then(|r| r.governing_case.as_deref()).unwrap_or("")),
+                    lim.0.clone(),
+                    lim.1.clone(),
+                ]
+                .join(","),
+            );
+            out.push('\n');
+        }
+        for (k, f) in c.floors.iter().enumerate() {
+            let row = a.comparison.get(c.members.len() + k);
+            out.push_str(
+                &[
+                    field(file),
+                    field(&c.id),
+                    field(&c.kind),
+                    field(&f.id),
+                    "floor".into(),
+                    num(f.normal_force_n),
+                    num(f.allowable_n),
+                    num(f.utilisation),
+                    f.state.as_str().into(),
+                    String::new(),
+                    num(f.deflection_m),
+                    opt(row.and_then(|r| r.ratio_to_static.get(ci).copied().flatten())),
+                    field(row.and_then(|r| r.governing_case.as_deref()).unwrap_or("")),
+                    lim.0.clone(),
+                    lim.1.clone(),
+                ]
+                .join(","),
+            );
+            out.push('\n');
+        }
+    }
+    out
+}

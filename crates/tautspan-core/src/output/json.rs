@@ -1,0 +1,96 @@
+//! `check --format json`: one object per file, field names as in the
+//! command-line contract (DESIGN.md). Non-finite numbers (an allowable of a
+//! floor without ratings) are written as `null`, never as NaN.
+
+use crate::analysis::{Analysis, CaseResult};
+use serde_json::{Map, Value, json};
+
+fn num(v: f64) -> Value {
+    if v.is_finite() { json!(v) } else { Value::Null }
+}
+
+fn case_json(c: &CaseResult) -> Value {
+    let mut o = Map::new();
+    o.insert("id".into(), json!(c.id));
+    o.insert("kind".into(), json!(c.kind));
+    o.insert("converged".into(), json!(c.converged));
+    o.insert("iterations".into(), json!(c.iterations));
+    o.insert("residual_n".into(), num(c.residual_n));
+    if let Some(e) = &c.error {
+        o.insert("error".into(), json!(e));
+    }
+    if let Some(d) = &c.dynamic {
+        let mut dj = json!({ "mass": d.mass, "factor": num(d.factor), "load_n": num(d.load_n), "formula": d.formula });
+        if let Some(k) = d.path_stiffness_n_per_m {
+            dj["path_stiffness_n_per_m"] = num(k);
+        }
+        o.insert("dynamic".into(), dj);
+    }
+    o.insert(
+        "members".into(),
+        c.members
+            .iter()
+            .map(|m| {
+                json!({ "id": m.id, "force_n": num(m.force_n), "allowable_n": num(m.allowable_n),
+                        "utilisation": num(m.utilisation), "state": m.state.as_str(), "stretch_m": num(m.stretch_m),
+                        "length_m": num(m.length_m), "sling_angle_deg": num(m.sling_angle_deg) })
+            })
+            .collect(),
+    );
+    o.insert(
+        "floors".into(),
+        c.floors
+            .iter()
+            .map(|f| {
+                json!({ "id": f.id, "normal_force_n": num(f.normal_force_n), "deflection_m": num(f.deflection_m),
+                        "allowable_n": num(f.allowable_n), "utilisation": num(f.utilisation), "state": f.state.as_str() })
+            })
+            .collect(),
+    );
+    o.insert(
+        "nodes".into(),
+        c.nodes.iter().map(|n| json!({ "id": n.id, "position_m": n.position_m.map(num) })).collect(),
+    );
+    o.insert(
+        "supports".into(),
+        c.supports.iter().map(|s| json!({ "node": s.node, "reaction_n": s.reaction_n.map(num) })).collect(),
+    );
+    o.insert(
+        "load_path".into(),
+        c.load_path.iter().map(|p| json!({ "mass": p.mass, "members": p.members, "supports": p.supports })).collect(),
+    );
+    let mut limits = Map::new();
+    if let Some(r) = c.limits.release_deg {
+        limits.insert("release_deg".into(), num(r));
+    }
+    if let Some(h) = c.limits.drop_height_m {
+        limits.insert("drop_height_m".into(), num(h));
+    }
+    o.insert("limits".into(), Value::Object(limits));
+    o.insert("warnings".into(), json!(c.warnings));
+    Value::Object(o)
+}
+
+/// The contract's JSON object for one file's analysis.
+pub fn check_json(file: &str, a: &Analysis) -> Value {
+    let comparison: Vec<Value> = a
+        .comparison
+        .iter()
+        .map(|r| {
+            json!({ "id": r.id, "static_force_n": r.static_force_n.map(num), "force_n": r.force_n.iter().map(|f| f.map(num)).collect::<Vec<_>>(),
+                    "ratio_to_static": r.ratio_to_static.iter().map(|f| f.map(num)).collect::<Vec<_>>(),
+                    "allowable_n": num(r.allowable_n), "utilisation": r.utilisation.iter().map(|f| f.map(num)).collect::<Vec<_>>(),
+                    "governing_case": r.governing_case,
+                    "limits": { "release_deg": r.limits.release_deg.map(num), "drop_height_m": r.limits.drop_height_m.map(num) } })
+        })
+        .collect();
+    json!({
+        "file": file,
+        "title": a.title,
+        "caution": a.caution,
+        "cases": a.cases.iter().map(case_json).collect::<Vec<_>>(),
+        "comparison": comparison,
+        "warnings": a.warnings.iter().map(|w| w.message.clone()).collect::<Vec<_>>(),
+        "assumptions": a.assumptions,
+    })
+}

@@ -1,0 +1,183 @@
+//! `check --format text`: aligned tables readable in a terminal, the
+//! caution first and last.
+
+use crate::CAUTION;
+use crate::analysis::{Analysis, CaseResult};
+use crate::units::format_number;
+use std::fmt::Write;
+
+fn kn(v: f64) -> String {
+    if v.is_finite() { format_number(v / 1e3, 4) } else { "-".to_string() }
+}
+
+fn pct(v: f64) -> String {
+    if v.is_finite() { format!("{:.1}", v * 100.0) } else { "-".to_string() }
+}
+
+/// A table with a header row, columns padded to their widest cell; numeric
+/// columns right-aligned.
+pub fn table(header: &[&str], rows: &[Vec<String>], right: &[bool]) -> String {
+    let mut widths: Vec<usize> = header.iter().map(|h| h.chars().count()).collect();
+    for r in rows {
+        for (i, c) in r.iter().enumerate() {
+            if i < widths.len() {
+                widths[i] = widths[i].max(c.chars().count());
+            }
+        }
+    }
+    let mut out = String::new();
+    let line = |cells: Vec<String>, out: &mut String| {
+        let mut s = String::new();
+        for (i, c) in cells.iter().enumerate() {
+            let w = widths.get(i).copied().unwrap_or(0);
+            let pad = w.saturating_sub(c.chars().count());
+            if right.get(i).copied().unwrap_or(false) {
+                s.push_str(&" ".repeat(pad));
+                s.push_str(c);
+            } else {
+                s.push_str(c);
+                s.push_str(&" ".repeat(pad));
+            }
+            s.push_str("  ");
+        }
+        out.push_str(s.trim_end());
+        out.push('\n');
+    };
+    line(header.iter().map(|h| h.to_string()).collect(), &mut out);
+    line(widths.iter().map(|w| "-".repeat(*w)).collect(), &mut out);
+    for r in rows {
+        line(r.clone(), &mut out);
+    }
+    out
+}
+
+fn case_text(c: &CaseResult, out: &mut String) {
+    let _ = writeln!(out, "\nCase {} ({})", c.id, c.kind);
+    if let Some(e) = &c.error {
+        let _ = writeln!(out, "  not solved: {e}");
+        return;
+    }
+    if let Some(d) = &c.dynamic {
+        let _ = writeln!(
+            out,
+            "  load on mass {}: {} kN = {} x weight; {}",
+            d.mass,
+            kn(d.load_n),
+            format_number(d.factor, 4),
+            d.formula
+        );
+    }
+    let _ = writeln!(out, "  converged in {} iterations, out-of-balance {:.2e} N", c.iterations, c.residual_n);
+    let rows: Vec<Vec<String>> = c
+        .members
+        .iter()
+        .map(|m| {
+            vec![
+                m.id.clone(),
+                kn(m.force_n),
+                kn(m.allowable_n),
+                pct(m.utilisation),
+                m.state.as_str().to_string(),
+                format_number(m.stretch_m * 1e3, 4),
+                format_number(m.sling_angle_deg, 3),
+            ]
+        })
+        .collect();
+    out.push_str(&indent(&table(
+        &["member", "force kN", "allowable kN", "util %", "state", "stretch mm", "angle deg"],
+        &rows,
+        &[false, true, true, true, false, true, true],
+    )));
+    if !c.floors.is_empty() {
+        let rows: Vec<Vec<String>> = c
+            .floors
+            .iter()
+            .map(|f| {
+                vec![
+                    f.id.clone(),
+                    kn(f.normal_force_n),
+                    kn(f.allowable_n),
+                    format_number(f.deflection_m * 1e3, 4),
+                    format_number(f.deflection_limit_m * 1e3, 4),
+                    pct(f.utilisation),
+                    f.state.as_str().to_string(),
+                ]
+            })
+            .collect();
+        out.push_str(&indent(&table(
+            &["floor", "normal kN", "allowable kN", "deflection mm", "limit mm", "util %", "state"],
+            &rows,
+            &[false, true, true, true, true, true, false],
+        )));
+    }
+    for p in &c.load_path {
+        let _ = writeln!(out, "  load path of {}: {} -> {}", p.mass, p.members.join(", "), p.supports.join(", "));
+    }
+    if let Some(r) = c.limits.release_deg {
+        let _ = writeln!(out, "  largest release angle inside the allowable: {} deg", format_number(r, 4));
+    }
+    if let Some(h) = c.limits.drop_height_m {
+        let _ = writeln!(out, "  largest drop height inside the allowable: {} m", format_number(h, 4));
+    }
+    for w in &c.warnings {
+        let _ = writeln!(out, "  warning: {w}");
+    }
+}
+
+fn indent(s: &str) -> String {
+    s.lines().map(|l| format!("  {l}\n")).collect()
+}
+
+/// The comparison table: static force, each case's force and utilisation,
+/// governing case and limits per member and floor.
+pub fn comparison_text(a: &Analysis) -> String {
+    let mut header: Vec<String> = vec!["item".into(), "static kN".into()];
+    for c in &a.cases {
+        header.push(format!("{} kN", c.id));
+        header.push("x static".into());
+        header.push("util %".into());
+    }
+    header.extend(["allowable kN".into(), "governs".into(), "max release deg".into(), "max drop m".into()]);
+    let rows: Vec<Vec<String>> = a
+        .comparison
+        .iter()
+        .map(|r| {
+            let mut row = vec![r.id.clone(), r.static_force_n.map_or("-".into(), kn)];
+            for i in 0..a.cases.len() {
+                row.push(r.force_n.get(i).copied().flatten().map_or("-".into(), kn));
+                row.push(r.ratio_to_static.get(i).copied().flatten().map_or("-".into(), |x| format_number(x, 3)));
+                row.push(r.utilisation.get(i).copied().flatten().map_or("-".into(), pct));
+            }
+            row.push(kn(r.allowable_n));
+            row.push(r.governing_case.clone().unwrap_or_else(|| "-".into()));
+            row.push(r.limits.release_deg.map_or("-".into(), |x| format_number(x, 3)));
+            row.push(r.limits.drop_height_m.map_or("-".into(), |x| format_number(x, 3)));
+            row
+        })
+        .collect();
+    let h: Vec<&str> = header.iter().map(String::as_str).collect();
+    let right: Vec<bool> = (0..h.len()).map(|i| i != 0 && h[i] != "governs").collect();
+    table(&h, &rows, &right)
+}
+
+/// The whole text report of one file.
+pub fn check_text(file: &str, a: &Analysis) -> String {
+    let mut out = String::new();
+    let _ = writeln!(out, "{file}: {}", a.title);
+    let _ = writeln!(out, "CAUTION: {CAUTION}");
+    for c in &a.cases {
+        case_text(c, &mut out);
+    }
+    if !a.comparison.is_empty() {
+        let _ = writeln!(out, "\nComparison (per member and floor, every case)");
+        out.push_str(&indent(&comparison_text(a)));
+    }
+    if !a.warnings.is_empty() {
+        let _ = writeln!(out);
+        for w in &a.warnings {
+            let _ = writeln!(out, "warning: {}", w.message);
+        }
+    }
+    let _ = writeln!(out, "\nCAUTION: {CAUTION}");
+    out
+}

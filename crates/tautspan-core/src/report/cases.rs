@@ -1,0 +1,159 @@
+//! Per-case details: what the case is, whether it solved, the dynamic load
+//! factor and the formula it came from, each member's and floor's result
+//! and the case's own warnings.
+
+use super::comparison::state_word;
+use super::escape::escape;
+use super::table::{NONE, table};
+use super::unit_system::{UnitSystem, degrees, number, percent};
+use super::warnings::{case_items, item};
+use crate::analysis::{Analysis, CaseResult, DynamicLoad};
+use crate::model::{Case, Scenario};
+
+/// The per-case section.
+pub fn cases(scenario: &Scenario, analysis: &Analysis, units: UnitSystem) -> String {
+    let body: String = analysis.cases.iter().map(|c| one(scenario, c, units)).collect();
+    let body = if body.is_empty() { "<p>The scenario has no cases.</p>".to_string() } else { body };
+    format!("<section id=\"cases\" class=\"page-start\"><h2>Cases in detail</h2>{body}</section>")
+}
+
+fn one(scenario: &Scenario, c: &CaseResult, units: UnitSystem) -> String {
+    let mut s = format!("<section class=\"case\"><h3>Case {} ({})</h3>", escape(&c.id), escape(&c.kind));
+    s.push_str(&format!("<p>{}</p>", describe(scenario, &c.id, units)));
+    s.push_str(&solve_line(c, units));
+    if let Some(d) = &c.dynamic {
+        s.push_str(&dynamic(d, units));
+    }
+    if !c.members.is_empty() {
+        s.push_str(&members(c, units));
+    }
+    if !c.floors.is_empty() {
+        s.push_str(&floors(c, units));
+    }
+    s.push_str(&load_paths(c));
+    if !c.supports.is_empty() {
+        s.push_str(&supports(c, units));
+    }
+    let w = case_items(c);
+    if !w.is_empty() {
+        s.push_str(&format!("<ul class=\"warnings\">{}</ul>", w.iter().map(|w| item(None, w)).collect::<String>()));
+    }
+    s.push_str("</section>");
+    s
+}
+
+/// The case as the scenario defines it, in words.
+fn describe(scenario: &Scenario, id: &str, units: UnitSystem) -> String {
+    let mass = |i: usize| scenario.masses.get(i).map_or_else(String::new, |m| escape(&m.id));
+    let node = |i: usize| scenario.nodes.get(i).map_or_else(String::new, |n| escape(&n.id));
+    match scenario.cases.iter().find(|c| c.id() == id) {
+        Some(Case::Static { .. }) => "Hanging still under gravity.".to_string(),
+        Some(Case::Swing { mass: m, release, pivot, .. }) => format!(
+            "Mass {} released from rest at {} from the vertical{}; checked at the lowest point of the swing.",
+            mass(*m),
+            degrees(release.value.to_degrees()),
+            pivot.map_or_else(String::new, |p| format!(" about node {}", node(p)))
+        ),
+        Some(Case::Drop { mass: m, height, .. }) => {
+            format!("Mass {} falls freely {} before the path takes it.", mass(*m), units.length(height.value))
+        }
+        Some(Case::Sudden { mass: m, .. }) => {
+            format!("The weight of mass {} applied suddenly (a drop of zero height).", mass(*m))
+        }
+        None => String::new(),
+    }
+}
+
+fn solve_line(c: &CaseResult, units: UnitSystem) -> String {
+    let status = if c.converged { "converged" } else { "did not converge" };
+    let mut s = format!(
+        "<p>Solver: {status} in {} iterations, out-of-balance force {}.</p>",
+        c.iterations,
+        units.force(c.residual_n)
+    );
+    if let Some(e) = &c.error {
+        s.push_str(&format!("<p class=\"state-over\">Not solved: {}</p>", escape(e)));
+    }
+    s
+}
+
+fn dynamic(d: &DynamicLoad, units: UnitSystem) -> String {
+    let stiffness = d
+        .path_stiffness_n_per_m
+        .map_or_else(String::new, |k| format!("; path stiffness at the mass {}", units.spring(k)));
+    format!(
+        "<p>Dynamic load on mass {}: factor {} on its weight, {}{stiffness}.<br><span class=\"note\">{}</span></p>",
+        escape(&d.mass),
+        number(d.factor),
+        units.force(d.load_n),
+        escape(&d.formula)
+    )
+}
+
+fn members(c: &CaseResult, units: UnitSystem) -> String {
+    let rows: Vec<Vec<String>> = c
+        .members
+        .iter()
+        .map(|m| {
+            vec![
+                format!("<b>{}</b>", escape(&m.id)),
+                units.force(m.force_n),
+                units.force(m.allowable_n),
+                percent(m.utilisation),
+                state_word(m.state),
+                units.small_length(m.stretch_m),
+                units.length(m.length_m),
+                degrees(m.sling_angle_deg),
+            ]
+        })
+        .collect();
+    let head = ["Member", "Force", "Allowable", "Utilisation", "State", "Stretch", "Length", "Sling angle"];
+    table("case-members", &head, &rows)
+}
+
+fn floors(c: &CaseResult, units: UnitSystem) -> String {
+    let rows: Vec<Vec<String>> = c
+        .floors
+        .iter()
+        .map(|f| {
+            vec![
+                format!("<b>{}</b>", escape(&f.id)),
+                units.force(f.normal_force_n),
+                units.force(f.allowable_n),
+                units.small_length(f.deflection_m),
+                if f.deflection_limit_m > 0.0 { units.small_length(f.deflection_limit_m) } else { NONE.to_string() },
+                percent(f.utilisation),
+                state_word(f.state),
+            ]
+        })
+        .collect();
+    let head = ["Floor", "Normal force", "Allowable", "Deflection", "Deflection limit", "Utilisation", "State"];
+    table("case-floors", &head, &rows)
+}
+
+fn load_paths(c: &CaseResult) -> String {
+    let list = |v: &[String]| v.iter().map(|s| escape(s)).collect::<Vec<_>>().join(", ");
+    c.load_path
+        .iter()
+        .map(|p| {
+            format!(
+                "<p>Load path of mass <b>{}</b>: members {} to supports {}.</p>",
+                escape(&p.mass),
+                if p.members.is_empty() { "none".to_string() } else { list(&p.members) },
+                if p.supports.is_empty() { "none".to_string() } else { list(&p.supports) }
+            )
+        })
+        .collect()
+}
+
+fn supports(c: &CaseResult, units: UnitSystem) -> String {
+    let rows: Vec<Vec<String>> = c
+        .supports
+        .iter()
+        .map(|s| {
+            let r = s.reaction_n;
+            vec![format!("<b>{}</b>", escape(&s.node)), units.force(r[0]), units.force(r[1]), units.force(r[2])]
+        })
+        .collect();
+    table("case-supports", &["Support", "Reaction x", "Reaction y", "Reaction z"], &rows)
+}

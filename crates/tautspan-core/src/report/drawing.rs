@@ -1,0 +1,243 @@
+//! The layout drawing: an inline SVG elevation (x–y, y up) of the rig in the
+//! static case's solved geometry, members shaded by their highest
+//! utilisation (see `ramp`), dashed when slack, thicker when over, with
+//! anchors, joints, floors and masses as simple symbols, member ids and a
+//! scale bar.
+
+use super::escape::escape;
+use super::geometry::{Elevation, View, elevation};
+use super::marks::{Mark, mark};
+use super::ramp::colour;
+use super::scale_bar::scale_bar;
+use super::symbols::{BEARING_DROP, anchor, bearing, joint, mass};
+use super::unit_system::{UnitSystem, percent};
+use crate::analysis::Analysis;
+use crate::model::{Scenario, Support};
+
+/// Shaded line width of a member, drawing units.
+pub const LINE_WIDTH: f64 = 5.0;
+/// Shaded line width of a member over its allowable in some case.
+pub const OVER_WIDTH: f64 = 9.0;
+
+/// A floor slab as drawn: x extent and top in metres, thickness in metres.
+struct Slab {
+    index: usize,
+    centre_x_m: f64,
+    top_m: f64,
+}
+
+/// The drawing and a one-line caption of what it shows.
+pub fn drawing(scenario: &Scenario, analysis: &Analysis, units: UnitSystem) -> (String, String) {
+    let elev = elevation(scenario, analysis);
+    let slabs = slabs(scenario, &elev);
+    let view = View::fit(&fit_points(scenario, &elev, &slabs));
+    let mut svg = format!(
+        "<svg class=\"layout\" viewBox=\"0 0 {:.0} {:.0}\" role=\"img\" aria-label=\"Layout elevation\">",
+        view.width, view.height
+    );
+    svg.push_str(DEFS);
+    svg.push_str(&slabs.iter().map(|s| slab(scenario, analysis, &elev, &view, s)).collect::<String>());
+    svg.push_str(&members(scenario, analysis, &elev, &view));
+    svg.push_str(&nodes(scenario, &elev, &view));
+    svg.push_str(&masses(scenario, &elev, &view, units));
+    svg.push_str(&scale_bar([18.0, view.height - 14.0], view.scale, units));
+    svg.push_str(&axes([view.width - 40.0, view.height - 14.0]));
+    svg.push_str("</svg>");
+    (svg, caption(&elev))
+}
+
+fn caption(elev: &Elevation) -> String {
+    match elev.case {
+        Some(c) => {
+            format!("Elevation (x to the right, y up) in the solved geometry of static case “{}”.", escape(&c.id))
+        }
+        None => "Elevation (x to the right, y up) as drawn: no static case was solved.".to_string(),
+    }
+}
+
+const DEFS: &str = "<defs><pattern id=\"hatch\" width=\"7\" height=\"7\" patternUnits=\"userSpaceOnUse\" patternTransform=\"rotate(45)\">\
+<path d=\"M0 0 V7\" stroke=\"#1b1f24\" stroke-width=\"1\" stroke-opacity=\"0.55\"/></pattern></defs>";
+
+fn slabs(scenario: &Scenario, elev: &Elevation) -> Vec<Slab> {
+    (0..scenario.floors.len())
+        .filter_map(|index| {
+            let on: Vec<[f64; 2]> = scenario
+                .nodes
+                .iter()
+                .zip(&elev.xy_m)
+                .filter(|(n, _)| n.support == Support::Floor(index))
+                .map(|(_, p)| *p)
+                .collect();
+            if on.is_empty() {
+                return None;
+            }
+            let centre_x_m = on.iter().map(|p| p[0]).sum::<f64>() / on.len() as f64;
+            let top_m = on.iter().map(|p| p[1]).fold(f64::INFINITY, f64::min);
+            Some(Slab { index, centre_x_m, top_m })
+        })
+        .collect()
+}
+
+fn fit_points(scenario: &Scenario, elev: &Elevation, slabs: &[Slab]) -> Vec<[f64; 2]> {
+    let mut pts = elev.xy_m.clone();
+    for s in slabs {
+        let f = &scenario.floors[s.index];
+        let half = f.span[0].value / 2.0;
+        pts.push([s.centre_x_m - half, s.top_m - f.thickness.value]);
+        pts.push([s.centre_x_m + half, s.top_m]);
+    }
+    pts
+}
+
+fn slab(scenario: &Scenario, analysis: &Analysis, elev: &Elevation, view: &View, s: &Slab) -> String {
+    let f = &scenario.floors[s.index];
+    let half = f.span[0].value / 2.0;
+    let [x0, y0] = view.map([s.centre_x_m - half, s.top_m]);
+    let w = f.span[0].value * view.scale;
+    let h = (f.thickness.value * view.scale).max(9.0);
+    let m = mark(analysis, elev.case, &f.id);
+    let fill = m.utilisation.map_or_else(|| "#ffffff".to_string(), colour);
+    let dash = if m.slack { " stroke-dasharray=\"6 4\"" } else { "" };
+    let stroke_w = if m.over { 3.5 } else { 1.5 };
+    let y = y0 + BEARING_DROP;
+    format!(
+        "<g class=\"floor\"><title>{}</title>\
+         <rect x=\"{x0:.2}\" y=\"{y:.2}\" width=\"{w:.2}\" height=\"{h:.2}\" fill=\"{fill}\" stroke=\"#1b1f24\" stroke-width=\"{stroke_w}\"{dash}/>\
+         <rect x=\"{x0:.2}\" y=\"{y:.2}\" width=\"{w:.2}\" height=\"{h:.2}\" fill=\"url(#hatch)\"/>\
+         <text x=\"{x0:.2}\" y=\"{:.2}\" class=\"lbl id\">{}</text></g>",
+        title(&f.id, &m),
+        y + h + 14.0,
+        escape(&f.id)
+    )
+}
+
+fn title(id: &str, m: &Mark) -> String {
+    let u = m.utilisation.map_or_else(|| "no result".to_string(), percent);
+    escape(&format!("{id}: highest utilisation {u}"))
+}
+
+fn members(scenario: &Scenario, analysis: &Analysis, elev: &Elevation, view: &View) -> String {
+    let mut lines = String::new();
+    let mut labels = String::new();
+    for member in &scenario.members {
+        let [a, b] = member.ends;
+        let (pa, pb) = (view.map(elev.xy_m[a]), view.map(elev.xy_m[b]));
+        let m = mark(analysis, elev.case, &member.id);
+        let width = if m.over { OVER_WIDTH } else { LINE_WIDTH };
+        let dash = if m.slack { " stroke-dasharray=\"9 6\"" } else { "" };
+        let shade = m.utilisation.map_or_else(|| "#ffffff".to_string(), colour);
+        let d = format!("M{:.2} {:.2} L{:.2} {:.2}", pa[0], pa[1], pb[0], pb[1]);
+        lines.push_str(&format!(
+            "<g class=\"member\"><title>{}</title>\
+             <path d=\"{d}\" stroke=\"#1b1f24\" stroke-width=\"{:.1}\" stroke-linecap=\"butt\"{dash}/>\
+             <path d=\"{d}\" stroke=\"{shade}\" stroke-width=\"{width:.1}\" stroke-linecap=\"butt\"{dash}/></g>",
+            title(&member.id, &m),
+            width + 2.4
+        ));
+        labels.push_str(&member_label(pa, pb, &member.id));
+    }
+    lines + &labels
+}
+
+/// The id beside the member's midpoint, offset across it.
+fn member_label(pa: [f64; 2], pb: [f64; 2], id: &str) -> String {
+    let (dx, dy) = (pb[0] - pa[0], pb[1] - pa[1]);
+    let len = dx.hypot(dy).max(1e-9);
+    let (nx, ny) = (-dy / len, dx / len);
+    // Put the label on the upper-right side of the line.
+    let (nx, ny) = if ny > 0.0 || (ny == 0.0 && nx < 0.0) { (-nx, -ny) } else { (nx, ny) };
+    let (x, y) = ((pa[0] + pb[0]) / 2.0 + nx * 12.0, (pa[1] + pb[1]) / 2.0 + ny * 12.0 + 4.0);
+    let anchor = if nx > 0.3 {
+        "start"
+    } else if nx < -0.3 {
+        "end"
+    } else {
+        "middle"
+    };
+    format!("<text x=\"{x:.2}\" y=\"{y:.2}\" class=\"lbl id\" text-anchor=\"{anchor}\">{}</text>", escape(id))
+}
+
+fn nodes(scenario: &Scenario, elev: &Elevation, view: &View) -> String {
+    scenario
+        .nodes
+        .iter()
+        .enumerate()
+        .map(|(i, node)| {
+            let p = view.map(elev.xy_m[i]);
+            let away = away_from_members(scenario, elev, view, i);
+            let (symbol, side) = match node.support {
+                // The anchor's bar takes the free side; the id goes across it.
+                Support::Anchor => {
+                    (anchor(p, away), if away[1] > 0.0 { [away[1], -away[0]] } else { [-away[1], away[0]] })
+                }
+                Support::Floor(_) => (bearing(p), [-1.0, 0.0]),
+                Support::Joint => (joint(p), away),
+            };
+            node_label(p, side, &node.id, symbol)
+        })
+        .collect()
+}
+
+/// The node's symbol and its id placed 14 units along `side` (a unit vector).
+fn node_label(p: [f64; 2], side: [f64; 2], id: &str, symbol: String) -> String {
+    let anchor = if side[0] > 0.3 {
+        "start"
+    } else if side[0] < -0.3 {
+        "end"
+    } else {
+        "middle"
+    };
+    let (x, y) = (p[0] + side[0] * 14.0, p[1] + side[1] * 14.0 + 4.0);
+    format!(
+        "{symbol}<text x=\"{x:.2}\" y=\"{y:.2}\" class=\"lbl node-id\" text-anchor=\"{anchor}\">{}</text>",
+        escape(id)
+    )
+}
+
+/// Unit vector (drawing units) pointing away from the members (and any hung
+/// mass) at node `i`; straight up when it has none.
+fn away_from_members(scenario: &Scenario, elev: &Elevation, view: &View, i: usize) -> [f64; 2] {
+    let p = view.map(elev.xy_m[i]);
+    let (mut sx, mut sy) = (0.0, 0.0);
+    for m in &scenario.members {
+        let other = match m.ends {
+            [a, b] if a == i => b,
+            [a, b] if b == i => a,
+            _ => continue,
+        };
+        let q = view.map(elev.xy_m[other]);
+        let l = (q[0] - p[0]).hypot(q[1] - p[1]);
+        if l > 1e-9 {
+            sx += (q[0] - p[0]) / l;
+            sy += (q[1] - p[1]) / l;
+        }
+    }
+    // A hung mass takes the space below the node.
+    if scenario.masses.iter().any(|m| m.node == i) {
+        sy += 1.0;
+    }
+    let l = sx.hypot(sy);
+    if l < 1e-6 { [0.0, -1.0] } else { [-sx / l, -sy / l] }
+}
+
+fn masses(scenario: &Scenario, elev: &Elevation, view: &View, units: UnitSystem) -> String {
+    scenario
+        .masses
+        .iter()
+        .map(|m| mass(view.map(elev.xy_m[m.node]), &format!("{} {}", m.id, units.mass(m.mass.value))))
+        .collect()
+}
+
+/// A small x–y axis cross at `at` (its origin), arrows right and up.
+fn axes(at: [f64; 2]) -> String {
+    let (x, y) = (at[0], at[1]);
+    format!(
+        "<g class=\"axes\" stroke=\"#1b1f24\" stroke-width=\"1.2\" fill=\"none\">\
+         <path d=\"M{x:.2} {y:.2} h24 m-5 -3 l5 3 l-5 3 M{x:.2} {y:.2} v-24 m-3 5 l3 -5 l3 5\"/></g>\
+         <text x=\"{:.2}\" y=\"{:.2}\" class=\"lbl\">x</text><text x=\"{:.2}\" y=\"{:.2}\" class=\"lbl\">y</text>",
+        x + 27.0,
+        y + 4.0,
+        x - 4.0,
+        y - 28.0
+    )
+}

@@ -1,0 +1,43 @@
+//! Every warning in one list: those about the scenario as a whole (design
+//! factors, inputs), then each case's, each with its subject where the
+//! analysis names one.
+
+use super::escape::escape;
+use crate::analysis::{Analysis, CaseResult, Warning};
+
+/// The warnings section.
+pub fn warnings(analysis: &Analysis) -> String {
+    let mut items: Vec<String> = analysis.warnings.iter().map(|w| item(None, w)).collect();
+    for case in &analysis.cases {
+        items.extend(case_items(case).iter().map(|w| item(Some(&case.id), w)));
+    }
+    let body = if items.is_empty() {
+        "<p>No warnings.</p>".to_string()
+    } else {
+        format!("<ul class=\"warnings\">{}</ul>", items.concat())
+    };
+    format!("<section id=\"warnings\"><h2>Warnings</h2>{body}</section>")
+}
+
+/// A case's warnings with subjects; the plain strings when it has no items.
+pub fn case_items(case: &CaseResult) -> Vec<Warning> {
+    if case.warning_items.is_empty() {
+        case.warnings.iter().map(|m| Warning { subject: None, message: m.clone() }).collect()
+    } else {
+        case.warning_items.clone()
+    }
+}
+
+/// One warning as a list item.
+pub fn item(case: Option<&str>, w: &Warning) -> String {
+    let mut who = Vec::new();
+    if let Some(c) = case {
+        who.push(format!("case {}", escape(c)));
+    }
+    if let Some(s) = &w.subject {
+        who.push(escape(s));
+    }
+    let who =
+        if who.is_empty() { String::new() } else { format!("<span class=\"subject\">{}:</span> ", who.join(", ")) };
+    format!("<li>{who}{}</li>", escape(&w.message))
+}

@@ -1,0 +1,203 @@
+//! Member and floor kinematics, and the three quantities the damped Newton
+//! iteration needs at a trial configuration: total potential energy, its
+//! gradient (minus the out-of-balance force) and the tangent stiffness,
+//! scattered into the fixed sparsity pattern of [`Model`].
+//!
+//! Member law: `T = k (L − L0)`, `k = EA / L0`, zero for a tension-only
+//! member when `L ≤ L0`. Tangent of one member, in the 3 × 3 block form
+//! `[[Kb, −Kb], [−Kb, Kb]]`: `Kb = k e⊗e` (material, when the member is
+//! active) `+ (T / L)(I − e⊗e)` (geometric). Floor: compression-only spring
+//! `F = k_f max(0, y0 − y)` on the node's y coordinate.
+
+use super::model::{FloorData, MemberData, Model, NONE};
+
+/// The state of one member at a configuration.
+#[derive(Debug, Clone, Copy)]
+pub(crate) struct MemberState {
+    /// Current length, m.
+    pub length_m: f64,
+    /// Axial force, tension positive, N.
+    pub force_n: f64,
+    /// Unit vector from end 0 to end 1 (zero for a zero-length member).
+    pub e: [f64; 3],
+    /// Whether the material term `k e⊗e` belongs in the tangent (taut, or a
+    /// rod). A tension-only member exactly at its rest length counts as
+    /// taut: the one-sided stiffness lets a drawn-taut rope respond at once.
+    pub material: bool,
+}
+
+/// Length, force and direction of a member at positions `pos`.
+pub(crate) fn member_state(m: &MemberData, pos: &[[f64; 3]]) -> MemberState {
+    let a = pos[m.ends[0]];
+    let b = pos[m.ends[1]];
+    let d = [b[0] - a[0], b[1] - a[1], b[2] - a[2]];
+    let length_m = (d[0] * d[0] + d[1] * d[1] + d[2] * d[2]).sqrt();
+    let e = if length_m > 1e-12 * m.rest_m { [d[0] / length_m, d[1] / length_m, d[2] / length_m] } else { [0.0; 3] };
+    let stretch = length_m - m.rest_m;
+    let (force_n, material) = if m.tension_only {
+        if stretch > 0.0 { (m.k_n_per_m * stretch, true) } else { (0.0, stretch == 0.0) }
+    } else {
+        (m.k_n_per_m * stretch, true)
+    };
+    MemberState { length_m, force_n, e, material }
+}
+
+/// Strain energy of a member at a state, J.
+fn member_energy(m: &MemberData, s: &MemberState) -> f64 {
+    let stretch = s.length_m - m.rest_m;
+    if m.tension_only && stretch <= 0.0 { 0.0 } else { 0.5 * m.k_n_per_m * stretch * stretch }
+}
+
+/// An extra quadratic term `½ s Σ m_i (x_i − z_i)²` over the dofs with mass:
+/// the inertia (and mass-proportional damping) of one implicit time step.
+#[derive(Debug, Clone, Copy)]
+pub(crate) struct Inertia<'a> {
+    /// The factor `s`, 1/s².
+    pub scale_per_s2: f64,
+    /// The target `z` per dof, m.
+    pub target_m: &'a [f64],
+}
+
+/// Floor penetration `y0 − y` (positive in contact), m.
+fn penetration(f: &FloorData, pos: &[[f64; 3]]) -> f64 {
+    f.y0_m - pos[f.node][1]
+}
+
+impl Model {
+    /// Value of a dof at positions `pos`.
+    fn dof_value(&self, pos: &[[f64; 3]], dof: usize) -> f64 {
+        pos[self.dof_node[dof]][self.dof_axis[dof]]
+    }
+
+    /// Total potential (strain − work of the loads from the drawn position,
+    /// plus the inertia term) and a magnitude scale for judging roundoff, J.
+    pub(crate) fn energy(&self, pos: &[[f64; 3]], loads_dof: &[f64], inertia: Option<Inertia<'_>>) -> (f64, f64) {
+        let mut phi = 0.0;
+        let mut scale = 0.0;
+        for m in &self.members {
+            let s = member_state(m, pos);
+            let u = member_energy(m, &s);
+            phi += u;
+            scale += u + s.force_n.abs() * s.length_m;
+        }
+        for f in &self.floors {
+            let p = penetration(f, pos);
+            if p > 0.0 {
+                let u = 0.5 * f.k_n_per_m * p * p;
+                phi += u;
+                scale += u + f.k_n_per_m * p * pos[f.node][1].abs();
+            }
+        }
+        for (dof, load) in loads_dof.iter().enumerate() {
+            let x = self.dof_value(pos, dof);
+            let x0 = self.drawn_m[self.dof_node[dof]][self.dof_axis[dof]];
+            phi -= load * (x - x0);
+            scale += load.abs() * ((x - x0).abs() + x.abs());
+        }
+        if let Some(inn) = inertia {
+            for (dof, z) in inn.target_m.iter().enumerate() {
+                let m = self.mass_per_dof_kg[dof];
+                if m > 0.0 {
+                    let x = self.dof_value(pos, dof);
+                    let u = 0.5 * inn.scale_per_s2 * m * (x - z) * (x - z);
+                    phi += u;
+                    scale += u + inn.scale_per_s2 * m * (x - z).abs() * x.abs();
+                }
+            }
+        }
+        (phi, scale)
+    }
+
+    /// Gradient of the total potential (= internal − external force) per
+    /// dof into `grad`, and per dof the sum of magnitudes of the terms (for
+    /// the roundoff floor of the convergence test) into `mag`.
+    pub(crate) fn gradient(
+        &self,
+        pos: &[[f64; 3]],
+        loads_dof: &[f64],
+        inertia: Option<Inertia<'_>>,
+        grad: &mut [f64],
+        mag: &mut [f64],
+    ) {
+        for (g, l) in grad.iter_mut().zip(loads_dof) {
+            *g = -l;
+        }
+        for (m, l) in mag.iter_mut().zip(loads_dof) {
+            *m = l.abs();
+        }
+        for m in &self.members {
+            let s = member_state(m, pos);
+            let roundoff = s.force_n.abs() + m.k_n_per_m * s.length_m;
+            for (end, sign) in [(0usize, -1.0), (1usize, 1.0)] {
+                let dofs = self.node_dofs[m.ends[end]];
+                for (&d, e) in dofs.iter().zip(s.e) {
+                    if d != NONE {
+                        // Tension pulls end 0 towards end 1 (+e) and end 1 back (−e).
+                        grad[d] += sign * s.force_n * e;
+                        mag[d] += roundoff;
+                    }
+                }
+            }
+        }
+        for f in &self.floors {
+            let p = penetration(f, pos);
+            if p > 0.0 {
+                grad[f.dof] -= f.k_n_per_m * p;
+                mag[f.dof] += f.k_n_per_m * (p + pos[f.node][1].abs());
+            }
+        }
+        if let Some(inn) = inertia {
+            for (dof, z) in inn.target_m.iter().enumerate() {
+                let m = self.mass_per_dof_kg[dof];
+                if m > 0.0 {
+                    let x = self.dof_value(pos, dof);
+                    grad[dof] += inn.scale_per_s2 * m * (x - z);
+                    mag[dof] += inn.scale_per_s2 * m * (x.abs() + z.abs());
+                }
+            }
+        }
+    }
+
+    /// Tangent stiffness (lower triangle) at `pos` into `values` (the value
+    /// array of [`Model::matrix`]'s pattern).
+    pub(crate) fn tangent(&self, pos: &[[f64; 3]], inertia: Option<Inertia<'_>>, values: &mut [f64]) {
+        values.fill(0.0);
+        for (m, slots) in self.members.iter().zip(&self.member_slots) {
+            let s = member_state(m, pos);
+            let kmat = if s.material { m.k_n_per_m } else { 0.0 };
+            let kgeo = if s.length_m > 0.0 { s.force_n / s.length_m } else { 0.0 };
+            if kmat == 0.0 && kgeo == 0.0 {
+                continue;
+            }
+            let mut kb = [[0.0; 3]; 3];
+            for (i, row) in kb.iter_mut().enumerate() {
+                for (j, v) in row.iter_mut().enumerate() {
+                    let ee = s.e[i] * s.e[j];
+                    let id = if i == j { 1.0 } else { 0.0 };
+                    *v = kmat * ee + kgeo * (id - ee);
+                }
+            }
+            for p in 0..6 {
+                for q in 0..6 {
+                    let slot = slots[p * 6 + q];
+                    if slot != NONE {
+                        let sign = if (p < 3) == (q < 3) { 1.0 } else { -1.0 };
+                        values[slot] += sign * kb[p % 3][q % 3];
+                    }
+                }
+            }
+        }
+        for f in &self.floors {
+            if penetration(f, pos) >= 0.0 {
+                values[self.diag_slots[f.dof]] += f.k_n_per_m;
+            }
+        }
+        if let Some(inn) = inertia {
+            for (dof, &m) in self.mass_per_dof_kg.iter().enumerate() {
+                if m > 0.0 {
+                    values[self.diag_slots[dof]] += inn.scale_per_s2 * m;
+                }
+            }
+        }
+    }
+}

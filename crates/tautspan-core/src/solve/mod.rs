@@ -1,0 +1,24 @@
+//! The load-path solvers on a [`Network`]: large-displacement static
+//! equilibrium, effective stiffness of the load path, load paths, and the
+//! implicit time-domain integrator.
+
+mod assemble;
+mod compliance;
+mod equilibrium;
+mod error;
+mod factor;
+mod load_path;
+mod model;
+mod network;
+mod newmark;
+mod newton;
+mod static_solver;
+mod validate;
+
+pub use equilibrium::Equilibrium;
+pub use error::SolveError;
+pub use load_path::{LoadPath, load_paths};
+pub use network::{AxialLaw, Fixity, NetMember, NetNode, Network};
+pub use newmark::{SimulateOptions, Simulation, SimulationStart, simulate};
+pub use newton::SolveOptions;
+pub use static_solver::{StaticSolver, solve_static};

@@ -1,0 +1,254 @@
+//! The solver's internal form of a [`Network`]: the numbering of the free
+//! degrees of freedom, the member and floor data in the form the kernels use,
+//! and the FIXED sparsity pattern of the tangent stiffness (lower triangle),
+//! with, for every member, the value slots its 6 × 6 block scatters into.
+//!
+//! The pattern holds every member's block whether the member is slack or
+//! not, and every diagonal entry, so one symbolic Cholesky factorisation
+//! serves every Newton iteration, every repeated solve and every time step.
+
+use faer::sparse::{SparseColMat, Triplet};
+
+use super::error::SolveError;
+use super::network::{AxialLaw, Fixity, Network};
+
+/// Marks "no degree of freedom" / "no slot".
+pub(crate) const NONE: usize = usize::MAX;
+
+/// A member as the kernels see it.
+#[derive(Debug, Clone)]
+pub(crate) struct MemberData {
+    pub ends: [usize; 2],
+    /// Spring rate `EA / L0`, N/m.
+    pub k_n_per_m: f64,
+    pub rest_m: f64,
+    pub tension_only: bool,
+}
+
+/// A floor contact: compression-only spring on the node's y coordinate.
+#[derive(Debug, Clone)]
+pub(crate) struct FloorData {
+    pub node: usize,
+    /// Index of the node's y dof.
+    pub dof: usize,
+    pub k_n_per_m: f64,
+    /// Drawn height (the unloaded floor surface), m.
+    pub y0_m: f64,
+}
+
+/// Dof numbering, member data and sparsity pattern of one network.
+#[derive(Debug, Clone)]
+pub(crate) struct Model {
+    /// Per node, the dof index of x, y, z or [`NONE`] where held.
+    pub node_dofs: Vec<[usize; 3]>,
+    /// Per dof, its node.
+    pub dof_node: Vec<usize>,
+    /// Per dof, its axis (0 x, 1 y, 2 z).
+    pub dof_axis: Vec<usize>,
+    pub members: Vec<MemberData>,
+    pub floors: Vec<FloorData>,
+    /// Node names for messages.
+    pub names: Vec<String>,
+    /// Drawn positions (held coordinates never move from them).
+    pub drawn_m: Vec<[f64; 3]>,
+    /// Lumped mass per dof, kg.
+    pub mass_per_dof_kg: Vec<f64>,
+    /// Lower triangle of the tangent; values are rewritten in place.
+    pub matrix: SparseColMat<usize, f64>,
+    /// Per member, the value slot of each entry (p, q) of its 6 × 6 block
+    /// (local order a.x a.y a.z b.x b.y b.z), or [`NONE`] for held dofs and
+    /// entries above the diagonal.
+    pub member_slots: Vec<[usize; 36]>,
+    /// Per dof, the slot of its diagonal entry.
+    pub diag_slots: Vec<usize>,
+    /// A stiffness scale (largest sum of spring rates at one dof), N/m; sets
+    /// the size of the Levenberg–Marquardt damping.
+    pub stiffness_scale_n_per_m: f64,
+    /// Bounding-box diagonal of the drawn geometry (at least 1 m), m.
+    pub model_size_m: f64,
+}
+
+impl Model {
+    /// Numbers the dofs and builds the pattern. The network must be validated.
+    pub(crate) fn new(net: &Network) -> Result<Self, SolveError> {
+        let mut node_dofs = vec![[NONE; 3]; net.nodes.len()];
+        let mut dof_node = Vec::new();
+        let mut dof_axis = Vec::new();
+        let mut mass_per_dof_kg = Vec::new();
+        let mut floors = Vec::new();
+        for (i, node) in net.nodes.iter().enumerate() {
+            let axes: &[usize] = match node.fixity {
+                Fixity::Free => &[0, 1, 2],
+                Fixity::Floor { .. } => &[1],
+                Fixity::Fixed => &[],
+            };
+            for &ax in axes {
+                node_dofs[i][ax] = dof_node.len();
+                dof_node.push(i);
+                dof_axis.push(ax);
+                mass_per_dof_kg.push(node.mass_kg);
+            }
+            if let Fixity::Floor { stiffness_n_per_m } = node.fixity {
+                floors.push(FloorData {
+                    node: i,
+                    dof: node_dofs[i][1],
+                    k_n_per_m: stiffness_n_per_m,
+                    y0_m: node.position_m[1],
+                });
+            }
+        }
+        let n = dof_node.len();
+        let members: Vec<MemberData> = net
+            .members
+            .iter()
+            .map(|m| MemberData {
+                ends: m.ends,
+                k_n_per_m: m.axial_stiffness_n / m.rest_length_m,
+                rest_m: m.rest_length_m,
+                tension_only: matches!(m.law, AxialLaw::TensionOnly),
+            })
+            .collect();
+
+        let local = |m: &MemberData| -> [usize; 6] {
+            let a = node_dofs[m.ends[0]];
+            let b = node_dofs[m.ends[1]];
+            [a[0], a[1], a[2], b[0], b[1], b[2]]
+        };
+        let mut triplets: Vec<Triplet<usize, usize, f64>> = (0..n).map(|i| Triplet::new(i, i, 0.0)).collect();
+        for m in &members {
+            let g = local(m);
+            for &r in &g {
+                for &c in &g {
+                    if r != NONE && c != NONE && r > c {
+                        triplets.push(Triplet::new(r, c, 0.0));
+                    }
+                }
+            }
+        }
+        let matrix = SparseColMat::<usize, f64>::try_new_from_triplets(n, n, &triplets)
+            .map_err(|e| SolveError::Factorisation { reason: format!("{e:?}") })?;
+        let slot = |r: usize, c: usize| -> usize {
+            let sym = matrix.symbolic();
+            let start = sym.col_ptr()[c];
+            let end = sym.col_ptr()[c + 1];
+            sym.row_idx()[start..end].iter().position(|&row| row == r).map_or(NONE, |p| start + p)
+        };
+        let diag_slots: Vec<usize> = (0..n).map(|i| slot(i, i)).collect();
+        let member_slots: Vec<[usize; 36]> = members
+            .iter()
+            .map(|m| {
+                let g = local(m);
+                let mut s = [NONE; 36];
+                for p in 0..6 {
+                    for q in 0..6 {
+                        if g[p] != NONE && g[q] != NONE && g[p] >= g[q] {
+                            s[p * 6 + q] = slot(g[p], g[q]);
+                        }
+                    }
+                }
+                s
+            })
+            .collect();
+
+        let mut rate_sum = vec![0.0; net.nodes.len()];
+        for m in &members {
+            rate_sum[m.ends[0]] += m.k_n_per_m;
+            rate_sum[m.ends[1]] += m.k_n_per_m;
+        }
+        for f in &floors {
+            rate_sum[f.node] += f.k_n_per_m;
+        }
+        let stiffness_scale_n_per_m = rate_sum.iter().copied().fold(0.0, f64::max).max(f64::MIN_POSITIVE);
+
+        let drawn_m: Vec<[f64; 3]> = net.nodes.iter().map(|n| n.position_m).collect();
+        let mut lo = [f64::INFINITY; 3];
+        let mut hi = [f64::NEG_INFINITY; 3];
+        for p in &drawn_m {
+            for ax in 0..3 {
+                lo[ax] = lo[ax].min(p[ax]);
+                hi[ax] = hi[ax].max(p[ax]);
+            }
+        }
+        let diag2: f64 = (0..3).map(|ax| (hi[ax] - lo[ax]).powi(2)).sum();
+        let model_size_m = if diag2.is_finite() { diag2.sqrt().max(1.0) } else { 1.0 };
+
+        Ok(Self {
+            node_dofs,
+            dof_node,
+            dof_axis,
+            members,
+            floors,
+            names: net.nodes.iter().map(|n| n.name.clone()).collect(),
+            drawn_m,
+            mass_per_dof_kg,
+            matrix,
+            member_slots,
+            diag_slots,
+            stiffness_scale_n_per_m,
+            model_size_m,
+        })
+    }
+
+    /// Number of free dofs.
+    pub(crate) fn n_dofs(&self) -> usize {
+        self.dof_node.len()
+    }
+
+    /// Gathers the dof values of per-node vectors (loads, velocities, …).
+    pub(crate) fn gather(&self, per_node: &[[f64; 3]], out: &mut [f64]) {
+        for (node, dofs) in self.node_dofs.iter().enumerate() {
+            for ax in 0..3 {
+                if dofs[ax] != NONE {
+                    out[dofs[ax]] = per_node[node][ax];
+                }
+            }
+        }
+    }
+
+    /// Positions with the free coordinates taken from `start` and the held
+    /// ones from the drawing.
+    pub(crate) fn start_positions(&self, start: Option<&[[f64; 3]]>) -> Vec<[f64; 3]> {
+        let mut pos = self.drawn_m.clone();
+        if let Some(start) = start {
+            for (node, dofs) in self.node_dofs.iter().enumerate() {
+                for ax in 0..3 {
+                    if dofs[ax] != NONE {
+                        pos[node][ax] = start[node][ax];
+                    }
+                }
+            }
+        }
+        pos
+    }
+
+    /// Adds a dof increment to positions.
+    pub(crate) fn add_step(&self, pos: &[[f64; 3]], step: &[f64], out: &mut [[f64; 3]]) {
+        out.copy_from_slice(pos);
+        for (node, dofs) in self.node_dofs.iter().enumerate() {
+            for ax in 0..3 {
+                if dofs[ax] != NONE {
+                    out[node][ax] += step[dofs[ax]];
+                }
+            }
+        }
+    }
+}
+
+impl Model {
+    /// Name of a node for messages.
+    pub(crate) fn node_name(&self, node: usize) -> String {
+        self.names.get(node).cloned().unwrap_or_else(|| format!("#{node}"))
+    }
+
+    /// The node farthest from its drawn position and that distance, m.
+    pub(crate) fn farthest(&self, pos: &[[f64; 3]]) -> Option<(usize, f64)> {
+        let mut best: Option<(usize, f64)> = None;
+        for (i, (p, d)) in pos.iter().zip(&self.drawn_m).enumerate() {
+            let dist = ((p[0] - d[0]).powi(2) + (p[1] - d[1]).powi(2) + (p[2] - d[2]).powi(2)).sqrt();
+            if best.is_none_or(|(_, b)| dist > b) {
+                best = Some((i, dist));
+            }
+        }
+        best
+    }
+}

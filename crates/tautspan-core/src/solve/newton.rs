@@ -1,0 +1,209 @@
+//! Damped Newton minimisation of the total potential (Levenberg–Marquardt
+//! with energy-based step acceptance). Shared by the static solver and by
+//! every time step of the implicit integrator (which adds an inertia term).
+//!
+//! Each iteration solves `(K + λ I) Δ = −g` with the sparse Cholesky factor
+//! (K the tangent, g the gradient = minus the out-of-balance force). A step
+//! is accepted when it lowers the potential; λ then shrinks by the gain
+//! ratio rule of Nielsen (1999), otherwise λ grows and the step is retried.
+//! The damping makes the shifted matrix positive definite however singular
+//! or indefinite K is (slack members, flat lines, rods in compression), and
+//! turns the step into a short gradient step far from equilibrium. Near
+//! convergence the energy change falls to roundoff level; there a step is
+//! accepted when it lowers the largest out-of-balance force instead.
+
+use super::assemble::Inertia;
+use super::error::SolveError;
+use super::factor::Factor;
+use super::model::Model;
+
+/// Settings of the damped Newton iteration.
+#[derive(Debug, Clone, PartialEq)]
+pub struct SolveOptions {
+    /// Trial steps (factorisations) allowed before giving up.
+    pub max_iterations: usize,
+    /// Convergence: out-of-balance force at every free dof below this
+    /// fraction of the total applied load magnitude (Σ |load| over nodes).
+    pub relative_tolerance: f64,
+    /// Absolute floor of the force tolerance, N.
+    pub absolute_tolerance_n: f64,
+    /// A node that moves farther than this many model sizes (bounding-box
+    /// diagonal of the drawing, at least 1 m) from its drawn position runs away.
+    pub runaway_factor: f64,
+    /// Starting Levenberg–Marquardt damping as a fraction of the largest
+    /// spring rate at one node.
+    pub initial_damping: f64,
+}
+
+impl Default for SolveOptions {
+    fn default() -> Self {
+        Self {
+            max_iterations: 500,
+            relative_tolerance: 1e-9,
+            absolute_tolerance_n: 1e-9,
+            runaway_factor: 1e3,
+            initial_damping: 1e-6,
+        }
+    }
+}
+
+/// Iterations made and the residual reached.
+#[derive(Debug, Clone, Copy)]
+pub(crate) struct NewtonOutcome {
+    pub iterations: usize,
+    pub residual_n: f64,
+}
+
+/// Buffers reused across solves.
+#[derive(Debug, Clone, Default)]
+pub(crate) struct Workspace {
+    grad: Vec<f64>,
+    mag: Vec<f64>,
+    trial_grad: Vec<f64>,
+    trial_mag: Vec<f64>,
+    step: Vec<f64>,
+    k_values: Vec<f64>,
+    trial_pos: Vec<[f64; 3]>,
+}
+
+/// Largest |g_i| and its dof, and whether every dof is within tolerance
+/// (the tolerance, or 16 ε of the magnitudes summed into that dof, which is
+/// the level roundoff alone leaves).
+fn residual(grad: &[f64], mag: &[f64], tol_n: f64) -> (f64, usize, bool) {
+    let mut worst = 0.0;
+    let mut at = 0;
+    let mut ok = true;
+    for (i, (g, m)) in grad.iter().zip(mag).enumerate() {
+        let a = g.abs();
+        if a.is_nan() || a > tol_n.max(16.0 * f64::EPSILON * m) {
+            ok = false;
+        }
+        if a > worst || a.is_nan() {
+            worst = a;
+            at = i;
+        }
+    }
+    (worst, at, ok)
+}
+
+/// Minimises the potential over the free dofs, starting from and updating
+/// `pos`. `factor` must belong to `model`'s pattern (None when no dofs).
+#[allow(clippy::too_many_arguments)]
+pub(crate) fn minimise(
+    model: &mut Model,
+    factor: Option<&mut Factor>,
+    ws: &mut Workspace,
+    pos: &mut [[f64; 3]],
+    loads_dof: &[f64],
+    inertia: Option<Inertia<'_>>,
+    opts: &SolveOptions,
+    tol_n: f64,
+) -> Result<NewtonOutcome, SolveError> {
+    let n = model.n_dofs();
+    let Some(factor) = factor else {
+        return Ok(NewtonOutcome { iterations: 0, residual_n: 0.0 });
+    };
+    ws.grad.resize(n, 0.0);
+    ws.mag.resize(n, 0.0);
+    ws.trial_grad.resize(n, 0.0);
+    ws.trial_mag.resize(n, 0.0);
+    ws.step.resize(n, 0.0);
+    ws.k_values.resize(model.matrix.val().len(), 0.0);
+    ws.trial_pos.clear();
+    ws.trial_pos.extend_from_slice(pos);
+
+    let max_mass = model.mass_per_dof_kg.iter().copied().fold(0.0, f64::max);
+    let kscale = model.stiffness_scale_n_per_m + inertia.map_or(0.0, |i| i.scale_per_s2 * max_mass);
+    let lambda_min = 1e-15 * kscale;
+    let lambda_max = 1e20 * kscale;
+    let mut lambda = (opts.initial_damping * kscale).max(lambda_min);
+    let mut nu = 2.0;
+    let runaway_m = opts.runaway_factor * model.model_size_m;
+
+    let (mut phi, mut escale) = model.energy(pos, loads_dof, inertia);
+    model.gradient(pos, loads_dof, inertia, &mut ws.grad, &mut ws.mag);
+    let mut iterations = 0;
+    let not_converged = |model: &Model, iterations: usize, grad: &[f64], mag: &[f64]| {
+        let (res, at, _) = residual(grad, mag, tol_n);
+        SolveError::NotConverged {
+            iterations,
+            residual_n: res,
+            tolerance_n: tol_n,
+            worst_node: model.node_name(model.dof_node[at]),
+        }
+    };
+    loop {
+        let (res, _, converged) = residual(&ws.grad, &ws.mag, tol_n);
+        if converged {
+            return Ok(NewtonOutcome { iterations, residual_n: res });
+        }
+        model.tangent(pos, inertia, &mut ws.k_values);
+        loop {
+            if iterations >= opts.max_iterations || lambda > lambda_max {
+                return Err(not_converged(model, iterations, &ws.grad, &ws.mag));
+            }
+            iterations += 1;
+            let values = model.matrix.val_mut();
+            values.copy_from_slice(&ws.k_values);
+            for &slot in &model.diag_slots {
+                values[slot] += lambda;
+            }
+            if !factor.factorize(model.matrix.as_ref()) {
+                lambda = (lambda * nu).max(1e-9 * kscale);
+                nu *= 2.0;
+                continue;
+            }
+            for (s, g) in ws.step.iter_mut().zip(&ws.grad) {
+                *s = -g;
+            }
+            factor.solve_in_place(&mut ws.step);
+            if !ws.step.iter().all(|s| s.is_finite()) {
+                lambda = (lambda * nu).max(1e-9 * kscale);
+                nu *= 2.0;
+                continue;
+            }
+            model.add_step(pos, &ws.step, &mut ws.trial_pos);
+            let (phi_t, escale_t) = model.energy(&ws.trial_pos, loads_dof, inertia);
+            let actual = phi - phi_t;
+            let step2: f64 = ws.step.iter().map(|s| s * s).sum();
+            let gdx: f64 = -ws.step.iter().zip(&ws.grad).map(|(s, g)| s * g).sum::<f64>();
+            let predicted = 0.5 * (gdx + lambda * step2);
+            let roundoff = 1e-12 * escale.max(escale_t);
+            let mut have_trial_grad = false;
+            let accept = if actual.abs() <= roundoff {
+                model.gradient(&ws.trial_pos, loads_dof, inertia, &mut ws.trial_grad, &mut ws.trial_mag);
+                have_trial_grad = true;
+                let (res_t, _, _) = residual(&ws.trial_grad, &ws.trial_mag, tol_n);
+                res_t < res
+            } else {
+                actual > 0.0 && phi_t.is_finite()
+            };
+            if !accept {
+                lambda *= nu;
+                nu *= 2.0;
+                continue;
+            }
+            if let Some((node, distance_m)) = model.farthest(&ws.trial_pos)
+                && distance_m > runaway_m
+            {
+                return Err(SolveError::RunAway {
+                    node: model.node_name(node),
+                    distance_m,
+                    model_size_m: model.model_size_m,
+                });
+            }
+            if !have_trial_grad {
+                model.gradient(&ws.trial_pos, loads_dof, inertia, &mut ws.trial_grad, &mut ws.trial_mag);
+            }
+            pos.copy_from_slice(&ws.trial_pos);
+            std::mem::swap(&mut ws.grad, &mut ws.trial_grad);
+            std::mem::swap(&mut ws.mag, &mut ws.trial_mag);
+            phi = phi_t;
+            escale = escale_t;
+            let rho = if predicted > 0.0 { (actual / predicted).clamp(0.0, 1.0) } else { 1.0 };
+            lambda = (lambda * (1.0 / 3.0_f64).max(1.0 - (2.0 * rho - 1.0).powi(3))).max(lambda_min);
+            nu = 2.0;
+            break;
+        }
+    }
+}

@@ -1,0 +1,8 @@
+//! Quantities with units: the dimensions and units a scenario file accepts,
+//! parsing and formatting, and the `uom` types of the public API.
+
+mod dimension;
+mod parse;
+
+pub use dimension::{Dimension, UNITS, UnitDef, unit, unit_of};
+pub use parse::{QuantityError, Sign, format_number, format_quantity, parse_quantity};

@@ -1,0 +1,210 @@
+//! The printable report: well-formed, self-contained (nothing fetched),
+//! complete (every member, floor, mass and node named), carrying the caution
+//! at top and bottom, and escaping user text.
+
+#[path = "report_support.rs"]
+mod report_support;
+
+use report_support::{BRIDLE, SINGLE, assert_well_formed, load};
+use tautspan_core::CAUTION;
+use tautspan_core::analysis::{Analysis, analyse};
+use tautspan_core::report::{UnitSystem, escape, html, html_with_units};
+
+fn report(text: &str) -> String {
+    let scenario = load(text);
+    let analysis = analyse(&scenario);
+    html(&scenario, &analysis, "2025-03-14")
+}
+
+#[test]
+fn is_well_formed_html5() {
+    for text in [SINGLE, BRIDLE] {
+        let doc = report(text);
+        assert!(doc.starts_with("<!DOCTYPE html>"));
+        assert_well_formed(&doc);
+    }
+}
+
+#[test]
+fn names_every_member_floor_mass_and_node() {
+    let scenario = load(BRIDLE);
+    let doc = html(&scenario, &analyse(&scenario), "2025-03-14");
+    let ids = scenario
+        .members
+        .iter()
+        .map(|m| &m.id)
+        .chain(scenario.floors.iter().map(|f| &f.id))
+        .chain(scenario.masses.iter().map(|m| &m.id))
+        .chain(scenario.nodes.iter().map(|n| &n.id));
+    for id in ids {
+        // In the drawing (bold id label) and in the tables.
+        assert!(doc.matches(&format!(">{}<", escape(id))).count() >= 2, "{id} missing");
+    }
+    assert!(doc.contains("class=\"floor\""), "the floor is drawn");
+    assert!(doc.contains("class=\"anchor\""), "the anchors are drawn");
+    assert!(doc.contains("class=\"mass\""), "the mass is drawn");
+}
+
+#[test]
+fn carries_the_caution_top_and_bottom() {
+    let doc = report(SINGLE);
+    let escaped = escape(CAUTION);
+    let first = doc.find(&escaped).expect("caution present");
+    let last = doc.rfind(&escaped).expect("caution present");
+    assert!(first < doc.find("id=\"layout\"").unwrap(), "caution before the drawing");
+    assert!(last > doc.find("id=\"assumptions\"").unwrap(), "caution after the assumptions");
+}
+
+#[test]
+fn fetches_nothing_and_runs_nothing() {
+    for text in [SINGLE, BRIDLE] {
+        let doc = report(text).to_ascii_lowercase();
+        for bad in
+            ["http://", "https://", "//cdn", "<script", "<link", "<img", "<iframe", "@import", "src=", "@font-face"]
+        {
+            assert!(!doc.contains(bad), "report contains {bad}");
+        }
+        // url() only to fragments inside the document (patterns, gradients).
+        for (i, _) in doc.match_indices("url(") {
+            assert!(doc[i + 4..].starts_with('#'), "external url( at {i}");
+        }
+        for (i, _) in doc.match_indices("href=") {
+            assert!(doc[i + 5..].starts_with("\"#"), "external href at {i}");
+        }
+    }
+}
+
+#[test]
+fn escapes_user_text() {
+    let text = SINGLE
+        .replace("Single sling", "<script>alert('t')</script> & \\\"x\\\"")
+        .replace("Notes for a colleague.", "a < b > c & <b>bold</b>")
+        .replace("\"sling\"", "\"s<i>ling\"");
+    let doc = report(&text);
+    assert!(!doc.to_ascii_lowercase().contains("<script"), "title is escaped");
+    assert!(doc.contains("&lt;script&gt;alert(&#39;t&#39;)&lt;/script&gt; &amp; &quot;x&quot;"));
+    assert!(doc.contains("a &lt; b &gt; c &amp; &lt;b&gt;bold&lt;/b&gt;"));
+    assert!(doc.contains("s&lt;i&gt;ling") && !doc.contains("s<i>ling"));
+    assert_well_formed(&doc);
+}
+
+#[test]
+fn has_every_section() {
+    let doc = report(BRIDLE);
+    for id in ["layout", "comparison", "warnings", "cases", "inputs", "assumptions", "closing"] {
+        assert!(doc.contains(&format!("<section id=\"{id}\"")), "section {id}");
+    }
+    for words in [
+        "minimum breaking strength",
+        "Design factor",
+        "Governing case",
+        "Largest release angle",
+        "Largest drop height",
+        "Gravity g = 9.80665 m/s²",
+        "Utilisation",
+    ] {
+        assert!(doc.contains(words), "{words}");
+    }
+    assert!(
+        doc.contains("<svg class=\"layout\"")
+            && doc.contains("class=\"scale-bar\"")
+            && doc.contains("<svg class=\"legend\"")
+    );
+}
+
+#[test]
+fn prints_the_core_numbers() {
+    let scenario = load(SINGLE);
+    let analysis = analyse(&scenario);
+    let doc = html(&scenario, &analysis, "2025-03-14");
+    let fmt = |n: f64| tautspan_core::units::format_number(n / 1000.0, 3);
+    for row in &analysis.comparison {
+        assert!(doc.contains(&format!("{} kN", fmt(row.allowable_n))), "allowable of {}", row.id);
+        for f in row.force_n.iter().flatten() {
+            assert!(doc.contains(&format!("{} kN", fmt(*f))), "force {f} of {}", row.id);
+        }
+    }
+    for case in &analysis.cases {
+        if let Some(d) = &case.dynamic {
+            assert!(doc.contains(&escape(&d.formula)), "formula of {}", case.id);
+        }
+    }
+    for a in &analysis.assumptions {
+        assert!(doc.contains(&escape(a)), "assumption {a}");
+    }
+}
+
+#[test]
+fn us_customary_units() {
+    let scenario = load(BRIDLE);
+    let doc = html_with_units(&scenario, &analyse(&scenario), "2025-03-14", UnitSystem::UsCustomary);
+    assert!(doc.contains(" lbf") && doc.contains(" ft") && doc.contains("in²"));
+    assert!(!doc.contains(" kN<"), "no SI forces in a US report");
+    assert_well_formed(&doc);
+}
+
+#[test]
+fn marks_over_and_slack_members_in_the_drawing() {
+    // The swing case takes the sling past its allowable (tiny working load
+    // limit); the thick line and the OVER word must appear.
+    let text = SINGLE.replace("BreakingStrength(\"90.7 kN\")", "WorkingLoadLimit(\"2 kN\")");
+    let doc = report(&text);
+    assert!(doc.contains("OVER"), "state word");
+    assert!(doc.contains("stroke-width=\"9.0\""), "thick line for over");
+    assert!(doc.contains("verdict fail"));
+}
+
+#[test]
+fn dashes_a_member_slack_in_the_static_case() {
+    let text = SINGLE
+        .replace(
+            "Node(id: \"J1\", at: (\"0 m\", \"2 m\")),",
+            "Node(id: \"J1\", at: (\"0 m\", \"2 m\")), Node(id: \"T1\", at: (\"2 m\", \"1 m\"), support: Anchor),",
+        )
+        .replace(
+            "rating: BreakingStrength(\"90.7 kN\")),",
+            "rating: BreakingStrength(\"90.7 kN\")),
+             Member(id: \"tag\", ends: (\"J1\", \"T1\"), kind: FibreRope, diameter: \"10 mm\",
+                    material: \"polyester\", rating: BreakingStrength(\"20 kN\"), slack: \"0.3 m\", may_go_slack: true),",
+        );
+    let scenario = load(&text);
+    let analysis = analyse(&scenario);
+    let hanging = &analysis.cases[0];
+    assert_eq!(
+        hanging.members.iter().find(|m| m.id == "tag").map(|m| m.state),
+        Some(tautspan_core::analysis::State::Slack)
+    );
+    let doc = html(&scenario, &analysis, "2025-03-14");
+    let tag = doc.find("<title>tag:").expect("tag drawn");
+    assert!(doc[tag..tag + 600].contains("stroke-dasharray"), "slack member dashed");
+    let sling = doc.find("<title>sling:").expect("sling drawn");
+    assert!(!doc[sling..sling + 400].contains("stroke-dasharray"), "taut member solid");
+    assert!(doc.contains(">slack<"), "state word");
+}
+
+#[test]
+fn renders_without_any_results() {
+    // An analysis with nothing in it (e.g. the GUI exporting before a solve)
+    // still gives a complete, well-formed report from the drawn geometry.
+    let scenario = load(BRIDLE);
+    let empty = Analysis {
+        title: scenario.title.clone(),
+        caution: CAUTION.to_string(),
+        cases: vec![],
+        comparison: vec![],
+        warnings: vec![],
+        assumptions: vec![],
+    };
+    let doc = html(&scenario, &empty, "");
+    assert_well_formed(&doc);
+    assert!(doc.contains("as drawn: no static case was solved"));
+    assert!(doc.contains(&escape(CAUTION)));
+    for m in &scenario.members {
+        assert!(doc.contains(&escape(&m.id)));
+    }
+}
+
+#[test]
+fn same_input_same_report() {
+    assert_eq!(report(BRIDLE), report(BRIDLE));
+}

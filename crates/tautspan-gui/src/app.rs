@@ -1,0 +1,424 @@
+//! The app: one struct holding the document, the derived results and the
+//! UI state. Each frame draws the panels, which return commands; the
+//! commands are applied after the frame, and the results are recomputed
+//! only when the document changed. File handling is in `app_files`.
+
+use crate::canvas::{self, CanvasInput, CanvasState};
+use crate::command::Command;
+use crate::derived::Derived;
+use crate::document::{Document, blank_scenario};
+use crate::files::Files;
+use crate::inspector::{self, InspectorInput};
+use crate::plots::Plots;
+use crate::prefs::{LowerTab, Prefs};
+use crate::qty_field::{ERROR, FieldBuffers};
+use crate::results_table::{self, Sort};
+use crate::selection::{Selection, Tool};
+use crate::toolbar::{self, ToolbarInput};
+use crate::view::View;
+use crate::{cases_panel, edits, warnings_panel};
+use egui::{Key, KeyboardShortcut, Modifiers, RichText, Ui};
+use std::path::PathBuf;
+use tautspan_core::library::MemberKind;
+
+/// A message for the user, shown under the caution until dismissed.
+#[derive(Debug, Clone, PartialEq)]
+pub enum Message {
+    /// Something worked.
+    Info(String),
+    /// Something failed; the text says where and why.
+    Error(String),
+}
+
+/// An action waiting for the user to decide about unsaved changes.
+#[derive(Debug, Clone, PartialEq)]
+pub enum Pending {
+    /// Start a new scenario.
+    New,
+    /// Open through the dialog.
+    Open,
+    /// Open a given file.
+    OpenPath(PathBuf),
+    /// Close the app.
+    Quit,
+}
+
+/// The whole app.
+pub struct TautspanApp {
+    /// The open scenario.
+    pub doc: Document,
+    /// Preferences kept between runs.
+    pub prefs: Prefs,
+    /// Validation and analysis of the document.
+    pub derived: Derived,
+    /// The canvas's pan and zoom.
+    pub view: View,
+    /// What is selected.
+    pub selection: Selection,
+    /// The canvas tool.
+    pub tool: Tool,
+    /// The kind the member tool places.
+    pub member_kind: MemberKind,
+    /// The case the canvas shows (the first when `None`).
+    pub shown_case: Option<String>,
+    /// The canvas's state between frames.
+    pub canvas: CanvasState,
+    /// Unfinished text in quantity fields.
+    pub fields: FieldBuffers,
+    /// File dialogs and the path field.
+    pub files: Files,
+    /// Plots and their worker jobs.
+    pub plots: Plots,
+    /// Results table sorting.
+    pub sort: Sort,
+    /// The message shown under the caution.
+    pub message: Option<Message>,
+    /// An action waiting on unsaved changes.
+    pub pending: Option<Pending>,
+    /// The report waiting for a path.
+    pub(crate) report_html: Option<String>,
+    /// The user chose to close without saving.
+    pub(crate) quit_allowed: bool,
+    /// Set when the app asked the window to close.
+    pub close_requested: bool,
+    last_title: String,
+}
+
+impl TautspanApp {
+    /// The app on a scenario document.
+    pub fn with_document(doc: Document, prefs: Prefs) -> TautspanApp {
+        TautspanApp {
+            doc,
+            prefs,
+            derived: Derived::default(),
+            view: View::default(),
+            selection: Selection::None,
+            tool: Tool::Select,
+            member_kind: MemberKind::WireRope,
+            shown_case: None,
+            canvas: CanvasState::default(),
+            fields: FieldBuffers::default(),
+            files: Files::default(),
+            plots: Plots::default(),
+            sort: Sort::default(),
+            message: None,
+            pending: None,
+            report_html: None,
+            quit_allowed: false,
+            close_requested: false,
+            last_title: String::new(),
+        }
+    }
+
+    /// The app on the built-in demo.
+    pub fn demo(prefs: Prefs) -> TautspanApp {
+        match tautspan_core::model::load_scenario(crate::DEMO_SCENARIO) {
+            Ok(l) => TautspanApp::with_document(Document::new(l.dto, None), prefs),
+            Err(e) => {
+                let mut app = TautspanApp::with_document(Document::new(blank_scenario(), None), prefs);
+                app.message = Some(Message::Error(format!("the built-in demo does not load: {e}")));
+                app
+            }
+        }
+    }
+
+    /// The app on a file, or on the demo when `None`. A file that does not
+    /// load leaves a new scenario open and says why.
+    pub fn start(file: Option<PathBuf>, prefs: Prefs) -> TautspanApp {
+        match file {
+            None => TautspanApp::demo(prefs),
+            Some(p) => match crate::files::read_scenario(&p) {
+                Ok(dto) => {
+                    let mut app = TautspanApp::with_document(Document::new(dto, Some(p.clone())), prefs);
+                    app.prefs.remember(&p);
+                    app
+                }
+                Err(e) => {
+                    let mut app = TautspanApp::with_document(Document::new(blank_scenario(), None), prefs);
+                    app.message = Some(Message::Error(e));
+                    app
+                }
+            },
+        }
+    }
+
+    /// Queue a command as if a panel had returned it (used by tests and the bench).
+    pub fn apply(&mut self, ctx: &egui::Context, commands: Vec<Command>) {
+        for c in commands {
+            self.apply_one(ctx, c);
+        }
+        self.derived.refresh(&self.doc);
+    }
+
+    fn apply_one(&mut self, ctx: &egui::Context, c: Command) {
+        match c {
+            Command::Edit { merge_key, apply } => {
+                let mut picked = None;
+                self.doc.edit(merge_key.as_deref(), |d| picked = apply(d));
+                if let Some(s) = picked {
+                    self.selection = s;
+                }
+            }
+            Command::SealUndo => self.doc.undo.seal(),
+            Command::Select(s) => self.selection = s,
+            Command::SetTool(t) => {
+                self.tool = t;
+                self.canvas.member_start = None;
+                if let Tool::Member(k) = t {
+                    self.member_kind = k;
+                }
+            }
+            Command::Undo => {
+                if self.doc.undo() {
+                    self.fields.clear();
+                }
+            }
+            Command::Redo => {
+                if self.doc.redo() {
+                    self.fields.clear();
+                }
+            }
+            Command::DeleteSelection => {
+                let sel = std::mem::take(&mut self.selection);
+                self.doc.edit(None, |d| edits::delete(d, &sel));
+            }
+            Command::Escape => {
+                if self.canvas.member_start.take().is_none() {
+                    if self.tool != Tool::Select {
+                        self.tool = Tool::Select;
+                    } else {
+                        self.selection = Selection::None;
+                    }
+                }
+            }
+            Command::ShowCase(id) => self.shown_case = Some(id),
+            Command::FitView => self.view.fit_pending = true,
+            Command::New | Command::Open | Command::OpenPath(_) | Command::Quit => self.guarded(ctx, c),
+            Command::Save | Command::SaveAs | Command::SaveTo(_) | Command::ExportReport => self.file_command(ctx, c),
+        }
+    }
+
+    /// New/Open/Quit: ask first when there are unsaved changes.
+    fn guarded(&mut self, ctx: &egui::Context, c: Command) {
+        let pending = match c {
+            Command::New => Pending::New,
+            Command::Open => Pending::Open,
+            Command::OpenPath(p) => Pending::OpenPath(p),
+            _ => Pending::Quit,
+        };
+        if self.doc.dirty {
+            self.pending = Some(pending);
+        } else {
+            self.proceed(ctx, pending);
+        }
+    }
+
+    /// Carry out an action that was waiting on unsaved changes.
+    pub(crate) fn proceed(&mut self, ctx: &egui::Context, p: Pending) {
+        self.pending = None;
+        match p {
+            Pending::New => {
+                self.doc.replace(blank_scenario(), None);
+                self.after_replace();
+            }
+            Pending::Open => self.files.ask(crate::files::Purpose::Open, ctx, self.doc.path.as_deref()),
+            Pending::OpenPath(path) => self.open_path(&path),
+            Pending::Quit => {
+                self.quit_allowed = true;
+                self.close_requested = true;
+                ctx.send_viewport_cmd(egui::ViewportCommand::Close);
+            }
+        }
+    }
+
+    pub(crate) fn after_replace(&mut self) {
+        self.selection = Selection::None;
+        self.shown_case = None;
+        self.fields.clear();
+        self.canvas = CanvasState::default();
+        self.view.fit_pending = true;
+        self.derived.refresh(&self.doc);
+    }
+
+    fn shortcuts(&mut self, ui: &Ui, out: &mut Vec<Command>) {
+        let typing = ui.ctx().egui_wants_keyboard_input();
+        let cmd_shift = Modifiers::COMMAND | Modifiers::SHIFT;
+        ui.input_mut(|i| {
+            if i.consume_shortcut(&KeyboardShortcut::new(cmd_shift, Key::Z)) {
+                out.push(Command::Redo);
+            }
+            if i.consume_shortcut(&KeyboardShortcut::new(cmd_shift, Key::S)) {
+                out.push(Command::SaveAs);
+            }
+            if !typing && i.consume_shortcut(&KeyboardShortcut::new(Modifiers::COMMAND, Key::Z)) {
+                out.push(Command::Undo);
+            }
+            if i.consume_shortcut(&KeyboardShortcut::new(Modifiers::COMMAND, Key::Y)) {
+                out.push(Command::Redo);
+            }
+            if i.consume_shortcut(&KeyboardShortcut::new(Modifiers::COMMAND, Key::S)) {
+                out.push(Command::Save);
+            }
+            if i.consume_shortcut(&KeyboardShortcut::new(Modifiers::COMMAND, Key::O)) {
+                out.push(Command::Open);
+            }
+            if i.consume_shortcut(&KeyboardShortcut::new(Modifiers::COMMAND, Key::N)) {
+                out.push(Command::New);
+            }
+            if !typing && (i.key_pressed(Key::Delete) || i.key_pressed(Key::Backspace)) {
+                out.push(Command::DeleteSelection);
+            }
+            if !typing && i.key_pressed(Key::Escape) {
+                out.push(Command::Escape);
+            }
+        });
+    }
+
+    /// One frame of the whole app inside `ui`.
+    pub fn frame(&mut self, ui: &mut Ui) {
+        self.derived.refresh(&self.doc);
+        self.poll_files(ui.ctx());
+        let mut out: Vec<Command> = Vec::new();
+        self.shortcuts(ui, &mut out);
+
+        egui::Panel::top("toolbar").show(ui, |ui| {
+            let input = ToolbarInput {
+                tool: self.tool,
+                member_kind: &mut self.member_kind,
+                prefs: &mut self.prefs,
+                view: &mut self.view,
+                can_undo: self.doc.undo.can_undo(),
+                can_redo: self.doc.undo.can_redo(),
+            };
+            toolbar::ui(ui, input, &mut out);
+            self.message_ui(ui);
+        });
+        egui::Panel::bottom("status").show(ui, |ui| self.status_ui(ui));
+        egui::Panel::bottom("lower").resizable(true).default_size(250.0).show(ui, |ui| {
+            ui.horizontal(|ui| {
+                ui.selectable_value(&mut self.prefs.lower_tab, LowerTab::Results, "Results");
+                ui.selectable_value(&mut self.prefs.lower_tab, LowerTab::Plots, "Plots");
+            });
+            ui.separator();
+            match self.prefs.lower_tab {
+                LowerTab::Results => {
+                    results_table::ui(ui, &self.derived, &self.selection, &mut self.sort, self.prefs.units, &mut out)
+                }
+                LowerTab::Plots => {
+                    self.plots.ui(
+                        ui,
+                        &self.doc,
+                        &self.derived,
+                        &self.selection,
+                        self.shown_case.as_deref(),
+                        self.prefs.units,
+                    );
+                }
+            }
+        });
+        egui::Panel::left("cases").resizable(true).default_size(270.0).show(ui, |ui| {
+            egui::ScrollArea::vertical().show(ui, |ui| {
+                cases_panel::ui(
+                    ui,
+                    &self.doc,
+                    &self.derived,
+                    self.shown_case.as_deref(),
+                    self.prefs.units,
+                    &mut self.fields,
+                    &mut out,
+                );
+                ui.separator();
+                warnings_panel::ui(ui, &self.doc, &self.derived, &mut out);
+            });
+        });
+        egui::Panel::right("inspector").resizable(true).default_size(330.0).show(ui, |ui| {
+            egui::ScrollArea::vertical().show(ui, |ui| {
+                let input = InspectorInput {
+                    doc: &self.doc,
+                    derived: &self.derived,
+                    selection: &self.selection,
+                    case: self.shown_case.as_deref(),
+                    units: self.prefs.units,
+                };
+                inspector::ui(ui, &input, &mut self.fields, &mut out);
+            });
+        });
+        egui::CentralPanel::default().frame(egui::Frame::NONE).show(ui, |ui| {
+            let input = CanvasInput {
+                doc: &self.doc,
+                derived: &self.derived,
+                case: self.shown_case.as_deref(),
+                selection: &self.selection,
+                tool: self.tool,
+                units: self.prefs.units,
+                labels: !self.prefs.hide_labels,
+            };
+            canvas::ui(ui, &mut self.canvas, &mut self.view, &input, &mut out);
+        });
+        self.dialogs_ui(ui.ctx(), &mut out);
+        let ctx = ui.ctx().clone();
+        self.apply(&ctx, out);
+    }
+
+    fn message_ui(&mut self, ui: &mut Ui) {
+        let Some(m) = self.message.clone() else { return };
+        ui.horizontal(|ui| {
+            let text = match &m {
+                Message::Info(t) => RichText::new(t),
+                Message::Error(t) => RichText::new(t).color(ERROR),
+            };
+            ui.label(text);
+            if ui.small_button("Dismiss").clicked() {
+                self.message = None;
+            }
+        });
+    }
+
+    fn status_ui(&self, ui: &mut Ui) {
+        ui.horizontal(|ui| {
+            ui.label(self.tool.hint());
+            ui.separator();
+            match &self.derived.solved {
+                Some(s) => {
+                    let n = s.analysis.cases.len();
+                    let ok = s.analysis.cases.iter().filter(|c| c.converged && c.error.is_none()).count();
+                    let text = format!("solved in {:.1} ms · {ok} of {n} cases converged", self.derived.solve_ms);
+                    ui.label(if ok == n { RichText::new(text) } else { RichText::new(text).color(ERROR) });
+                }
+                None => {
+                    ui.label(
+                        RichText::new(format!(
+                            "not solved: {} problem(s) in the scenario",
+                            self.derived.problems.len()
+                        ))
+                        .color(ERROR),
+                    );
+                }
+            }
+            if self.files.in_flight.is_some() {
+                ui.separator();
+                ui.spinner();
+                ui.label("waiting for the file dialog…");
+            }
+        });
+    }
+}
+
+impl eframe::App for TautspanApp {
+    fn ui(&mut self, ui: &mut Ui, _frame: &mut eframe::Frame) {
+        let title = self.doc.title();
+        if title != self.last_title {
+            ui.ctx().send_viewport_cmd(egui::ViewportCommand::Title(title.clone()));
+            self.last_title = title;
+        }
+        if ui.ctx().input(|i| i.viewport().close_requested()) && self.doc.dirty && !self.quit_allowed {
+            ui.ctx().send_viewport_cmd(egui::ViewportCommand::CancelClose);
+            self.pending = Some(Pending::Quit);
+        }
+        self.frame(ui);
+    }
+
+    fn save(&mut self, storage: &mut dyn eframe::Storage) {
+        eframe::set_value(storage, crate::prefs::STORAGE_KEY, &self.prefs);
+    }
+}

@@ -1,0 +1,245 @@
+//! The canvas: the elevation (x–y) of the rig, with the tools that place
+//! and move things. It reads the document and the analysis, and returns
+//! commands; it never edits the document itself. Drawing is in
+//! `canvas_draw`.
+
+use crate::canvas_draw::{self, Geometry};
+use crate::command::Command;
+use crate::derived::Derived;
+use crate::document::Document;
+use crate::edits;
+use crate::selection::{Selection, Tool};
+use crate::units_display::UnitSystem;
+use crate::view::View;
+use egui::{Pos2, Sense, Ui};
+use tautspan_core::file::SupportDto;
+
+/// The canvas's own state between frames.
+#[derive(Debug, Default, Clone)]
+pub struct CanvasState {
+    /// The first node picked with the member tool.
+    pub member_start: Option<String>,
+    /// The node being dragged.
+    pub dragging: Option<String>,
+    /// Panning with a drag on the background.
+    pub panning: bool,
+}
+
+/// Everything the canvas reads.
+pub struct CanvasInput<'a> {
+    /// The document.
+    pub doc: &'a Document,
+    /// Its analysis.
+    pub derived: &'a Derived,
+    /// The case shown.
+    pub case: Option<&'a str>,
+    /// The selection.
+    pub selection: &'a Selection,
+    /// The tool.
+    pub tool: Tool,
+    /// Display units.
+    pub units: UnitSystem,
+    /// Draw force labels.
+    pub labels: bool,
+}
+
+/// What is under a screen point.
+fn hit(geo: &Geometry, view: &View, p: Pos2) -> Selection {
+    fn nearest(cands: impl Iterator<Item = (f32, Selection)>, radius: f32) -> Option<Selection> {
+        cands.filter(|(d, _)| *d <= radius).min_by(|a, b| a.0.total_cmp(&b.0)).map(|(_, s)| s)
+    }
+    let node = nearest(
+        geo.nodes.iter().map(|n| (view.to_screen(n.pos_m[0], n.pos_m[1]).distance(p), Selection::Node(n.id.clone()))),
+        9.0,
+    );
+    if let Some(s) = node {
+        return s;
+    }
+    for m in &geo.masses {
+        if canvas_draw::mass_rect(geo, view, m).is_some_and(|r| r.expand(2.0).contains(p)) {
+            return Selection::Mass(m.id.clone());
+        }
+    }
+    let member = nearest(
+        geo.members.iter().filter_map(|m| {
+            let (a, b) = (geo.node(&m.ends.0)?, geo.node(&m.ends.1)?);
+            let (sa, sb) = (view.to_screen(a.pos_m[0], a.pos_m[1]), view.to_screen(b.pos_m[0], b.pos_m[1]));
+            Some((segment_distance(p, sa, sb), Selection::Member(m.id.clone())))
+        }),
+        6.0,
+    );
+    if let Some(s) = member {
+        return s;
+    }
+    for f in &geo.floors {
+        if f.rect_screen(view).contains(p) {
+            return Selection::Floor(f.floor_id.clone());
+        }
+    }
+    Selection::None
+}
+
+fn segment_distance(p: Pos2, a: Pos2, b: Pos2) -> f32 {
+    let ab = b - a;
+    let len2 = ab.length_sq();
+    if len2 <= f32::EPSILON {
+        return p.distance(a);
+    }
+    let t = ((p - a).dot(ab) / len2).clamp(0.0, 1.0);
+    p.distance(a + ab * t)
+}
+
+/// Draw the canvas and turn pointer input into commands.
+pub fn ui(ui: &mut Ui, state: &mut CanvasState, view: &mut View, input: &CanvasInput<'_>, out: &mut Vec<Command>) {
+    let size = ui.available_size();
+    let (rect, response) = ui.allocate_exact_size(size, Sense::click_and_drag());
+    response.widget_info(|| egui::WidgetInfo::labeled(egui::Role::Canvas, true, "Canvas"));
+    view.rect = rect;
+    let geo = Geometry::of(&input.doc.dto);
+    if view.fit_pending && rect.width() > 10.0 {
+        if let Some((min, max)) = geo.bounds() {
+            view.fit(min, max);
+        } else {
+            view.fit_pending = false;
+        }
+    }
+
+    // zoom with the wheel (or a pinch) about the pointer
+    if let Some(p) = response.hover_pos() {
+        let (scroll, pinch) = ui.input(|i| (i.smooth_scroll_delta.y, i.zoom_delta()));
+        let factor = f64::from(pinch) * (f64::from(scroll) / 300.0).exp();
+        if (factor - 1.0).abs() > 1e-4 {
+            view.zoom(factor, p);
+        }
+    }
+    if response.dragged_by(egui::PointerButton::Middle) || response.dragged_by(egui::PointerButton::Secondary) {
+        view.pan(response.drag_delta());
+    }
+
+    let pointer = response.interact_pointer_pos().or_else(|| response.hover_pos());
+    let units = input.units;
+    match input.tool {
+        Tool::Select => select_tool(state, view, &geo, &response, pointer, units, out),
+        Tool::Anchor | Tool::Joint | Tool::FloorNode => {
+            if response.clicked()
+                && let Some(p) = pointer
+            {
+                match hit(&geo, view, p) {
+                    Selection::Node(id) => out.push(Command::Select(Selection::Node(id))),
+                    _ => {
+                        let [x, y] = view.snapped(view.to_world(p), units);
+                        let tool = input.tool;
+                        out.push(Command::place(move |d| {
+                            let id = match tool {
+                                Tool::Anchor => edits::add_node(d, x, y, SupportDto::Anchor, units),
+                                Tool::FloorNode => edits::add_floor_node(d, x, y, units),
+                                _ => edits::add_node(d, x, y, SupportDto::Joint, units),
+                            };
+                            Selection::Node(id)
+                        }));
+                    }
+                }
+            }
+            background_pan(state, view, &response);
+        }
+        Tool::Member(kind) => {
+            if response.clicked()
+                && let Some(p) = pointer
+            {
+                if let Selection::Node(id) = hit(&geo, view, p) {
+                    match state.member_start.take() {
+                        Some(first) if first != id => {
+                            out.push(Command::place(move |d| {
+                                Selection::Member(edits::add_member(d, &first, &id, kind, units))
+                            }));
+                        }
+                        _ => state.member_start = Some(id),
+                    }
+                } else {
+                    state.member_start = None;
+                }
+            }
+            background_pan(state, view, &response);
+        }
+        Tool::Mass => {
+            if response.clicked()
+                && let Some(p) = pointer
+                && let Selection::Node(id) = hit(&geo, view, p)
+            {
+                out.push(Command::place(move |d| Selection::Mass(edits::add_mass(d, &id, units))));
+            }
+            background_pan(state, view, &response);
+        }
+    }
+    if let Some(p) = response.hover_pos()
+        && matches!(input.tool, Tool::Select)
+        && state.dragging.is_none()
+    {
+        let over = hit(&geo, view, p);
+        if over != Selection::None {
+            ui.ctx().set_cursor_icon(egui::CursorIcon::PointingHand);
+        }
+    }
+
+    let painter = ui.painter_at(rect);
+    canvas_draw::draw(&painter, view, &geo, input, state.member_start.as_deref(), response.hover_pos());
+}
+
+fn background_pan(state: &mut CanvasState, view: &mut View, response: &egui::Response) {
+    if response.drag_started_by(egui::PointerButton::Primary) {
+        state.panning = true;
+    }
+    if state.panning && response.dragged_by(egui::PointerButton::Primary) {
+        view.pan(response.drag_delta());
+    }
+    if response.drag_stopped() {
+        state.panning = false;
+    }
+}
+
+fn select_tool(
+    state: &mut CanvasState,
+    view: &mut View,
+    geo: &Geometry,
+    response: &egui::Response,
+    pointer: Option<Pos2>,
+    units: UnitSystem,
+    out: &mut Vec<Command>,
+) {
+    if response.clicked()
+        && let Some(p) = pointer
+    {
+        out.push(Command::Select(hit(geo, view, p)));
+    }
+    if response.drag_started_by(egui::PointerButton::Primary)
+        && let Some(p) = response.interact_pointer_pos()
+    {
+        // the press point, not where the pointer is after the drag threshold
+        let press = response.ctx.input(|i| i.pointer.press_origin()).unwrap_or(p);
+        match hit(geo, view, press) {
+            Selection::Node(id) => {
+                out.push(Command::Select(Selection::Node(id.clone())));
+                state.dragging = Some(id);
+            }
+            _ => state.panning = true,
+        }
+    }
+    if response.dragged_by(egui::PointerButton::Primary) {
+        if let (Some(id), Some(p)) = (state.dragging.clone(), pointer) {
+            let [x, y] = view.snapped(view.to_world(p), units);
+            let moved = geo.node(&id).is_some_and(|n| (n.pos_m[0] - x).abs() > 1e-9 || (n.pos_m[1] - y).abs() > 1e-9);
+            if moved {
+                let key = format!("drag:{id}");
+                out.push(Command::edit_merged(key, move |d| edits::move_node(d, &id, x, y, units)));
+            }
+        } else if state.panning {
+            view.pan(response.drag_delta());
+        }
+    }
+    if response.drag_stopped() {
+        if state.dragging.take().is_some() {
+            out.push(Command::SealUndo);
+        }
+        state.panning = false;
+    }
+}

@@ -1,0 +1,428 @@
+//! Painting the elevation: paper, grid and scale bar, floor slabs, members
+//! shaded by utilisation (dashed when slack, heavy and hatched when over),
+//! force labels, nodes with our own symbols, masses, the selected mass's
+//! load path, and the legend. Positions come from the document (what the
+//! user drew); forces from the core's analysis.
+
+use crate::canvas::CanvasInput;
+use crate::colour_ramp::{RAMP_MAX, colour};
+use crate::selection::Selection;
+use crate::units_display::{Shown, UnitSystem, fmt_utilisation};
+use crate::view::View;
+use egui::{Align2, Color32, FontId, Painter, Pos2, Rect, Shape, Stroke, pos2, vec2};
+use tautspan_core::analysis::State;
+use tautspan_core::file::{ScenarioDto, SupportDto};
+use tautspan_core::units::{Dimension, Sign, parse_quantity};
+
+const PAPER: Color32 = Color32::from_rgb(0xf5, 0xf3, 0xec);
+const GRID: Color32 = Color32::from_rgb(0xe2, 0xdf, 0xd5);
+const GRID_AXIS: Color32 = Color32::from_rgb(0xc9, 0xc4, 0xb6);
+const INK: Color32 = Color32::from_rgb(0x2b, 0x2d, 0x33);
+const CASING: Color32 = Color32::from_rgb(0x55, 0x58, 0x60);
+const PICK: Color32 = Color32::from_rgb(0x1f, 0x5f, 0xd6);
+const PATH_GLOW: Color32 = Color32::from_rgba_premultiplied(0x2a, 0x7a, 0xd8, 0x55);
+const UNSOLVED: Color32 = Color32::from_rgb(0x9a, 0x9c, 0xa3);
+
+/// A node as drawn.
+pub struct GeoNode {
+    /// Id.
+    pub id: String,
+    /// Drawn (x, y), m.
+    pub pos_m: [f64; 2],
+    /// How it is held.
+    pub support: SupportDto,
+}
+
+/// A member as drawn.
+pub struct GeoMember {
+    /// Id.
+    pub id: String,
+    /// End node ids.
+    pub ends: (String, String),
+}
+
+/// A mass as drawn.
+pub struct GeoMass {
+    /// Id.
+    pub id: String,
+    /// Node id.
+    pub at: String,
+    /// Mass, kg, when it parses.
+    pub kg: Option<f64>,
+}
+
+/// A slab under a floor node.
+pub struct GeoFloor {
+    /// The slab's id.
+    pub floor_id: String,
+    /// The node's position, m.
+    pub at_m: [f64; 2],
+    /// Span along x, m.
+    pub span_m: f64,
+    /// Thickness, m.
+    pub thickness_m: f64,
+}
+
+impl GeoFloor {
+    /// The slab's rectangle on screen (thickness at least 8 points so it reads).
+    pub fn rect_screen(&self, view: &View) -> Rect {
+        let left = view.to_screen(self.at_m[0] - self.span_m / 2.0, self.at_m[1]);
+        let right = view.to_screen(self.at_m[0] + self.span_m / 2.0, self.at_m[1]);
+        let t = ((self.thickness_m * view.px_per_m) as f32).max(8.0);
+        Rect::from_min_max(pos2(left.x, left.y), pos2(right.x, right.y + t))
+    }
+}
+
+/// The drawing's geometry, read from the document.
+#[derive(Default)]
+pub struct Geometry {
+    /// Nodes whose positions parse.
+    pub nodes: Vec<GeoNode>,
+    /// Members.
+    pub members: Vec<GeoMember>,
+    /// Masses.
+    pub masses: Vec<GeoMass>,
+    /// Slabs under floor nodes.
+    pub floors: Vec<GeoFloor>,
+}
+
+fn len(text: &str) -> Option<f64> {
+    parse_quantity(text, Dimension::Length, Sign::Any).ok()
+}
+
+impl Geometry {
+    /// Read the geometry of a document (items that do not parse are left out).
+    pub fn of(dto: &ScenarioDto) -> Geometry {
+        let nodes: Vec<GeoNode> = dto
+            .nodes
+            .iter()
+            .filter_map(|n| {
+                Some(GeoNode {
+                    id: n.id.clone(),
+                    pos_m: [len(&n.at.x.0)?, len(&n.at.y.0)?],
+                    support: n.support.clone(),
+                })
+            })
+            .collect();
+        let floors = nodes
+            .iter()
+            .filter_map(|n| {
+                let SupportDto::Floor(fid) = &n.support else { return None };
+                let f = dto.floors.iter().find(|f| &f.id == fid)?;
+                Some(GeoFloor {
+                    floor_id: fid.clone(),
+                    at_m: n.pos_m,
+                    span_m: len(&f.span.0.0).unwrap_or(1.0).abs(),
+                    thickness_m: len(&f.thickness.0).unwrap_or(0.15).abs(),
+                })
+            })
+            .collect();
+        Geometry {
+            members: dto.members.iter().map(|m| GeoMember { id: m.id.clone(), ends: m.ends.clone() }).collect(),
+            masses: dto
+                .masses
+                .iter()
+                .map(|m| GeoMass {
+                    id: m.id.clone(),
+                    at: m.at.clone(),
+                    kg: parse_quantity(&m.mass.0, Dimension::Mass, Sign::Positive).ok(),
+                })
+                .collect(),
+            nodes,
+            floors,
+        }
+    }
+
+    /// A node by id.
+    pub fn node(&self, id: &str) -> Option<&GeoNode> {
+        self.nodes.iter().find(|n| n.id == id)
+    }
+
+    /// The drawing's extent, m, slabs included.
+    pub fn bounds(&self) -> Option<([f64; 2], [f64; 2])> {
+        let mut pts: Vec<[f64; 2]> = self.nodes.iter().map(|n| n.pos_m).collect();
+        for f in &self.floors {
+            pts.push([f.at_m[0] - f.span_m / 2.0, f.at_m[1] - f.thickness_m]);
+            pts.push([f.at_m[0] + f.span_m / 2.0, f.at_m[1]]);
+        }
+        let first = *pts.first()?;
+        let (mut min, mut max) = (first, first);
+        for p in pts {
+            for k in 0..2 {
+                min[k] = min[k].min(p[k]);
+                max[k] = max[k].max(p[k]);
+            }
+        }
+        // room below for the masses
+        min[1] -= 0.6;
+        Some((min, max))
+    }
+}
+
+/// The block drawn for a mass, below its node.
+pub fn mass_rect(geo: &Geometry, view: &View, m: &GeoMass) -> Option<Rect> {
+    let n = geo.node(&m.at)?;
+    let p = view.to_screen(n.pos_m[0], n.pos_m[1]);
+    Some(Rect::from_center_size(p + vec2(0.0, 30.0), vec2(34.0, 20.0)))
+}
+
+fn label(painter: &Painter, at: Pos2, anchor: Align2, text: String, colour: Color32) {
+    let galley = painter.layout_no_wrap(text, FontId::proportional(12.0), colour);
+    let rect = anchor.anchor_size(at, galley.size()).expand(2.0);
+    painter.rect_filled(rect, 2.0, Color32::from_rgba_unmultiplied(0xf5, 0xf3, 0xec, 0xe0));
+    painter.galley(rect.min + vec2(2.0, 2.0), galley, colour);
+}
+
+fn draw_grid(painter: &Painter, view: &View, units: UnitSystem) {
+    let rect = view.rect;
+    painter.rect_filled(rect, 0.0, PAPER);
+    let step = view.grid_step_m(units);
+    let lo = view.to_world(rect.left_bottom());
+    let hi = view.to_world(rect.right_top());
+    let mut x = (lo[0] / step).floor() * step;
+    while x <= hi[0] {
+        let sx = view.to_screen(x, 0.0).x;
+        let c = if x.abs() < step * 1e-6 { GRID_AXIS } else { GRID };
+        painter.line_segment([pos2(sx, rect.top()), pos2(sx, rect.bottom())], Stroke::new(1.0, c));
+        x += step;
+    }
+    let mut y = (lo[1] / step).floor() * step;
+    while y <= hi[1] {
+        let sy = view.to_screen(0.0, y).y;
+        let c = if y.abs() < step * 1e-6 { GRID_AXIS } else { GRID };
+        painter.line_segment([pos2(rect.left(), sy), pos2(rect.right(), sy)], Stroke::new(1.0, c));
+        y += step;
+    }
+    // scale bar: one grid step, bottom left
+    let w = (step * view.px_per_m) as f32;
+    let a = rect.left_bottom() + vec2(16.0, -18.0);
+    let b = a + vec2(w, 0.0);
+    painter.line_segment([a, b], Stroke::new(2.0, INK));
+    for p in [a, b] {
+        painter.line_segment([p - vec2(0.0, 5.0), p + vec2(0.0, 5.0)], Stroke::new(2.0, INK));
+    }
+    painter.text(
+        b + vec2(8.0, 0.0),
+        Align2::LEFT_CENTER,
+        units.fmt(step, Shown::Length),
+        FontId::proportional(12.0),
+        INK,
+    );
+}
+
+fn hatch_over(painter: &Painter, a: Pos2, b: Pos2, colour: Color32) {
+    let d = b - a;
+    let len = d.length();
+    if len < 1.0 {
+        return;
+    }
+    let along = d / len;
+    let across = vec2(-along.y, along.x);
+    let mut s = 6.0;
+    while s < len - 4.0 {
+        let c = a + along * s;
+        painter
+            .line_segment([c - across * 7.0 - along * 3.0, c + across * 7.0 + along * 3.0], Stroke::new(2.0, colour));
+        s += 10.0;
+    }
+}
+
+fn anchor_symbol(painter: &Painter, p: Pos2, stroke: Stroke) {
+    // a solid block with three short ties above it: fixed to structure
+    painter.rect_filled(Rect::from_center_size(p, vec2(11.0, 11.0)), 1.0, INK);
+    for k in [-4.0, 0.0, 4.0] {
+        painter.line_segment([p + vec2(k - 2.0, -12.0), p + vec2(k + 2.0, -7.0)], stroke);
+    }
+    painter.line_segment([p + vec2(-8.0, -7.0), p + vec2(8.0, -7.0)], stroke);
+}
+
+fn draw_floor(painter: &Painter, view: &View, f: &GeoFloor, picked: bool) {
+    let r = f.rect_screen(view);
+    painter.rect_filled(r, 0.0, Color32::from_rgb(0xd8, 0xd3, 0xc4));
+    let step = 9.0;
+    let mut x = r.left() - r.height();
+    while x < r.right() {
+        let a = pos2(x.max(r.left()), r.bottom() - (x.max(r.left()) - x));
+        let b = pos2((x + r.height()).min(r.right()), r.bottom() - ((x + r.height()).min(r.right()) - x));
+        painter.line_segment([a, b], Stroke::new(1.0, Color32::from_rgb(0x9e, 0x97, 0x84)));
+        x += step;
+    }
+    let edge = if picked { Stroke::new(2.5, PICK) } else { Stroke::new(1.5, INK) };
+    painter.rect_stroke(r, 0.0, edge, egui::StrokeKind::Inside);
+}
+
+/// Paint everything.
+pub fn draw(
+    painter: &Painter,
+    view: &View,
+    geo: &Geometry,
+    input: &CanvasInput<'_>,
+    member_start: Option<&str>,
+    hover: Option<Pos2>,
+) {
+    let units = input.units;
+    draw_grid(painter, view, units);
+    let case = input.derived.case(input.case);
+    for f in &geo.floors {
+        draw_floor(painter, view, f, *input.selection == Selection::Floor(f.floor_id.clone()));
+        if let Some(fr) = case.and_then(|c| c.floors.iter().find(|r| r.id == f.floor_id)) {
+            let r = f.rect_screen(view);
+            let text = format!(
+                "normal force {} · deflection {} · {}",
+                units.fmt(fr.normal_force_n, Shown::Force),
+                units.fmt(fr.deflection_m, Shown::SmallLength),
+                fmt_utilisation(fr.utilisation)
+            );
+            label(painter, r.center_bottom() + vec2(0.0, 4.0), Align2::CENTER_TOP, text, INK);
+        }
+    }
+
+    // load path of the selected mass (or the mass at the selected node)
+    let path_mass = match input.selection {
+        Selection::Mass(id) => Some(id.clone()),
+        Selection::Node(n) => geo.masses.iter().find(|m| &m.at == n).map(|m| m.id.clone()),
+        _ => None,
+    };
+    let path: Vec<&str> = path_mass
+        .and_then(|m| case?.load_path.iter().find(|p| p.mass == m))
+        .map(|p| p.members.iter().map(String::as_str).collect())
+        .unwrap_or_default();
+
+    for m in &geo.members {
+        let (Some(a), Some(b)) = (geo.node(&m.ends.0), geo.node(&m.ends.1)) else { continue };
+        let (sa, sb) = (view.to_screen(a.pos_m[0], a.pos_m[1]), view.to_screen(b.pos_m[0], b.pos_m[1]));
+        let result = case.and_then(|c| c.members.iter().find(|r| r.id == m.id));
+        let picked = *input.selection == Selection::Member(m.id.clone());
+        if path.contains(&m.id.as_str()) {
+            painter.line_segment([sa, sb], Stroke::new(16.0, PATH_GLOW));
+        }
+        if picked {
+            painter.line_segment([sa, sb], Stroke::new(11.0, PICK));
+        }
+        let (col, width, state) = match result {
+            Some(r) => (colour(r.utilisation), if r.state == State::Over { 6.0 } else { 3.5 }, Some(r.state)),
+            None => (UNSOLVED, 3.0, None),
+        };
+        if state == Some(State::Slack) {
+            painter.extend(Shape::dashed_line(&[sa, sb], Stroke::new(width + 1.5, CASING), 9.0, 6.0));
+            painter.extend(Shape::dashed_line(&[sa, sb], Stroke::new(width, col), 9.0, 6.0));
+        } else {
+            painter.line_segment([sa, sb], Stroke::new(width + 2.0, CASING));
+            painter.line_segment([sa, sb], Stroke::new(width, col));
+            if state == Some(State::Over) {
+                hatch_over(painter, sa, sb, CASING);
+            }
+        }
+        if input.labels
+            && let Some(r) = result
+        {
+            let text = if r.state == State::Slack {
+                format!("{} slack", m.id)
+            } else {
+                format!("{} {}", m.id, units.fmt(r.force_n, Shown::Force))
+            };
+            let mid = sa + (sb - sa) * 0.5;
+            label(painter, mid + vec2(8.0, -8.0), Align2::LEFT_BOTTOM, text, INK);
+        }
+    }
+
+    if let (Some(start), Some(h)) = (member_start.and_then(|s| geo.node(s)), hover) {
+        let s = view.to_screen(start.pos_m[0], start.pos_m[1]);
+        painter.extend(Shape::dashed_line(&[s, h], Stroke::new(2.0, PICK), 6.0, 4.0));
+    }
+
+    for m in &geo.masses {
+        let (Some(n), Some(r)) = (geo.node(&m.at), mass_rect(geo, view, m)) else { continue };
+        let p = view.to_screen(n.pos_m[0], n.pos_m[1]);
+        painter.line_segment([p, r.center_top()], Stroke::new(1.5, INK));
+        let picked = *input.selection == Selection::Mass(m.id.clone());
+        painter.rect_filled(r, 3.0, Color32::from_rgb(0x4b, 0x4f, 0x5a));
+        if picked {
+            painter.rect_stroke(r.expand(2.0), 3.0, Stroke::new(2.5, PICK), egui::StrokeKind::Outside);
+        }
+        let text = m.kg.map_or_else(|| m.id.clone(), |kg| units.fmt(kg, Shown::Mass));
+        painter.text(r.center(), Align2::CENTER_CENTER, text, FontId::proportional(11.0), Color32::WHITE);
+    }
+
+    let stroke = Stroke::new(1.5, INK);
+    for n in &geo.nodes {
+        let p = view.to_screen(n.pos_m[0], n.pos_m[1]);
+        if *input.selection == Selection::Node(n.id.clone()) || member_start == Some(n.id.as_str()) {
+            painter.circle_stroke(p, 11.0, Stroke::new(2.5, PICK));
+        }
+        match n.support {
+            SupportDto::Anchor => anchor_symbol(painter, p, stroke),
+            SupportDto::Joint => {
+                painter.circle_filled(p, 5.5, Color32::WHITE);
+                painter.circle_stroke(p, 5.5, Stroke::new(2.0, INK));
+            }
+            SupportDto::Floor(_) => {
+                painter.add(Shape::convex_polygon(
+                    vec![p + vec2(-7.0, 0.0), p + vec2(7.0, 0.0), p + vec2(0.0, -9.0)],
+                    Color32::WHITE,
+                    Stroke::new(2.0, INK),
+                ));
+            }
+        }
+        painter.text(p + vec2(9.0, 9.0), Align2::LEFT_TOP, &n.id, FontId::proportional(11.0), CASING);
+    }
+    legend(painter, view, input.derived.solved.as_ref().map(|s| s.scenario.near_limit).unwrap_or(0.8));
+}
+
+fn legend(painter: &Painter, view: &View, near: f64) {
+    let w = 190.0;
+    let origin = view.rect.right_top() + vec2(-w - 14.0, 12.0);
+    let frame = Rect::from_min_size(origin, vec2(w, 112.0));
+    painter.rect_filled(frame, 4.0, Color32::from_rgba_unmultiplied(0xff, 0xff, 0xfb, 0xe8));
+    painter.rect_stroke(frame, 4.0, Stroke::new(1.0, GRID_AXIS), egui::StrokeKind::Inside);
+    painter.text(origin + vec2(8.0, 6.0), Align2::LEFT_TOP, "Utilisation", FontId::proportional(12.0), INK);
+    let bar = Rect::from_min_size(origin + vec2(8.0, 24.0), vec2(w - 16.0, 10.0));
+    let n = 52;
+    for i in 0..n {
+        let t0 = i as f32 / n as f32;
+        let t1 = (i + 1) as f32 / n as f32;
+        let r = Rect::from_min_max(
+            pos2(bar.left() + bar.width() * t0, bar.top()),
+            pos2(bar.left() + bar.width() * t1 + 0.5, bar.bottom()),
+        );
+        painter.rect_filled(r, 0.0, colour(f64::from(t0) * RAMP_MAX));
+    }
+    painter.rect_stroke(bar, 0.0, Stroke::new(1.0, CASING), egui::StrokeKind::Outside);
+    for u in [0.0, near, 1.0] {
+        let x = bar.left() + bar.width() * (u / RAMP_MAX) as f32;
+        painter.line_segment([pos2(x, bar.bottom()), pos2(x, bar.bottom() + 4.0)], Stroke::new(1.0, INK));
+        painter.text(
+            pos2(x, bar.bottom() + 5.0),
+            Align2::CENTER_TOP,
+            format!("{:.0}%", u * 100.0),
+            FontId::proportional(10.0),
+            INK,
+        );
+    }
+    let row = |k: f32| origin + vec2(8.0, 56.0 + k * 17.0);
+    let a = row(0.0);
+    painter.extend(Shape::dashed_line(&[a, a + vec2(30.0, 0.0)], Stroke::new(3.0, CASING), 6.0, 4.0));
+    painter.text(a + vec2(38.0, 0.0), Align2::LEFT_CENTER, "dashed: slack", FontId::proportional(11.0), INK);
+    let b = row(1.0);
+    painter.line_segment([b, b + vec2(30.0, 0.0)], Stroke::new(6.0, colour(1.2)));
+    hatch_over(painter, b, b + vec2(30.0, 0.0), CASING);
+    painter.text(b + vec2(38.0, 0.0), Align2::LEFT_CENTER, "heavy, hatched: over", FontId::proportional(11.0), INK);
+    let c = row(2.0);
+    painter.line_segment([c, c + vec2(30.0, 0.0)], Stroke::new(12.0, PATH_GLOW));
+    painter.text(c + vec2(38.0, 0.0), Align2::LEFT_CENTER, "load path of the mass", FontId::proportional(11.0), INK);
+}
+
+/// Unused-warning guard for items only tests read.
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn geometry_reads_positions_in_any_unit() {
+        let dto: ScenarioDto =
+            tautspan_core::file::parse_scenario_text(crate::DEMO_SCENARIO).map(|(d, _)| d).unwrap_or_default();
+        let g = Geometry::of(&dto);
+        assert!(g.nodes.len() >= 2);
+        assert!(g.bounds().is_some());
+    }
+}

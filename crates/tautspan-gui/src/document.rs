@@ -1,0 +1,98 @@
+//! The document the app edits: the scenario's file types (quantities as the
+//! user typed them), the file it came from, the dirty flag, the revision
+//! that tells derived results when to recompute, and undo/redo.
+
+use crate::undo::UndoStack;
+use std::path::PathBuf;
+use tautspan_core::file::ScenarioDto;
+
+/// An open scenario.
+#[derive(Debug, Clone, Default)]
+pub struct Document {
+    /// The scenario as written.
+    pub dto: ScenarioDto,
+    /// Where it is saved, if anywhere.
+    pub path: Option<PathBuf>,
+    /// Changed since opened or saved.
+    pub dirty: bool,
+    /// Bumped on every change; derived results follow it.
+    pub revision: u64,
+    /// Undo and redo.
+    pub undo: UndoStack,
+}
+
+impl Document {
+    /// A document on a scenario, clean, with no history.
+    pub fn new(dto: ScenarioDto, path: Option<PathBuf>) -> Document {
+        Document { dto, path, dirty: false, revision: 1, undo: UndoStack::default() }
+    }
+
+    /// Replace the scenario with an opened or new one (history cleared).
+    pub fn replace(&mut self, dto: ScenarioDto, path: Option<PathBuf>) {
+        self.dto = dto;
+        self.path = path;
+        self.dirty = false;
+        self.revision += 1;
+        self.undo.clear();
+    }
+
+    /// Apply an edit, recording the state before it for undo.
+    pub fn edit(&mut self, merge_key: Option<&str>, apply: impl FnOnce(&mut ScenarioDto)) {
+        let before = self.dto.clone();
+        apply(&mut self.dto);
+        if self.dto != before {
+            self.undo.record(&before, merge_key);
+            self.dirty = true;
+            self.revision += 1;
+        }
+    }
+
+    /// Step back one edit.
+    pub fn undo(&mut self) -> bool {
+        match self.undo.undo(&self.dto) {
+            Some(prev) => {
+                self.dto = prev;
+                self.dirty = true;
+                self.revision += 1;
+                true
+            }
+            None => false,
+        }
+    }
+
+    /// Step forward one edit.
+    pub fn redo(&mut self) -> bool {
+        match self.undo.redo(&self.dto) {
+            Some(next) => {
+                self.dto = next;
+                self.dirty = true;
+                self.revision += 1;
+                true
+            }
+            None => false,
+        }
+    }
+
+    /// The file name shown in the title ("untitled" before the first save).
+    pub fn display_name(&self) -> String {
+        self.path
+            .as_ref()
+            .and_then(|p| p.file_name())
+            .map_or_else(|| "untitled".to_string(), |n| n.to_string_lossy().into_owned())
+    }
+
+    /// The window title: file name, a dirty marker, the app name.
+    pub fn title(&self) -> String {
+        format!("{}{} — Tautspan", self.display_name(), if self.dirty { " •" } else { "" })
+    }
+}
+
+/// A new, empty scenario the user can build from nothing.
+pub fn blank_scenario() -> ScenarioDto {
+    ScenarioDto {
+        format: tautspan_core::file::FORMAT_WRITTEN,
+        title: "New rig".to_string(),
+        cases: vec![tautspan_core::file::CaseDto::Static { id: "hanging".to_string() }],
+        ..ScenarioDto::default()
+    }
+}

@@ -1,0 +1,404 @@
+//! The inspector: the fields of whatever is selected, unit-aware, with the
+//! validation problems of each field shown beside it. Nodes, masses and
+//! floor slabs are here; members, with their library pickers, are in
+//! `inspector_member`.
+
+use crate::command::Command;
+use crate::derived::Derived;
+use crate::document::Document;
+use crate::qty_field::{ERROR, FieldBuffers, QtyField};
+use crate::selection::Selection;
+use crate::units_display::{Shown, UnitSystem};
+use egui::{RichText, Ui};
+use tautspan_core::file::SupportDto;
+use tautspan_core::library::Edges;
+use tautspan_core::units::{Dimension, Sign};
+
+/// Everything the inspector reads.
+pub struct InspectorInput<'a> {
+    /// The document.
+    pub doc: &'a Document,
+    /// Its analysis.
+    pub derived: &'a Derived,
+    /// The selection.
+    pub selection: &'a Selection,
+    /// The case shown.
+    pub case: Option<&'a str>,
+    /// Display units.
+    pub units: UnitSystem,
+}
+
+/// Draw the inspector.
+pub fn ui(ui: &mut Ui, input: &InspectorInput<'_>, bufs: &mut FieldBuffers, out: &mut Vec<Command>) {
+    ui.heading("Inspector");
+    let dto = &input.doc.dto;
+    match input.selection {
+        Selection::None => {
+            ui.label("Select an anchor, joint, member, mass or slab on the canvas, or a row of the results.");
+            scenario_fields(ui, input, out);
+        }
+        Selection::Node(id) => match dto.nodes.iter().position(|n| &n.id == id) {
+            Some(i) => node(ui, input, i, bufs, out),
+            None => {
+                ui.label("The selected node no longer exists.");
+            }
+        },
+        Selection::Member(id) => match dto.members.iter().position(|m| &m.id == id) {
+            Some(i) => crate::inspector_member::ui(ui, input, i, bufs, out),
+            None => {
+                ui.label("The selected member no longer exists.");
+            }
+        },
+        Selection::Mass(id) => match dto.masses.iter().position(|m| &m.id == id) {
+            Some(i) => mass(ui, input, i, bufs, out),
+            None => {
+                ui.label("The selected mass no longer exists.");
+            }
+        },
+        Selection::Floor(id) => match dto.floors.iter().position(|f| &f.id == id) {
+            Some(i) => floor(ui, input, i, bufs, out),
+            None => {
+                ui.label("The selected slab no longer exists.");
+            }
+        },
+    }
+}
+
+fn scenario_fields(ui: &mut Ui, input: &InspectorInput<'_>, out: &mut Vec<Command>) {
+    ui.separator();
+    let label = ui.label("Title");
+    let mut title = input.doc.dto.title.clone();
+    if ui.text_edit_singleline(&mut title).labelled_by(label.id).changed() {
+        out.push(Command::edit_merged("title", move |d| d.title = title));
+    }
+    let label = ui.label("Notes");
+    let mut notes = input.doc.dto.notes.clone();
+    if ui.add(egui::TextEdit::multiline(&mut notes).desired_rows(3)).labelled_by(label.id).changed() {
+        out.push(Command::edit_merged("notes", move |d| d.notes = notes));
+    }
+}
+
+/// Problems of a whole item (not of one field) shown at its top.
+pub fn item_problems(ui: &mut Ui, derived: &Derived, path: &str) {
+    for p in derived.problems.iter().filter(|p| p.path == path) {
+        ui.label(RichText::new(&p.message).color(ERROR).small());
+    }
+}
+
+fn node(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, bufs: &mut FieldBuffers, out: &mut Vec<Command>) {
+    let n = &input.doc.dto.nodes[i];
+    let kind = match n.support {
+        SupportDto::Anchor => "Anchor",
+        SupportDto::Joint => "Joint",
+        SupportDto::Floor(_) => "Floor node",
+    };
+    ui.label(RichText::new(format!("{kind} {}", n.id)).strong());
+    item_problems(ui, input.derived, &format!("nodes[{i}]"));
+    egui::Grid::new("node-fields").num_columns(2).show(ui, |ui| {
+        let p = format!("nodes[{i}].at");
+        let hint = input.units.unit(Shown::Length);
+        QtyField {
+            label: "x",
+            path: format!("{p}.0"),
+            current: Some(&n.at.x),
+            dimension: Dimension::Length,
+            sign: Sign::Any,
+            optional: false,
+            hint,
+        }
+        .show(
+            ui,
+            bufs,
+            input.derived,
+            out,
+            Box::new(move |d, q| {
+                if let (Some(n), Some(q)) = (d.nodes.get_mut(i), q) {
+                    n.at.x = q
+                }
+            }),
+        );
+        QtyField {
+            label: "y",
+            path: format!("{p}.1"),
+            current: Some(&n.at.y),
+            dimension: Dimension::Length,
+            sign: Sign::Any,
+            optional: false,
+            hint,
+        }
+        .show(
+            ui,
+            bufs,
+            input.derived,
+            out,
+            Box::new(move |d, q| {
+                if let (Some(n), Some(q)) = (d.nodes.get_mut(i), q) {
+                    n.at.y = q
+                }
+            }),
+        );
+        QtyField {
+            label: "z",
+            path: format!("{p}.2"),
+            current: n.at.z.as_ref(),
+            dimension: Dimension::Length,
+            sign: Sign::Any,
+            optional: true,
+            hint: "0 (in the elevation)",
+        }
+        .show(
+            ui,
+            bufs,
+            input.derived,
+            out,
+            Box::new(move |d, q| {
+                if let Some(n) = d.nodes.get_mut(i) {
+                    n.at.z = q
+                }
+            }),
+        );
+        let label = ui.label("Held by");
+        let current = n.support.clone();
+        let mut chosen = current.clone();
+        let text = |s: &SupportDto| match s {
+            SupportDto::Joint => "free joint".to_string(),
+            SupportDto::Anchor => "anchor (fixed)".to_string(),
+            SupportDto::Floor(f) => format!("floor {f}"),
+        };
+        egui::ComboBox::from_id_salt("support")
+            .selected_text(text(&current))
+            .show_ui(ui, |ui| {
+                ui.selectable_value(&mut chosen, SupportDto::Joint, text(&SupportDto::Joint));
+                ui.selectable_value(&mut chosen, SupportDto::Anchor, text(&SupportDto::Anchor));
+                for f in &input.doc.dto.floors {
+                    let s = SupportDto::Floor(f.id.clone());
+                    let t = text(&s);
+                    ui.selectable_value(&mut chosen, s, t);
+                }
+            })
+            .response
+            .labelled_by(label.id);
+        if chosen != current {
+            out.push(Command::edit(move |d| {
+                if let Some(n) = d.nodes.get_mut(i) {
+                    n.support = chosen
+                }
+            }));
+        }
+        ui.end_row();
+    });
+    if let Some(r) = input.derived.case(input.case).and_then(|c| c.nodes.iter().find(|r| r.id == n.id)) {
+        ui.separator();
+        ui.label(format!(
+            "Solved position: x {}, y {}",
+            input.units.fmt(r.position_m[0], Shown::Length),
+            input.units.fmt(r.position_m[1], Shown::Length)
+        ));
+    }
+    if let Some(r) = input.derived.case(input.case).and_then(|c| c.supports.iter().find(|r| r.node == n.id)) {
+        ui.label(format!(
+            "Reaction: {} up, {} sideways",
+            input.units.fmt(r.reaction_n[1], Shown::Force),
+            input.units.fmt(r.reaction_n[0], Shown::Force)
+        ));
+    }
+}
+
+fn mass(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, bufs: &mut FieldBuffers, out: &mut Vec<Command>) {
+    let m = &input.doc.dto.masses[i];
+    ui.label(RichText::new(format!("Mass {} at {}", m.id, m.at)).strong());
+    egui::Grid::new("mass-fields").num_columns(2).show(ui, |ui| {
+        QtyField {
+            label: "Mass",
+            path: format!("masses[{i}].mass"),
+            current: Some(&m.mass),
+            dimension: Dimension::Mass,
+            sign: Sign::Positive,
+            optional: false,
+            hint: input.units.unit(Shown::Mass),
+        }
+        .show(
+            ui,
+            bufs,
+            input.derived,
+            out,
+            Box::new(move |d, q| {
+                if let (Some(m), Some(q)) = (d.masses.get_mut(i), q) {
+                    m.mass = q
+                }
+            }),
+        );
+    });
+    if let Some(p) = input.derived.case(input.case).and_then(|c| c.load_path.iter().find(|p| p.mass == m.id)) {
+        ui.separator();
+        ui.label(format!("Load path: {}", p.members.join(", ")));
+        ui.label(format!("Reaches: {}", p.supports.join(", ")));
+    }
+}
+
+fn floor(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, bufs: &mut FieldBuffers, out: &mut Vec<Command>) {
+    let f = &input.doc.dto.floors[i];
+    let u = input.units;
+    ui.label(RichText::new(format!("Floor slab {}", f.id)).strong());
+    item_problems(ui, input.derived, &format!("floors[{i}]"));
+    let p = |s: &str| format!("floors[{i}].{s}");
+    egui::Grid::new("floor-fields").num_columns(2).show(ui, |ui| {
+        let hint = u.unit(Shown::Length);
+        QtyField {
+            label: "Span x",
+            path: p("span.0"),
+            current: Some(&f.span.0),
+            dimension: Dimension::Length,
+            sign: Sign::Positive,
+            optional: false,
+            hint,
+        }
+        .show(
+            ui,
+            bufs,
+            input.derived,
+            out,
+            Box::new(move |d, q| {
+                if let (Some(f), Some(q)) = (d.floors.get_mut(i), q) {
+                    f.span.0 = q
+                }
+            }),
+        );
+        QtyField {
+            label: "Span z",
+            path: p("span.1"),
+            current: Some(&f.span.1),
+            dimension: Dimension::Length,
+            sign: Sign::Positive,
+            optional: false,
+            hint,
+        }
+        .show(
+            ui,
+            bufs,
+            input.derived,
+            out,
+            Box::new(move |d, q| {
+                if let (Some(f), Some(q)) = (d.floors.get_mut(i), q) {
+                    f.span.1 = q
+                }
+            }),
+        );
+        QtyField {
+            label: "Thickness",
+            path: p("thickness"),
+            current: Some(&f.thickness),
+            dimension: Dimension::Length,
+            sign: Sign::Positive,
+            optional: false,
+            hint: u.unit(Shown::SmallLength),
+        }
+        .show(
+            ui,
+            bufs,
+            input.derived,
+            out,
+            Box::new(move |d, q| {
+                if let (Some(f), Some(q)) = (d.floors.get_mut(i), q) {
+                    f.thickness = q
+                }
+            }),
+        );
+        QtyField {
+            label: "Modulus",
+            path: p("modulus"),
+            current: f.modulus.as_ref(),
+            dimension: Dimension::Pressure,
+            sign: Sign::Positive,
+            optional: true,
+            hint: "from the material",
+        }
+        .show(
+            ui,
+            bufs,
+            input.derived,
+            out,
+            Box::new(move |d, q| {
+                if let Some(f) = d.floors.get_mut(i) {
+                    f.modulus = q
+                }
+            }),
+        );
+        QtyField {
+            label: "Rated uniform load",
+            path: p("rated_uniform"),
+            current: f.rated_uniform.as_ref(),
+            dimension: Dimension::Pressure,
+            sign: Sign::Positive,
+            optional: true,
+            hint: "e.g. 2.4 kPa",
+        }
+        .show(
+            ui,
+            bufs,
+            input.derived,
+            out,
+            Box::new(move |d, q| {
+                if let Some(f) = d.floors.get_mut(i) {
+                    f.rated_uniform = q
+                }
+            }),
+        );
+        QtyField {
+            label: "Rated point load",
+            path: p("rated_point"),
+            current: f.rated_point.as_ref(),
+            dimension: Dimension::Force,
+            sign: Sign::Positive,
+            optional: true,
+            hint: "e.g. 8.9 kN",
+        }
+        .show(
+            ui,
+            bufs,
+            input.derived,
+            out,
+            Box::new(move |d, q| {
+                if let Some(f) = d.floors.get_mut(i) {
+                    f.rated_point = q
+                }
+            }),
+        );
+        let label = ui.label("Edges");
+        let mut edges = f.edges;
+        egui::ComboBox::from_id_salt("edges")
+            .selected_text(if edges == Edges::Clamped { "clamped" } else { "simply supported" })
+            .show_ui(ui, |ui| {
+                ui.selectable_value(&mut edges, Edges::SimplySupported, "simply supported");
+                ui.selectable_value(&mut edges, Edges::Clamped, "clamped");
+            })
+            .response
+            .labelled_by(label.id);
+        if edges != f.edges {
+            out.push(Command::edit(move |d| {
+                if let Some(f) = d.floors.get_mut(i) {
+                    f.edges = edges
+                }
+            }));
+        }
+        ui.end_row();
+    });
+    if let Some(r) = input.derived.case(input.case).and_then(|c| c.floors.iter().find(|r| r.id == f.id)) {
+        ui.separator();
+        ui.label(format!(
+            "Normal force {} of allowable {}",
+            u.fmt(r.normal_force_n, Shown::Force),
+            u.fmt(r.allowable_n, Shown::Force)
+        ));
+        ui.label(format!(
+            "Deflection {} of limit {}",
+            u.fmt(r.deflection_m, Shown::SmallLength),
+            u.fmt(r.deflection_limit_m, Shown::SmallLength)
+        ));
+        ui.label(format!(
+            "Utilisation {} ({})",
+            crate::units_display::fmt_utilisation(r.utilisation),
+            r.state.as_str()
+        ));
+    }
+}

@@ -1,0 +1,336 @@
+//! The inspector for a member: kind, size, library pickers (material, rope
+//! construction, rope grade, chain grade), rating, design factor with the
+//! kind's default and its source beside it, slack; then its result in the
+//! case shown, with the explanation on hover.
+
+use crate::command::Command;
+use crate::inspector::{InspectorInput, item_problems};
+use crate::qty_field::{FieldBuffers, QtyField};
+use crate::units_display::{Shown, fmt_utilisation};
+use egui::{RichText, Ui};
+use tautspan_core::file::{Qty, RatingDto};
+use tautspan_core::library::{ChainGrade, Construction, Material, MemberKind, ROPE_GRADES};
+use tautspan_core::units::{Dimension, Sign};
+
+fn picker(
+    ui: &mut Ui,
+    label: &str,
+    id: &str,
+    current: Option<&str>,
+    choices: &[&str],
+    none: &str,
+) -> Option<Option<String>> {
+    let l = ui.label(label);
+    let mut chosen: Option<String> = current.map(str::to_string);
+    egui::ComboBox::from_id_salt(id)
+        .selected_text(current.unwrap_or(none))
+        .show_ui(ui, |ui| {
+            ui.selectable_value(&mut chosen, None, none);
+            for c in choices {
+                ui.selectable_value(&mut chosen, Some((*c).to_string()), *c);
+            }
+        })
+        .response
+        .labelled_by(l.id);
+    ui.end_row();
+    (chosen.as_deref() != current).then_some(chosen)
+}
+
+/// Draw the member inspector for `members[i]`.
+pub fn ui(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, bufs: &mut FieldBuffers, out: &mut Vec<Command>) {
+    let m = &input.doc.dto.members[i];
+    let u = input.units;
+    ui.label(RichText::new(format!("Member {} ({} – {})", m.id, m.ends.0, m.ends.1)).strong());
+    item_problems(ui, input.derived, &format!("members[{i}]"));
+    item_problems(ui, input.derived, &format!("members[{i}].ends"));
+    let p = |s: &str| format!("members[{i}].{s}");
+    egui::Grid::new("member-fields").num_columns(2).show(ui, |ui| {
+        let l = ui.label("Kind");
+        let mut kind = m.kind;
+        egui::ComboBox::from_id_salt("kind")
+            .selected_text(kind.label())
+            .show_ui(ui, |ui| {
+                for k in MemberKind::ALL {
+                    ui.selectable_value(&mut kind, k, k.label());
+                }
+            })
+            .response
+            .labelled_by(l.id);
+        ui.end_row();
+        if kind != m.kind {
+            let units = input.units;
+            // a new kind takes that kind's defaults, keeping id and ends
+            out.push(Command::edit(move |d| {
+                if let Some(m) = d.members.get_mut(i) {
+                    let fresh = crate::edits::default_member(m.id.clone(), &m.ends.0, &m.ends.1, kind, units);
+                    *m = fresh;
+                }
+            }));
+        }
+        QtyField {
+            label: "Diameter",
+            path: p("diameter"),
+            current: m.diameter.as_ref(),
+            dimension: Dimension::Length,
+            sign: Sign::Positive,
+            optional: true,
+            hint: u.unit(Shown::SmallLength),
+        }
+        .show(
+            ui,
+            bufs,
+            input.derived,
+            out,
+            Box::new(move |d, q| {
+                if let Some(m) = d.members.get_mut(i) {
+                    m.diameter = q
+                }
+            }),
+        );
+        QtyField {
+            label: "Area",
+            path: p("area"),
+            current: m.area.as_ref(),
+            dimension: Dimension::Area,
+            sign: Sign::Positive,
+            optional: true,
+            hint: "from the diameter",
+        }
+        .show(
+            ui,
+            bufs,
+            input.derived,
+            out,
+            Box::new(move |d, q| {
+                if let Some(m) = d.members.get_mut(i) {
+                    m.area = q
+                }
+            }),
+        );
+        if matches!(m.kind, MemberKind::WireRope | MemberKind::Cable) {
+            let names: Vec<&str> = Construction::ALL.iter().map(|c| c.name()).collect();
+            if let Some(c) = picker(ui, "Construction", "construction", m.construction.as_deref(), &names, "none") {
+                out.push(Command::edit(move |d| {
+                    if let Some(m) = d.members.get_mut(i) {
+                        m.construction = c
+                    }
+                }));
+            }
+            let grades: Vec<String> = ROPE_GRADES.iter().map(|g| format!("{g:.0}")).collect();
+            let grades: Vec<&str> = grades.iter().map(String::as_str).collect();
+            if let Some(g) = picker(ui, "Rope grade (N/mm²)", "rope-grade", m.grade.as_deref(), &grades, "none") {
+                out.push(Command::edit(move |d| {
+                    if let Some(m) = d.members.get_mut(i) {
+                        m.grade = g
+                    }
+                }));
+            }
+        }
+        if m.kind == MemberKind::Chain {
+            let grades = [ChainGrade::Grade80.name(), ChainGrade::Grade100.name()];
+            if let Some(g) = picker(ui, "Chain grade", "chain-grade", m.grade.as_deref(), &grades, "none") {
+                out.push(Command::edit(move |d| {
+                    if let Some(m) = d.members.get_mut(i) {
+                        m.grade = g
+                    }
+                }));
+            }
+        }
+        let names: Vec<&str> = Material::ALL.iter().map(|m| m.name()).collect();
+        if let Some(mat) = picker(ui, "Material", "material", m.material.as_deref(), &names, "none") {
+            out.push(Command::edit(move |d| {
+                if let Some(m) = d.members.get_mut(i) {
+                    m.material = mat
+                }
+            }));
+        }
+        QtyField {
+            label: "Modulus",
+            path: p("modulus"),
+            current: m.modulus.as_ref(),
+            dimension: Dimension::Pressure,
+            sign: Sign::Positive,
+            optional: true,
+            hint: "from the library",
+        }
+        .show(
+            ui,
+            bufs,
+            input.derived,
+            out,
+            Box::new(move |d, q| {
+                if let Some(m) = d.members.get_mut(i) {
+                    m.modulus = q
+                }
+            }),
+        );
+        rating(ui, input, i, bufs, out);
+        design_factor(ui, input, i, out);
+        QtyField {
+            label: "Slack",
+            path: p("slack"),
+            current: m.slack.as_ref(),
+            dimension: Dimension::Length,
+            sign: Sign::Any,
+            optional: true,
+            hint: "0 (drawn length)",
+        }
+        .show(
+            ui,
+            bufs,
+            input.derived,
+            out,
+            Box::new(move |d, q| {
+                if let Some(m) = d.members.get_mut(i) {
+                    m.slack = q
+                }
+            }),
+        );
+        let l = ui.label("May go slack");
+        let mut may = m.may_go_slack;
+        if ui.checkbox(&mut may, "").labelled_by(l.id).changed() {
+            out.push(Command::edit(move |d| {
+                if let Some(m) = d.members.get_mut(i) {
+                    m.may_go_slack = may
+                }
+            }));
+        }
+        ui.end_row();
+    });
+    result(ui, input, &m.id);
+}
+
+fn rating(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, bufs: &mut FieldBuffers, out: &mut Vec<Command>) {
+    let m = &input.doc.dto.members[i];
+    let l = ui.label("Rating");
+    let kinds = ["from the library", "minimum breaking strength", "working load limit", "yield stress"];
+    let current = match &m.rating {
+        None => 0,
+        Some(RatingDto::BreakingStrength(_)) => 1,
+        Some(RatingDto::WorkingLoadLimit(_)) => 2,
+        Some(RatingDto::Yield(_)) => 3,
+    };
+    let mut chosen = current;
+    egui::ComboBox::from_id_salt("rating-kind")
+        .selected_text(kinds[current])
+        .show_ui(ui, |ui| {
+            for (k, name) in kinds.iter().enumerate() {
+                ui.selectable_value(&mut chosen, k, *name);
+            }
+        })
+        .response
+        .labelled_by(l.id);
+    ui.end_row();
+    if chosen != current {
+        let us = input.units == crate::units_display::UnitSystem::UsCustomary;
+        let f = Qty::from(if us { "4000 lbf" } else { "20 kN" });
+        let r = match chosen {
+            1 => Some(RatingDto::BreakingStrength(Qty::from(if us { "20000 lbf" } else { "90 kN" }))),
+            2 => Some(RatingDto::WorkingLoadLimit(f)),
+            3 => Some(RatingDto::Yield(Qty::from(if us { "36 ksi" } else { "235 MPa" }))),
+            _ => None,
+        };
+        out.push(Command::edit(move |d| {
+            if let Some(m) = d.members.get_mut(i) {
+                m.rating = r
+            }
+        }));
+    }
+    let (q, dim) = match &m.rating {
+        Some(RatingDto::BreakingStrength(q) | RatingDto::WorkingLoadLimit(q)) => (q, Dimension::Force),
+        Some(RatingDto::Yield(q)) => (q, Dimension::Pressure),
+        None => return,
+    };
+    let label = if dim == Dimension::Force { "Rated force" } else { "Yield stress" };
+    QtyField {
+        label,
+        path: format!("members[{i}].rating"),
+        current: Some(q),
+        dimension: dim,
+        sign: Sign::Positive,
+        optional: false,
+        hint: "",
+    }
+    .show(
+        ui,
+        bufs,
+        input.derived,
+        out,
+        Box::new(move |d, q| {
+            if let (Some(m), Some(q)) = (d.members.get_mut(i), q) {
+                m.rating = match m.rating.take() {
+                    Some(RatingDto::WorkingLoadLimit(_)) => Some(RatingDto::WorkingLoadLimit(q)),
+                    Some(RatingDto::Yield(_)) => Some(RatingDto::Yield(q)),
+                    _ => Some(RatingDto::BreakingStrength(q)),
+                };
+            }
+        }),
+    );
+}
+
+fn design_factor(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, out: &mut Vec<Command>) {
+    let m = &input.doc.dto.members[i];
+    let default = m.kind.default_design_factor();
+    let l = ui.label("Design factor");
+    ui.vertical(|ui| {
+        ui.horizontal(|ui| {
+            let mut own = m.design_factor.is_some();
+            if ui.checkbox(&mut own, "set my own").labelled_by(l.id).changed() {
+                let v = if own { Some(default.value) } else { None };
+                out.push(Command::edit(move |d| {
+                    if let Some(m) = d.members.get_mut(i) {
+                        m.design_factor = v
+                    }
+                }));
+            }
+            if let Some(mut v) = m.design_factor {
+                let r = ui
+                    .add(egui::DragValue::new(&mut v).range(1.0..=100.0).speed(0.05).max_decimals(2))
+                    .labelled_by(l.id);
+                if r.changed() {
+                    out.push(Command::edit_merged(format!("members[{i}].design_factor"), move |d| {
+                        if let Some(m) = d.members.get_mut(i) {
+                            m.design_factor = Some(v);
+                        }
+                    }));
+                }
+                if r.drag_stopped() || r.lost_focus() {
+                    out.push(Command::SealUndo);
+                }
+            }
+        });
+        let below = m.design_factor.is_some_and(|v| v < default.value);
+        let text = RichText::new(format!("default {} — {}", default.value, default.source)).small();
+        ui.label(if below { text.color(crate::qty_field::ERROR) } else { text.weak() });
+        if below {
+            ui.label(RichText::new("below the kind's default").small().color(crate::qty_field::ERROR));
+        }
+    });
+    ui.end_row();
+}
+
+fn result(ui: &mut Ui, input: &InspectorInput<'_>, member_id: &str) {
+    let Some(solved) = input.derived.solved.as_ref() else { return };
+    let Some(case) = input.derived.case(input.case) else { return };
+    let Some(r) = case.members.iter().find(|r| r.id == member_id) else { return };
+    let u = input.units;
+    ui.separator();
+    ui.label(RichText::new(format!("In case {}", case.id)).strong());
+    let resp = ui.label(format!(
+        "Force {} of allowable {} — utilisation {} ({})",
+        u.fmt(r.force_n, Shown::Force),
+        u.fmt(r.allowable_n, Shown::Force),
+        fmt_utilisation(r.utilisation),
+        r.state.as_str()
+    ));
+    resp.on_hover_text(crate::explain::member_result(solved, &case.id, member_id, u));
+    ui.label(format!("Stretch {}, sling angle {:.1}°", u.fmt(r.stretch_m, Shown::SmallLength), r.sling_angle_deg));
+    if let Some(row) = solved.analysis.comparison.iter().find(|c| c.id == member_id) {
+        if let Some(deg) = row.limits.release_deg {
+            ui.label(format!("Largest release angle inside the allowable: {deg:.1}°"));
+        }
+        if let Some(h) = row.limits.drop_height_m {
+            ui.label(format!("Largest drop height inside the allowable: {}", u.fmt(h, Shown::SmallLength)));
+        }
+    }
+}

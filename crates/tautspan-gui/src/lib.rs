@@ -1,0 +1,87 @@
+//! Tautspan's desktop app: lay out anchors, joints, members, floor slabs
+//! and masses on an elevation, see every member's force against its
+//! allowable for each case, compare the cases, and save the scenario file.
+//! All numbers come from `tautspan_core`; this crate draws and edits.
+
+mod app;
+mod app_files;
+mod canvas;
+mod canvas_draw;
+mod cases_panel;
+mod colour_ramp;
+mod command;
+pub mod core_bridge;
+mod derived;
+mod document;
+mod edits;
+mod explain;
+mod files;
+mod inspector;
+mod inspector_member;
+mod plots;
+mod prefs;
+mod qty_field;
+mod qty_text;
+mod results_table;
+mod selection;
+mod toolbar;
+mod undo;
+mod units_display;
+mod view;
+mod warnings_panel;
+
+pub use app::TautspanApp;
+pub use command::Command;
+pub use document::{Document, blank_scenario};
+pub use prefs::Prefs;
+pub use selection::{Selection, Tool};
+pub use units_display::{Shown, UnitSystem};
+pub use view::View;
+
+use std::path::PathBuf;
+
+/// The demo scenario the app opens when no file is given.
+pub const DEMO_SCENARIO: &str = include_str!("demo_fallback.ron");
+
+/// The message when there is no display to open a window on.
+pub const NO_DISPLAY: &str = "no display found; use `tautspan check FILE` for the command line";
+
+fn display_available() -> bool {
+    if !cfg!(target_os = "linux") {
+        return true;
+    }
+    ["DISPLAY", "WAYLAND_DISPLAY", "WAYLAND_SOCKET"].iter().any(|v| std::env::var_os(v).is_some_and(|s| !s.is_empty()))
+}
+
+/// Open the app on `file`, or on the built-in demo scenario when `None`.
+///
+/// # Errors
+/// When there is no display, or the window system cannot start.
+pub fn run(file: Option<PathBuf>) -> Result<(), String> {
+    if !display_available() {
+        return Err(NO_DISPLAY.to_string());
+    }
+    let options = eframe::NativeOptions {
+        viewport: egui::ViewportBuilder::default()
+            .with_title("Tautspan")
+            .with_inner_size([1400.0, 880.0])
+            .with_min_inner_size([800.0, 520.0]),
+        ..eframe::NativeOptions::default()
+    };
+    eframe::run_native(
+        "Tautspan",
+        options,
+        Box::new(move |cc| {
+            let prefs = cc.storage.and_then(|s| eframe::get_value::<Prefs>(s, prefs::STORAGE_KEY)).unwrap_or_default();
+            Ok(Box::new(TautspanApp::start(file, prefs)))
+        }),
+    )
+    .map_err(|e| {
+        let text = e.to_string();
+        if text.to_ascii_lowercase().contains("display") {
+            format!("{NO_DISPLAY} ({text})")
+        } else {
+            format!("the window could not open: {text}")
+        }
+    })
+}

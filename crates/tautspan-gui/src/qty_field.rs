@@ -1,0 +1,103 @@
+//! The unit-aware text field: the user types a quantity with its unit, the
+//! core's parser checks it as it is typed, and only text that parses reaches
+//! the document — kept exactly as typed ("0.75 in" stays "0.75 in"). Text
+//! that does not parse stays in the field with the parser's message under
+//! it, and the document keeps its last good value.
+
+use crate::command::Command;
+use crate::derived::Derived;
+use egui::{Color32, RichText, Ui};
+use std::collections::HashMap;
+use tautspan_core::file::{Qty, ScenarioDto};
+use tautspan_core::units::{Dimension, Sign, parse_quantity};
+
+/// Text being typed that does not (yet) parse, by field path.
+#[derive(Debug, Default, Clone)]
+pub struct FieldBuffers(HashMap<String, String>);
+
+impl FieldBuffers {
+    /// Forget every unfinished entry (after undo, open, new).
+    pub fn clear(&mut self) {
+        self.0.clear();
+    }
+
+    /// The unfinished text at a path, if any.
+    pub fn get(&self, path: &str) -> Option<&str> {
+        self.0.get(path).map(String::as_str)
+    }
+}
+
+/// The colour of inline errors.
+pub const ERROR: Color32 = Color32::from_rgb(0xe0, 0x5a, 0x4a);
+
+/// How a field sets its value in the document.
+pub type Setter = Box<dyn FnOnce(&mut ScenarioDto, Option<Qty>)>;
+
+/// One quantity field.
+pub struct QtyField<'a> {
+    /// Label shown beside the field (and its accessible name).
+    pub label: &'a str,
+    /// Field path in the file (`members[2].area`), for errors and undo merging.
+    pub path: String,
+    /// The value in the document.
+    pub current: Option<&'a Qty>,
+    /// Its dimension.
+    pub dimension: Dimension,
+    /// Its sign.
+    pub sign: Sign,
+    /// Empty text clears it (an optional field).
+    pub optional: bool,
+    /// Shown greyed in an empty optional field.
+    pub hint: &'a str,
+}
+
+impl QtyField<'_> {
+    /// Draw the field in a two-column grid row; push an edit when the text parses.
+    pub fn show(self, ui: &mut Ui, bufs: &mut FieldBuffers, derived: &Derived, out: &mut Vec<Command>, set: Setter) {
+        let label = ui.label(self.label);
+        let mut text =
+            bufs.get(&self.path).map_or_else(|| self.current.map(|q| q.0.clone()).unwrap_or_default(), str::to_string);
+        let before = text.clone();
+        ui.vertical(|ui| {
+            let resp = ui
+                .add(egui::TextEdit::singleline(&mut text).hint_text(self.hint).desired_width(150.0))
+                .labelled_by(label.id);
+            if resp.changed() && text != before {
+                let parsed = if self.optional && text.trim().is_empty() {
+                    Ok(None)
+                } else {
+                    parse_quantity(&text, self.dimension, self.sign).map(|_| Some(Qty(text.trim().to_string())))
+                };
+                match parsed {
+                    Ok(q) => {
+                        bufs.0.remove(&self.path);
+                        out.push(Command::Edit {
+                            merge_key: Some(self.path.clone()),
+                            apply: Box::new(move |d| {
+                                set(d, q);
+                                None
+                            }),
+                        });
+                    }
+                    Err(_) => {
+                        bufs.0.insert(self.path.clone(), text.clone());
+                    }
+                }
+            }
+            if resp.lost_focus() {
+                out.push(Command::SealUndo);
+            }
+            let typing = bufs.get(&self.path).map(str::to_string);
+            if let Some(t) = typing {
+                if let Err(e) = parse_quantity(&t, self.dimension, self.sign) {
+                    ui.label(RichText::new(e.to_string()).color(ERROR).small());
+                }
+            } else {
+                for p in derived.problems_at(&self.path) {
+                    ui.label(RichText::new(&p.message).color(ERROR).small());
+                }
+            }
+        });
+        ui.end_row();
+    }
+}

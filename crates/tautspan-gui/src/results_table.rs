@@ -1,0 +1,151 @@
+//! The results table: every member in every case — force, allowable,
+//! utilisation, state, sling angle and the limits (largest release angle,
+//! largest drop height) — sortable by any column; a click on a member
+//! selects it, hovering a row explains the numbers.
+
+use crate::command::Command;
+use crate::derived::Derived;
+use crate::selection::Selection;
+use crate::units_display::{Shown, UnitSystem, fmt_utilisation};
+use egui::{RichText, Ui};
+use tautspan_core::analysis::State;
+
+/// The column the table is sorted by.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Default)]
+pub enum Column {
+    /// Member id, then file order of cases.
+    #[default]
+    Member,
+    /// Case id.
+    Case,
+    /// Force.
+    Force,
+    /// Allowable.
+    Allowable,
+    /// Utilisation.
+    Utilisation,
+    /// State.
+    State,
+}
+
+/// Sorting of the table.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Default)]
+pub struct Sort {
+    /// Column.
+    pub column: Column,
+    /// Descending.
+    pub descending: bool,
+}
+
+const COLUMNS: [(&str, Column, f32); 6] = [
+    ("Member", Column::Member, 110.0),
+    ("Case", Column::Case, 90.0),
+    ("Force", Column::Force, 100.0),
+    ("Allowable", Column::Allowable, 100.0),
+    ("Utilisation", Column::Utilisation, 90.0),
+    ("State", Column::State, 70.0),
+];
+
+fn state_rank(s: State) -> u8 {
+    match s {
+        State::Over => 3,
+        State::Near => 2,
+        State::Slack => 1,
+        State::Ok => 0,
+    }
+}
+
+/// Draw the table.
+pub fn ui(
+    ui: &mut Ui,
+    derived: &Derived,
+    selection: &Selection,
+    sort: &mut Sort,
+    units: UnitSystem,
+    out: &mut Vec<Command>,
+) {
+    let Some(solved) = derived.solved.as_ref() else {
+        ui.label("No results: the scenario has problems (listed beside the fields and in the warnings).");
+        return;
+    };
+    let a = &solved.analysis;
+    // (case index, member index)
+    let mut rows: Vec<(usize, usize)> =
+        a.cases.iter().enumerate().flat_map(|(c, cr)| (0..cr.members.len()).map(move |m| (c, m))).collect();
+    let key = |&(c, m): &(usize, usize)| &a.cases[c].members[m];
+    rows.sort_by(|x, y| {
+        let (rx, ry) = (key(x), key(y));
+        let o = match sort.column {
+            Column::Member => x.1.cmp(&y.1).then(x.0.cmp(&y.0)),
+            Column::Case => x.0.cmp(&y.0).then(x.1.cmp(&y.1)),
+            Column::Force => rx.force_n.total_cmp(&ry.force_n),
+            Column::Allowable => rx.allowable_n.total_cmp(&ry.allowable_n),
+            Column::Utilisation => rx.utilisation.total_cmp(&ry.utilisation),
+            Column::State => {
+                state_rank(rx.state).cmp(&state_rank(ry.state)).then(rx.utilisation.total_cmp(&ry.utilisation))
+            }
+        };
+        if sort.descending { o.reverse() } else { o }
+    });
+    ui.horizontal(|ui| {
+        for (name, col, w) in COLUMNS {
+            let arrow = if sort.column == col { if sort.descending { " ▼" } else { " ▲" } } else { "" };
+            let b = ui.add_sized([w, 20.0], egui::Button::new(RichText::new(format!("{name}{arrow}")).strong()));
+            if b.on_hover_text(format!("Sort by {}", name.to_lowercase())).clicked() {
+                if sort.column == col {
+                    sort.descending = !sort.descending;
+                } else {
+                    *sort = Sort {
+                        column: col,
+                        descending: matches!(col, Column::Force | Column::Utilisation | Column::State),
+                    };
+                }
+            }
+        }
+        ui.add_sized([160.0, 20.0], egui::Label::new(RichText::new("Limits").strong()));
+    });
+    ui.separator();
+    let row_h = 18.0;
+    egui::ScrollArea::vertical().auto_shrink([false, false]).show_rows(ui, row_h, rows.len(), |ui, range| {
+        for &(c, m) in &rows[range] {
+            let case = &a.cases[c];
+            let r = &case.members[m];
+            let resp = ui.horizontal(|ui| {
+                let picked = *selection == Selection::Member(r.id.clone());
+                if ui.add_sized([COLUMNS[0].2, row_h], egui::Button::selectable(picked, r.id.as_str())).clicked() {
+                    out.push(Command::Select(Selection::Member(r.id.clone())));
+                    out.push(Command::ShowCase(case.id.clone()));
+                }
+                ui.add_sized([COLUMNS[1].2, row_h], egui::Label::new(case.id.as_str()));
+                ui.add_sized([COLUMNS[2].2, row_h], egui::Label::new(units.fmt(r.force_n, Shown::Force)));
+                ui.add_sized([COLUMNS[3].2, row_h], egui::Label::new(units.fmt(r.allowable_n, Shown::Force)));
+                ui.add_sized([COLUMNS[4].2, row_h], egui::Label::new(fmt_utilisation(r.utilisation)));
+                let st = RichText::new(r.state.as_str());
+                let st = if r.state == State::Over { st.strong().color(crate::qty_field::ERROR) } else { st };
+                ui.add_sized([COLUMNS[5].2, row_h], egui::Label::new(st));
+                let limits = a.comparison.iter().find(|row| row.id == r.id).map(|row| &row.limits);
+                let text = limits
+                    .map(|l| {
+                        let mut parts = Vec::new();
+                        if case.kind == "swing"
+                            && let Some(d) = l.release_deg
+                        {
+                            parts.push(format!("release ≤ {d:.1}°"));
+                        }
+                        if (case.kind == "drop" || case.kind == "sudden")
+                            && let Some(h) = l.drop_height_m
+                        {
+                            parts.push(format!("drop ≤ {}", units.fmt(h, Shown::SmallLength)));
+                        }
+                        parts.join(", ")
+                    })
+                    .unwrap_or_default();
+                ui.add_sized([160.0, row_h], egui::Label::new(text));
+            });
+            resp.response.on_hover_ui(|ui| {
+                ui.set_max_width(520.0);
+                ui.label(crate::explain::member_result(solved, &case.id, &r.id, units));
+            });
+        }
+    });
+}
