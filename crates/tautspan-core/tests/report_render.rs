@@ -25,7 +25,7 @@ fn chromium() -> Option<PathBuf> {
 fn temp_dir(name: &str) -> PathBuf {
     let nanos = std::time::SystemTime::now().duration_since(std::time::UNIX_EPOCH).map_or(0, |d| d.as_nanos());
     let dir = std::env::temp_dir().join(format!("tautspan-report-{name}-{}-{nanos}", std::process::id()));
-    std::fs::create_dir_all(&dir).unwrap();
+    std::fs::create_dir_all(&dir).unwrap_or_else(|e| panic!("cannot create {}: {e}", dir.display()));
     dir
 }
 
@@ -69,6 +69,15 @@ fn print_to_pdf(exe: &Path, html_path: &Path, pdf_path: &Path, profile: &Path) -
     }
 }
 
+/// Write `bytes` to `path`, or create the directory `path` when `None`.
+fn write(path: &Path, bytes: Option<&[u8]>) {
+    let r = match bytes {
+        Some(b) => std::fs::write(path, b),
+        None => std::fs::create_dir_all(path),
+    };
+    r.unwrap_or_else(|e| panic!("cannot write {}: {e}", path.display()));
+}
+
 fn render(name: &str, text: &str) {
     let Some(exe) = chromium() else {
         if std::env::var("TAUTSPAN_REQUIRE_CHROMIUM").is_ok_and(|v| v == "1") {
@@ -81,18 +90,20 @@ fn render(name: &str, text: &str) {
     let doc = html(&scenario, &analyse(&scenario), "2025-03-14");
     let dir = temp_dir(name);
     let (html_path, pdf_path, profile) = (dir.join("r.html"), dir.join("r.pdf"), dir.join("profile"));
-    std::fs::create_dir_all(&profile).unwrap();
-    std::fs::write(&html_path, &doc).unwrap();
+    write(&profile, None);
+    write(&html_path, Some(doc.as_bytes()));
     let result = print_to_pdf(&exe, &html_path, &pdf_path, &profile);
     let pdf = std::fs::read(&pdf_path).unwrap_or_default();
     if let Some(keep) = std::env::var_os("TAUTSPAN_REPORT_KEEP") {
         let keep = PathBuf::from(keep);
-        std::fs::create_dir_all(&keep).unwrap();
-        std::fs::write(keep.join(format!("{name}.html")), &doc).unwrap();
-        std::fs::write(keep.join(format!("{name}.pdf")), &pdf).unwrap();
+        write(&keep, None);
+        write(&keep.join(format!("{name}.html")), Some(doc.as_bytes()));
+        write(&keep.join(format!("{name}.pdf")), Some(&pdf));
     }
     let _ = std::fs::remove_dir_all(&dir);
-    result.unwrap();
+    if let Err(e) = result {
+        panic!("{e}");
+    }
     assert!(pdf.len() > 1000, "PDF of {} bytes", pdf.len());
     assert!(pdf.starts_with(b"%PDF"), "not a PDF");
 }

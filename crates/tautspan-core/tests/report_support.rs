@@ -99,7 +99,7 @@ pub fn assert_well_formed(doc: &str) {
             assert!(!name.is_empty(), "bad tag <{tag}> at {}", offset + lt);
             check_attributes(tag, offset + lt);
             if name == "style" {
-                let close = after.find("</style>").expect("style closed");
+                let Some(close) = after.find("</style>") else { panic!("<style> not closed") };
                 assert!(!after[gt + 1..close].contains('<'), "markup inside <style>");
                 consumed = lt + close + "</style>".len();
             } else {

@@ -56,7 +56,7 @@ pub fn ui(
                 if let Some(s) = state {
                     ui.label(RichText::new(s).small().weak());
                 }
-                if ui.small_button("✕").on_hover_text(format!("Remove case {id}")).clicked() {
+                if ui.small_button("Remove").on_hover_text(format!("Remove case {id}")).clicked() {
                     out.push(Command::edit(move |d| d.cases.retain(|c| c.id() != id)));
                 }
             });

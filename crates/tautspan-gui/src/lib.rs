@@ -30,7 +30,7 @@ mod units_display;
 mod view;
 mod warnings_panel;
 
-pub use app::TautspanApp;
+pub use app::{Message, Pending, TautspanApp};
 pub use command::Command;
 pub use document::{Document, blank_scenario};
 pub use prefs::Prefs;

@@ -89,7 +89,7 @@ pub fn ui(
     });
     ui.horizontal(|ui| {
         for (name, col, w) in COLUMNS {
-            let arrow = if sort.column == col { if sort.descending { " ▼" } else { " ▲" } } else { "" };
+            let arrow = if sort.column == col { if sort.descending { " v" } else { " ^" } } else { "" };
             let b = ui.add_sized([w, 20.0], egui::Button::new(RichText::new(format!("{name}{arrow}")).strong()));
             if b.on_hover_text(format!("Sort by {}", name.to_lowercase())).clicked() {
                 if sort.column == col {

@@ -112,5 +112,5 @@ pub fn ui(ui: &mut Ui, input: ToolbarInput<'_>, out: &mut Vec<Command>) {
         }
         ui.checkbox(&mut input.view.snap, "Snap to grid");
     });
-    ui.label(RichText::new(format!("⚠ {}", tautspan_core::CAUTION)).color(Color32::from_rgb(0xe8, 0xb0, 0x3a)));
+    ui.label(RichText::new(format!("Caution: {}", tautspan_core::CAUTION)).color(Color32::from_rgb(0xe8, 0xb0, 0x3a)));
 }

@@ -5,6 +5,9 @@
 use crate::units_display::{Shown, UnitSystem};
 use egui::{Pos2, Rect, Vec2, pos2};
 
+/// Width kept free for the legend when fitting, points.
+const LEGEND_ROOM: f64 = 220.0;
+
 /// Pan and zoom of the canvas.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct View {
@@ -70,10 +73,13 @@ impl View {
     pub fn fit(&mut self, min: [f64; 2], max: [f64; 2]) {
         let w = (max[0] - min[0]).max(0.5);
         let h = (max[1] - min[1]).max(0.5);
-        let sx = f64::from(self.rect.width()) * 0.8 / w;
+        // the legend takes the top right corner: fit into the room left of it
+        let room = (f64::from(self.rect.width()) - LEGEND_ROOM).max(f64::from(self.rect.width()) * 0.5);
+        let sx = room * 0.85 / w;
         let sy = f64::from(self.rect.height()) * 0.75 / h;
         self.px_per_m = sx.min(sy).clamp(2.0, 20_000.0);
-        self.centre_m = [(min[0] + max[0]) / 2.0, (min[1] + max[1]) / 2.0];
+        let shift_m = (f64::from(self.rect.width()) - room) / 2.0 / self.px_per_m;
+        self.centre_m = [(min[0] + max[0]) / 2.0 + shift_m, (min[1] + max[1]) / 2.0];
         self.fit_pending = false;
     }
 

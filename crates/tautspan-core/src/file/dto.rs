@@ -38,6 +38,12 @@ impl Serialize for Qty {
 
 struct QtyVisitor;
 
+fn bare<E: de::Error>(v: impl fmt::Display) -> E {
+    E::custom(format!(
+        "bare number {v} where a quantity belongs: write the number and its unit in quotes, e.g. \"{v} kg\" for a mass or \"{v} mm\" for a length"
+    ))
+}
+
 impl Visitor<'_> for QtyVisitor {
     type Value = Qty;
     fn expecting(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
@@ -50,19 +56,13 @@ impl Visitor<'_> for QtyVisitor {
         Ok(Qty(v))
     }
     fn visit_f64<E: de::Error>(self, v: f64) -> Result<Qty, E> {
-        Err(E::custom(format!(
-            "bare number {v} where a quantity belongs: write it with its unit in quotes, e.g. \"{v} m\""
-        )))
+        Err(bare(v))
     }
     fn visit_i64<E: de::Error>(self, v: i64) -> Result<Qty, E> {
-        Err(E::custom(format!(
-            "bare number {v} where a quantity belongs: write it with its unit in quotes, e.g. \"{v} m\""
-        )))
+        Err(bare(v))
     }
     fn visit_u64<E: de::Error>(self, v: u64) -> Result<Qty, E> {
-        Err(E::custom(format!(
-            "bare number {v} where a quantity belongs: write it with its unit in quotes, e.g. \"{v} m\""
-        )))
+        Err(bare(v))
     }
 }
 

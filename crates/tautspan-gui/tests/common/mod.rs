@@ -1,0 +1,53 @@
+//! Shared helpers of the app tests: a harness on the whole app, clicks at
+//! world positions on the canvas, typing into a labelled field.
+
+#![allow(dead_code)]
+
+use egui::accesskit::Role;
+use egui_kittest::Harness;
+use egui_kittest::kittest::Queryable;
+use tautspan_gui::{Document, Prefs, TautspanApp, blank_scenario};
+
+pub fn harness(app: TautspanApp) -> Harness<'static, TautspanApp> {
+    let mut h = Harness::builder().with_size([1400.0, 900.0]).build_ui_state(|ui, app: &mut TautspanApp| app.frame(ui), app);
+    h.run();
+    h
+}
+
+pub fn blank_app() -> TautspanApp {
+    let mut app = TautspanApp::with_document(Document::new(blank_scenario(), None), Prefs::default());
+    app.files.native = false;
+    app
+}
+
+pub fn demo_app() -> TautspanApp {
+    let mut app = TautspanApp::demo(Prefs::default());
+    app.files.native = false;
+    app
+}
+
+/// Click the canvas at a world point (m).
+pub fn click_world(h: &mut Harness<'_, TautspanApp>, x_m: f64, y_m: f64) {
+    let p = h.state().view.to_screen(x_m, y_m);
+    h.event(egui::Event::PointerMoved(p));
+    h.run();
+    h.event(egui::Event::PointerButton { pos: p, button: egui::PointerButton::Primary, pressed: true, modifiers: egui::Modifiers::NONE });
+    h.event(egui::Event::PointerButton { pos: p, button: egui::PointerButton::Primary, pressed: false, modifiers: egui::Modifiers::NONE });
+    h.run();
+}
+
+/// Replace the text of the text field labelled `label`.
+pub fn type_into(h: &mut Harness<'_, TautspanApp>, label: &str, text: &str) {
+    h.get_by_role_and_label(Role::TextInput, label).focus();
+    h.run();
+    h.key_press_modifiers(egui::Modifiers::COMMAND, egui::Key::A);
+    h.run();
+    h.get_by_role_and_label(Role::TextInput, label).type_text(text);
+    h.run();
+}
+
+/// Click a button by its exact label.
+pub fn click(h: &mut Harness<'_, TautspanApp>, label: &str) {
+    h.get_by_label(label).click();
+    h.run();
+}

@@ -1,0 +1,103 @@
+//! Files and units as a user meets them: the SI / US customary switch
+//! changes the displayed numbers; a broken file opens nothing, shows where
+//! it is broken and keeps the scenario that was open; a saved file opens
+//! back to the same scenario and the same numbers; unsaved changes are
+//! guarded.
+
+mod common;
+
+use common::{click, demo_app, harness, type_into};
+use egui_kittest::kittest::Queryable;
+use tautspan_gui::{Shown, UnitSystem};
+
+fn temp_dir(name: &str) -> std::path::PathBuf {
+    let d = std::env::temp_dir().join(format!("tautspan-gui-{name}-{}", std::process::id()));
+    let _ = std::fs::remove_dir_all(&d);
+    std::fs::create_dir_all(&d).unwrap_or_else(|e| panic!("{e}"));
+    d
+}
+
+#[test]
+fn the_unit_switch_changes_the_displayed_text() {
+    let mut h = harness(demo_app());
+    let force = h.state().derived.solved.as_ref().map(|s| s.analysis.cases[0].members[0].force_n).unwrap_or_default();
+    let si = UnitSystem::Si.fmt(force, Shown::Force);
+    let us = UnitSystem::UsCustomary.fmt(force, Shown::Force);
+    assert!(si.ends_with("kN") && us.ends_with("lbf"));
+    assert!(h.query_all_by_label(&si).count() >= 1, "SI shows {si}");
+    click(&mut h, "US customary");
+    assert_eq!(h.state().prefs.units, UnitSystem::UsCustomary);
+    assert!(h.query_all_by_label(&us).count() >= 1, "US customary shows {us}");
+    assert_eq!(h.query_all_by_label(&si).count(), 0, "no SI force left in the table");
+    assert!(!h.state().doc.dirty, "the display units are not an edit of the scenario");
+}
+
+#[test]
+fn a_broken_file_shows_the_error_and_keeps_the_open_scenario() {
+    let dir = temp_dir("broken");
+    let path = dir.join("broken.ron");
+    let text = "Scenario(\n    format: 1,\n    title: \"broken\",\n    nodes: [ Node(id: \"A1\", at: (0, \"6 m\"), support: Anchor) ],\n)\n";
+    std::fs::write(&path, text).unwrap_or_else(|e| panic!("{e}"));
+    let mut h = harness(demo_app());
+    let before = h.state().doc.dto.clone();
+    click(&mut h, "File");
+    click(&mut h, "Open…  (Ctrl+O)");
+    type_into(&mut h, "Path", &path.display().to_string());
+    click(&mut h, "Open");
+    assert_eq!(h.state().doc.dto, before, "the open scenario is kept");
+    let shown = h.query_by_label_contains("Nothing opened").map(|n| n.value().unwrap_or_default());
+    assert!(shown.is_some(), "the error is shown");
+    let message = match &h.state().message {
+        Some(tautspan_gui::Message::Error(m)) => m.clone(),
+        other => panic!("expected an error, got {other:?}"),
+    };
+    assert!(message.contains("broken.ron:4:"), "names the file and line: {message}");
+    assert!(message.contains("bare number"), "says what is wrong: {message}");
+    let _ = std::fs::remove_dir_all(&dir);
+}
+
+#[test]
+fn save_then_open_round_trips_and_unsaved_changes_are_guarded() {
+    let dir = temp_dir("roundtrip");
+    let path = dir.join("rig.ron");
+    let mut h = harness(demo_app());
+    h.state_mut().selection = tautspan_gui::Selection::Mass("load".to_string());
+    h.run();
+    type_into(&mut h, "Mass", "0.5 t");
+    assert!(h.state().doc.dirty);
+    click(&mut h, "Select");
+    h.key_press_modifiers(egui::Modifiers::COMMAND | egui::Modifiers::SHIFT, egui::Key::S);
+    h.run();
+    type_into(&mut h, "Path", &path.display().to_string());
+    click(&mut h, "Save");
+    assert!(path.exists(), "saved");
+    assert!(!h.state().doc.dirty, "clean after saving");
+    assert_eq!(h.state().doc.path.as_deref(), Some(path.as_path()));
+    let saved = h.state().doc.dto.clone();
+    let forces: Vec<f64> = h.state().derived.solved.as_ref().map(|s| s.analysis.cases[0].members.iter().map(|m| m.force_n).collect()).unwrap_or_default();
+
+    // the file reads back through the core exactly as it was in the app
+    let text = std::fs::read_to_string(&path).unwrap_or_else(|e| panic!("{e}"));
+    let loaded = tautspan_core::model::load_scenario(&text).unwrap_or_else(|e| panic!("{e}"));
+    assert_eq!(loaded.dto, saved);
+    assert!(text.contains("\"0.5 t\""), "the unit typed is kept in the file");
+
+    // start a new scenario, change it, then open the saved file: the app asks first
+    click(&mut h, "File");
+    click(&mut h, "New  (Ctrl+N)");
+    assert_eq!(h.state().doc.dto.title, "New rig", "New went through: nothing was unsaved");
+    type_into(&mut h, "Title", "changed");
+    assert!(h.state().doc.dirty);
+    click(&mut h, "File");
+    click(&mut h, "Open…  (Ctrl+O)");
+    assert!(h.state().pending.is_some(), "asks about the unsaved changes");
+    click(&mut h, "Discard changes");
+    type_into(&mut h, "Path", &path.display().to_string());
+    click(&mut h, "Open");
+    assert_eq!(h.state().doc.dto, saved, "the saved scenario is back");
+    h.run();
+    let again: Vec<f64> = h.state().derived.solved.as_ref().map(|s| s.analysis.cases[0].members.iter().map(|m| m.force_n).collect()).unwrap_or_default();
+    assert_eq!(again, forces, "same numbers");
+    assert_eq!(h.state().prefs.recent.first(), Some(&path), "listed in recent files");
+    let _ = std::fs::remove_dir_all(&dir);
+}
