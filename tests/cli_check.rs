@@ -1,6 +1,8 @@
 //! End-to-end tests of the `tautspan` binary: run it on the example
 //! scenarios and on broken files, read stdout, stderr and the exit code.
 
+#![allow(clippy::expect_used, clippy::unwrap_used, reason = "test helpers fail loudly on broken fixtures")]
+
 use std::path::{Path, PathBuf};
 use std::process::{Command, Output};
 

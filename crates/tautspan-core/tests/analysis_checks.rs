@@ -2,6 +2,8 @@
 //! model → network → solver → checks): closed forms, published factors,
 //! hand calculations of allowables, and one scenario per warning and state.
 
+#![allow(clippy::expect_used, clippy::unwrap_used, reason = "test helpers fail loudly on broken fixtures")]
+
 use tautspan_core::analysis::{Analysis, State, analyse};
 use tautspan_core::file::{CaseDto, Qty};
 use tautspan_core::model::{build, load_scenario};

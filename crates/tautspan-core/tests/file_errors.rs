@@ -2,6 +2,8 @@
 //! right line and field, never a panic; example files round-trip; random
 //! bytes and mutated files never panic or hang the parser.
 
+#![allow(clippy::expect_used, clippy::unwrap_used, reason = "test helpers fail loudly on broken fixtures")]
+
 use proptest::prelude::*;
 use tautspan_core::file::{parse_scenario_text, write_scenario_text};
 use tautspan_core::model::load_scenario;

@@ -60,6 +60,7 @@ struct Solved {
     eq: Equilibrium,
 }
 
+#[expect(clippy::too_many_arguments, reason = "the scenario, its network, allowables and solver travel together through one call")]
 fn solve_case(
     s: &Scenario,
     net: &Network,
@@ -225,7 +226,7 @@ pub fn analyse(s: &Scenario) -> Analysis {
     }
 }
 
-#[allow(clippy::too_many_arguments)]
+#[expect(clippy::too_many_arguments, reason = "the scenario, its network, allowables and solver travel together through one call")]
 fn run_case(
     s: &Scenario,
     net: &Network,
@@ -361,7 +362,7 @@ fn dynamic_warnings(
     w
 }
 
-#[allow(clippy::too_many_arguments)]
+#[expect(clippy::too_many_arguments, reason = "the scenario, its network, allowables and solver travel together through one call")]
 fn comparison(
     s: &Scenario,
     allow: &Allowables,

@@ -25,9 +25,11 @@ fn factor(symbol: &str) -> f64 {
     unit(symbol).map_or(1.0, |u| u.to_si)
 }
 
-/// `value` (SI) written in the unit `symbol` (file spelling), shown as `shown`.
+/// `value` (SI) written in the unit `symbol` (file spelling), shown as
+/// `shown`. Number and unit are joined by a no-break space, so a narrow
+/// table column never splits `12.6 kN`.
 fn write(value_si: f64, symbol: &str, shown: &str, digits: usize) -> String {
-    format!("{} {shown}", format_number(value_si / factor(symbol), digits))
+    format!("{}\u{a0}{shown}", format_number(value_si / factor(symbol), digits))
 }
 
 impl UnitSystem {
@@ -60,7 +62,7 @@ impl UnitSystem {
     pub fn spring(self, n_per_m: f64) -> String {
         let (f, l) = (self.pick("kN", "kip"), self.pick("mm", "in"));
         let per = factor(f) / factor(l);
-        format!("{} {f}/{l}", format_number(n_per_m / per, INPUT_DIGITS))
+        format!("{}\u{a0}{f}/{l}", format_number(n_per_m / per, INPUT_DIGITS))
     }
 
     /// A layout length or position (m or ft).
@@ -145,7 +147,7 @@ pub fn number(value: f64) -> String {
 
 /// A utilisation as a percentage, three significant digits.
 pub fn percent(utilisation: f64) -> String {
-    format!("{} %", format_number(utilisation * 100.0, RESULT_DIGITS))
+    format!("{}\u{a0}%", format_number(utilisation * 100.0, RESULT_DIGITS))
 }
 
 /// An angle in degrees, three significant digits.
@@ -160,11 +162,11 @@ mod tests {
     // Exact factors: 1 lbf = 4.4482216152605 N, 1 in = 25.4 mm (NIST SP 811).
     #[test]
     fn formats_both_systems() {
-        assert_eq!(UnitSystem::Si.force(18_140.0), "18.1 kN");
-        assert_eq!(UnitSystem::UsCustomary.force(4.448_221_615_260_5), "1 lbf");
-        assert_eq!(UnitSystem::Si.area(64.7e-6), "64.7 mm²");
-        assert_eq!(UnitSystem::UsCustomary.small_length(0.0254), "1 in");
-        assert_eq!(UnitSystem::Si.spring(2.0e6), "2 kN/mm");
-        assert_eq!(percent(0.8766), "87.7 %");
+        assert_eq!(UnitSystem::Si.force(18_140.0), "18.1\u{a0}kN");
+        assert_eq!(UnitSystem::UsCustomary.force(4.448_221_615_260_5), "1\u{a0}lbf");
+        assert_eq!(UnitSystem::Si.area(64.7e-6), "64.7\u{a0}mm²");
+        assert_eq!(UnitSystem::UsCustomary.small_length(0.0254), "1\u{a0}in");
+        assert_eq!(UnitSystem::Si.spring(2.0e6), "2\u{a0}kN/mm");
+        assert_eq!(percent(0.8766), "87.7\u{a0}%");
     }
 }
