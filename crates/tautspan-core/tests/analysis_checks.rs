@@ -292,3 +292,22 @@ fn release_limit_inverts_the_swing_formula() {
     let expected = ((3.0 - factor) / 2.0).acos().to_degrees();
     assert!(rel(r, expected) < 1e-5, "{r} vs {expected}");
 }
+
+// The release curve of a single plumb line is the rigid-line peak
+// m g (3 − 2 cos θ0) at every angle (1e-9: the plumb line's force does not
+// depend on its stretch); the single-line swing ends at m g cos θ0 at the
+// turning points and peaks at the lowest point.
+#[test]
+fn release_curve_follows_the_swing_formula() {
+    use tautspan_core::analysis::{release_curve, single_line_swing};
+    let l = load_scenario(&single_line(STEEL_LINE, "300 kg", r#"Static(id: "s")"#)).expect("load");
+    let angles = [0.0, 30.0, 45.0, 60.0, 90.0];
+    let c = release_curve(&l.scenario, 0, &angles).expect("curve");
+    assert_eq!(c.release_deg.len(), angles.len());
+    for (deg, f) in c.release_deg.iter().zip(&c.member_force_n) {
+        let expected = 300.0 * G * (3.0 - 2.0 * deg.to_radians().cos());
+        assert!(rel(f[0], expected) < 1e-9, "{deg}: {} vs {expected}", f[0]);
+    }
+    let s = single_line_swing(60.0, 5);
+    assert!((s[0].1 - 0.5).abs() < 1e-12 && (s[2].1 - 2.0).abs() < 1e-12 && (s[4].1 - 0.5).abs() < 1e-12);
+}

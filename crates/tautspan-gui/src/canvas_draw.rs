@@ -12,6 +12,8 @@ use crate::view::View;
 use egui::{Align2, Color32, FontId, Painter, Pos2, Rect, Shape, Stroke, pos2, vec2};
 use tautspan_core::analysis::State;
 use tautspan_core::file::{ScenarioDto, SupportDto};
+use std::collections::HashMap;
+use tautspan_core::analysis::MemberResult;
 use tautspan_core::units::{Dimension, Sign, parse_quantity};
 
 const PAPER: Color32 = Color32::from_rgb(0xf5, 0xf3, 0xec);
@@ -84,6 +86,8 @@ pub struct Geometry {
     pub masses: Vec<GeoMass>,
     /// Slabs under floor nodes.
     pub floors: Vec<GeoFloor>,
+    /// Node index by id.
+    index: HashMap<String, usize>,
 }
 
 fn len(text: &str) -> Option<f64> {
@@ -117,7 +121,9 @@ impl Geometry {
                 })
             })
             .collect();
+        let index = nodes.iter().enumerate().map(|(i, n)| (n.id.clone(), i)).collect();
         Geometry {
+            index,
             members: dto.members.iter().map(|m| GeoMember { id: m.id.clone(), ends: m.ends.clone() }).collect(),
             masses: dto
                 .masses
@@ -135,7 +141,7 @@ impl Geometry {
 
     /// A node by id.
     pub fn node(&self, id: &str) -> Option<&GeoNode> {
-        self.nodes.iter().find(|n| n.id == id)
+        self.index.get(id).and_then(|&i| self.nodes.get(i))
     }
 
     /// The drawing's extent, m, slabs included.
@@ -288,10 +294,11 @@ pub fn draw(
         .map(|p| p.members.iter().map(String::as_str).collect())
         .unwrap_or_default();
 
+    let results: HashMap<&str, &MemberResult> = case.map(|c| c.members.iter().map(|r| (r.id.as_str(), r)).collect()).unwrap_or_default();
     for m in &geo.members {
         let (Some(a), Some(b)) = (geo.node(&m.ends.0), geo.node(&m.ends.1)) else { continue };
         let (sa, sb) = (view.to_screen(a.pos_m[0], a.pos_m[1]), view.to_screen(b.pos_m[0], b.pos_m[1]));
-        let result = case.and_then(|c| c.members.iter().find(|r| r.id == m.id));
+        let result = results.get(m.id.as_str()).copied();
         let picked = *input.selection == Selection::Member(m.id.clone());
         if path.contains(&m.id.as_str()) {
             painter.line_segment([sa, sb], Stroke::new(16.0, PATH_GLOW));

@@ -1,13 +1,13 @@
-//! The one place the app calls the core's analysis. Every number the app
-//! shows comes through here from `tautspan_core`; the app adds no physics.
-//! Where the core does not yet offer a function the app needs, the stand-in
-//! below is written over what the core does offer and says so.
+//! The one place the app calls the core's analysis: validation, the
+//! analysis of every case, the release curve, the time-domain run of a
+//! case and the report. Every number the app shows comes through here from
+//! `tautspan_core`; the app adds no physics.
 
 use std::time::Instant;
-use tautspan_core::analysis::{Analysis, member_allowable};
-use tautspan_core::file::{CaseDto, Qty, ScenarioDto};
-use tautspan_core::model::{Problem, Scenario, build, to_network};
-use tautspan_core::solve::{SimulateOptions, Simulation, SimulationStart, simulate};
+use tautspan_core::analysis::{Analysis, CaseSimulation, SimulateRequest, member_allowable, release_curve, simulate_case};
+use tautspan_core::file::ScenarioDto;
+use tautspan_core::model::{Problem, Scenario, build};
+use tautspan_core::report::{UnitSystem as ReportUnits, html_with_units};
 
 /// A validated scenario and its analysis, or why there is none.
 #[derive(Debug, Clone)]
@@ -33,8 +33,7 @@ pub fn allowable_explanation(scenario: &Scenario, member: usize) -> String {
     scenario.members.get(member).map(|m| member_allowable(m).explanation).unwrap_or_default()
 }
 
-/// One point of the peak-force curve: release angle (deg) and the member's
-/// force at the lowest point (N), with the allowable (N).
+/// One point of the peak-force curve.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct CurvePoint {
     /// Release angle from the vertical, degrees.
@@ -43,62 +42,46 @@ pub struct CurvePoint {
     pub force_n: f64,
 }
 
-/// Peak force in `member_id` against release angle for the swing case
-/// `case_id`, by re-running the core's analysis at each angle on a copy of
-/// the document holding only that case.
-///
-/// Stand-in until the core offers a swing curve of its own; wanted:
-/// `tautspan_core::analysis::swing_curve(&Scenario, case: usize, member: usize, angles_deg: &[f64]) -> Vec<f64>`.
-pub fn swing_curve(dto: &ScenarioDto, case_id: &str, member_id: &str, angles_deg: &[f64]) -> Vec<CurvePoint> {
-    let Some(CaseDto::Swing { id, mass, pivot, .. }) = dto.cases.iter().find(|c| c.id() == case_id).cloned() else {
-        return Vec::new();
-    };
-    let mut out = Vec::with_capacity(angles_deg.len());
-    for &deg in angles_deg {
-        let mut d = dto.clone();
-        d.cases = vec![CaseDto::Swing {
-            id: id.clone(),
-            mass: mass.clone(),
-            release: Qty(format!("{deg} deg")),
-            pivot: pivot.clone(),
-        }];
-        let Ok(s) = build(&d) else { continue };
-        let a = tautspan_core::analysis::analyse(&s);
-        if let Some(m) =
-            a.cases.first().and_then(|c| if c.converged { c.members.iter().find(|m| m.id == member_id) } else { None })
-        {
-            out.push(CurvePoint { release_deg: deg, force_n: m.force_n });
-        }
-    }
-    out
+/// Force in `member_id` at the lowest point of the swing against release
+/// angle, for the mass of swing case `case_id`: the core's release curve.
+pub fn swing_curve(scenario: &Scenario, case_id: &str, member_id: &str, angles_deg: &[f64]) -> Result<Vec<CurvePoint>, String> {
+    let case = scenario.cases.iter().find(|c| c.id() == case_id).ok_or_else(|| format!("no case {case_id}"))?;
+    let mass = case.mass().ok_or_else(|| format!("case {case_id} has no mass"))?;
+    let member = scenario.members.iter().position(|m| m.id == member_id).ok_or_else(|| format!("no member {member_id}"))?;
+    let curve = release_curve(scenario, mass, angles_deg)?;
+    Ok(curve
+        .release_deg
+        .iter()
+        .zip(&curve.member_force_n)
+        .filter_map(|(deg, forces)| Some(CurvePoint { release_deg: *deg, force_n: *forces.get(member)? }))
+        .collect())
 }
 
-/// A time-domain run of one case: the core's simulation of the scenario.
-///
-/// Stand-in until the core offers a per-case simulation; wanted:
-/// `tautspan_core::analysis::simulate_case(&Scenario, case: usize, &SimulateOptions, progress: &mut dyn FnMut(f64) -> bool) -> Result<Simulation, SolveError>`.
-/// Until then this runs the core's integrator on the scenario's network
-/// released at rest from the drawn geometry (the load suddenly applied),
-/// whatever the case.
-pub fn simulate_case(
-    scenario: &Scenario,
-    _case: usize,
-    duration_s: f64,
-    progress: &mut dyn FnMut(f64) -> bool,
-) -> Result<Simulation, String> {
-    let (net, _) = to_network(scenario);
-    let opts =
-        SimulateOptions { duration_s, output_interval_s: Some(duration_s / 400.0), ..SimulateOptions::default() };
-    simulate(&net, &SimulationStart::default(), &opts, progress).map_err(|e| e.to_string())
+/// A time-domain run of one case: the core's simulation of that case
+/// (a swing released at its angle, a drop from its height, a sudden load).
+pub fn simulate(scenario: &Scenario, case_id: &str, duration_s: f64, progress: &mut dyn FnMut(f64) -> bool) -> Result<CaseSimulation, String> {
+    let req = SimulateRequest { duration_s, ..SimulateRequest::default() };
+    simulate_case(scenario, case_id, &req, progress)
 }
 
-/// What the time history shows until the core simulates each case.
-pub const SIMULATION_NOTE: &str = "Time history: the rig released at rest from its drawn geometry (load suddenly applied), from the core's integrator.";
+/// Today's date as `YYYY-MM-DD` (UTC), for the report's title block.
+fn today() -> String {
+    let secs = std::time::SystemTime::now().duration_since(std::time::UNIX_EPOCH).map_or(0, |d| d.as_secs());
+    // days since 1970-01-01 to a civil date (H. Hinnant's algorithm)
+    let z = (secs / 86_400) as i64 + 719_468;
+    let era = z.div_euclid(146_097);
+    let doe = z - era * 146_097;
+    let yoe = (doe - doe / 1460 + doe / 36_524 - doe / 146_096) / 365;
+    let doy = doe - (365 * yoe + yoe / 4 - yoe / 100);
+    let mp = (5 * doy + 2) / 153;
+    let day = doy - (153 * mp + 2) / 5 + 1;
+    let month = if mp < 10 { mp + 3 } else { mp - 9 };
+    let year = yoe + era * 400 + i64::from(month <= 2);
+    format!("{year:04}-{month:02}-{day:02}")
+}
 
-/// The HTML report of a scenario, the same as the command line writes.
-///
-/// Waiting for the core's report function; wanted:
-/// `tautspan_core::report::html(&Scenario, &Analysis, units: UnitSystem) -> String`.
-pub fn report_html(_scenario: &Scenario, _analysis: &Analysis, _us_customary: bool) -> Result<String, String> {
-    Err("the report export is not in this build yet".to_string())
+/// The HTML report of a scenario: the same function the command line uses.
+pub fn report_html(scenario: &Scenario, analysis: &Analysis, us_customary: bool) -> Result<String, String> {
+    let units = if us_customary { ReportUnits::UsCustomary } else { ReportUnits::Si };
+    Ok(html_with_units(scenario, analysis, &today(), units))
 }

@@ -4,7 +4,7 @@
 //! run on worker threads (progress shown, the simulation can be cancelled),
 //! so the UI never waits on them.
 
-use crate::core_bridge::{CurvePoint, SIMULATION_NOTE, simulate_case, swing_curve};
+use crate::core_bridge::{CurvePoint, simulate, swing_curve};
 use crate::derived::Derived;
 use crate::document::Document;
 use crate::selection::Selection;
@@ -15,28 +15,29 @@ use std::sync::Arc;
 use std::sync::atomic::{AtomicBool, AtomicU32, Ordering};
 use std::sync::mpsc::{Receiver, channel};
 use tautspan_core::file::CaseDto;
-use tautspan_core::solve::Simulation;
+use tautspan_core::analysis::CaseSimulation;
 
 /// Angles of the curve, degrees.
 const ANGLES: [f64; 19] =
     [0.0, 5.0, 10.0, 15.0, 20.0, 25.0, 30.0, 35.0, 40.0, 45.0, 50.0, 55.0, 60.0, 65.0, 70.0, 75.0, 80.0, 85.0, 90.0];
 
 type CurveKey = (u64, String, String);
+type Curve = Result<Vec<CurvePoint>, String>;
 
 /// A simulation running on a worker thread.
 struct SimJob {
     progress: Arc<AtomicU32>,
     cancel: Arc<AtomicBool>,
-    rx: Receiver<Result<Simulation, String>>,
+    rx: Receiver<Result<CaseSimulation, String>>,
     key: (u64, String),
 }
 
 /// The plots' state: caches and running jobs.
 #[derive(Default)]
 pub struct Plots {
-    curve: Option<(CurveKey, Vec<CurvePoint>)>,
-    curve_job: Option<(CurveKey, Receiver<Vec<CurvePoint>>)>,
-    sim: Option<((u64, String), Result<Simulation, String>)>,
+    curve: Option<(CurveKey, Curve)>,
+    curve_job: Option<(CurveKey, Receiver<Curve>)>,
+    sim: Option<((u64, String), Result<CaseSimulation, String>)>,
     sim_job: Option<SimJob>,
 }
 
@@ -112,11 +113,11 @@ impl Plots {
         let running = self.curve_job.as_ref().is_some_and(|(k, _)| *k == key);
         if !fresh && !running {
             let (tx, rx) = channel();
-            let dto = doc.dto.clone();
+            let Some(scenario) = derived.solved.as_ref().map(|s| s.scenario.clone()) else { return };
             let (c, m) = (key.1.clone(), key.2.clone());
             let ctx = ui.ctx().clone();
             std::thread::spawn(move || {
-                let _ = tx.send(swing_curve(&dto, &c, &m, &ANGLES));
+                let _ = tx.send(swing_curve(&scenario, &c, &m, &ANGLES));
                 ctx.request_repaint();
             });
             self.curve_job = Some((key.clone(), rx));
@@ -128,6 +129,13 @@ impl Plots {
             });
         }
         let Some((_, points)) = &self.curve else { return };
+        let points = match points {
+            Ok(p) => p,
+            Err(e) => {
+                ui.label(RichText::new(e).color(crate::qty_field::ERROR));
+                return;
+            }
+        };
         let limit = derived
             .solved
             .as_ref()
@@ -169,8 +177,7 @@ impl Plots {
         allowable: Option<f64>,
         units: UnitSystem,
     ) {
-        ui.label(RichText::new(format!("{member}: time history")).strong());
-        ui.label(RichText::new(SIMULATION_NOTE).small().weak());
+        ui.label(RichText::new(format!("{member}: time history of case {}", shown.unwrap_or("(first)"))).strong());
         let Some(solved) = derived.solved.as_ref() else { return };
         let case_id =
             shown.map(str::to_string).or_else(|| doc.dto.cases.first().map(|c| c.id().to_string())).unwrap_or_default();
@@ -195,14 +202,14 @@ impl Plots {
                 let (tx, rx) = channel();
                 let (p, c) = (progress.clone(), cancel.clone());
                 let scenario = solved.scenario.clone();
-                let case = scenario.case_index(&case_id).unwrap_or(0);
+                let case = case_id.clone();
                 let ctx = ui.ctx().clone();
                 std::thread::spawn(move || {
                     let mut report = |f: f64| {
                         p.store((f as f32).to_bits(), Ordering::Relaxed);
                         !c.load(Ordering::Relaxed)
                     };
-                    let _ = tx.send(simulate_case(&scenario, case, 6.0, &mut report));
+                    let _ = tx.send(simulate(&scenario, &case, 6.0, &mut report));
                     ctx.request_repaint();
                 });
                 self.sim_job = Some(SimJob { progress, cancel, rx, key: key.clone() });
@@ -216,8 +223,9 @@ impl Plots {
             Err(e) => {
                 ui.label(RichText::new(e).color(crate::qty_field::ERROR));
             }
-            Ok(sim) => {
-                let Some(idx) = solved.scenario.members.iter().position(|m| m.id == member) else { return };
+            Ok(run) => {
+                let Some(idx) = run.member_ids.iter().position(|m| m == member) else { return };
+                let sim = &run.run;
                 let pts: Vec<[f64; 2]> = sim
                     .time_s
                     .iter()
@@ -225,6 +233,9 @@ impl Plots {
                     .filter_map(|(t, f)| Some([*t, units.value(*f.get(idx)?, Shown::Force)]))
                     .collect();
                 let peak = sim.peak_member_force_n.get(idx).copied().unwrap_or(0.0);
+                if let Some(p) = run.period_s {
+                    ui.label(format!("measured swing period {p:.2} s"));
+                }
                 ui.label(format!(
                     "peak {} at {:.2} s; energy drift {:.2} %{}",
                     units.fmt(peak, Shown::Force),

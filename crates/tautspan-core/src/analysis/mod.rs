@@ -2,6 +2,7 @@
 //! limits, warnings and the comparison table.
 
 mod allowable;
+mod curves;
 mod analyse;
 mod evaluate;
 pub mod formulas;
@@ -15,3 +16,4 @@ pub use analyse::{analyse, assumptions};
 pub use evaluate::Allowables;
 pub use results::*;
 pub use simulate_case::{CaseSimulation, SimulateRequest, simulate_case};
+pub use curves::{ReleaseCurve, release_curve, single_line_swing};
