@@ -53,7 +53,8 @@ fn net(columns: usize, layers: usize) -> ScenarioDto {
             }
         }
     }
-    let masses = (0..columns).map(|c| MassDto { id: format!("m{c}"), at: id(c, layers), mass: Qty::from("50 kg") }).collect();
+    let masses =
+        (0..columns).map(|c| MassDto { id: format!("m{c}"), at: id(c, layers), mass: Qty::from("50 kg") }).collect();
     ScenarioDto {
         format: 1,
         title: "Generated 1,000-member net".to_string(),
@@ -79,7 +80,10 @@ fn bench(c: &mut Criterion) {
     let h = harness(dto.clone());
     let first = start.elapsed();
     let solved = h.state().derived.solved.as_ref().map(|s| s.analysis.cases[0].converged);
-    println!("first frame of the 1,000-member net: {:.1} ms (target < 1000 ms); converged: {solved:?}", first.as_secs_f64() * 1e3);
+    println!(
+        "first frame of the 1,000-member net: {:.1} ms (target < 1000 ms); converged: {solved:?}",
+        first.as_secs_f64() * 1e3
+    );
     drop(h);
 
     c.bench_function("open to first frame, 1,000 members", |b| b.iter(|| harness(dto.clone())));
@@ -91,11 +95,14 @@ fn bench(c: &mut Criterion) {
         b.iter(|| {
             k += 1;
             let x = 8.5 + 0.05 * f64::from(k % 7);
-            h.state_mut().apply(&ctx, vec![Command::edit_merged("drag", move |d| {
-                if let Some(n) = d.nodes.iter_mut().find(|n| n.id == "J17-10") {
-                    n.at.x = Qty(format!("{x} m"));
-                }
-            })]);
+            h.state_mut().apply(
+                &ctx,
+                vec![Command::edit_merged("drag", move |d| {
+                    if let Some(n) = d.nodes.iter_mut().find(|n| n.id == "J17-10") {
+                        n.at.x = Qty(format!("{x} m"));
+                    }
+                })],
+            );
             h.step();
         });
     });

@@ -10,10 +10,10 @@ use crate::selection::Selection;
 use crate::units_display::{Shown, UnitSystem, fmt_utilisation};
 use crate::view::View;
 use egui::{Align2, Color32, FontId, Painter, Pos2, Rect, Shape, Stroke, pos2, vec2};
-use tautspan_core::analysis::State;
-use tautspan_core::file::{ScenarioDto, SupportDto};
 use std::collections::HashMap;
 use tautspan_core::analysis::MemberResult;
+use tautspan_core::analysis::State;
+use tautspan_core::file::{ScenarioDto, SupportDto};
 use tautspan_core::units::{Dimension, Sign, parse_quantity};
 
 const PAPER: Color32 = Color32::from_rgb(0xf5, 0xf3, 0xec);
@@ -294,7 +294,8 @@ pub fn draw(
         .map(|p| p.members.iter().map(String::as_str).collect())
         .unwrap_or_default();
 
-    let results: HashMap<&str, &MemberResult> = case.map(|c| c.members.iter().map(|r| (r.id.as_str(), r)).collect()).unwrap_or_default();
+    let results: HashMap<&str, &MemberResult> =
+        case.map(|c| c.members.iter().map(|r| (r.id.as_str(), r)).collect()).unwrap_or_default();
     for m in &geo.members {
         let (Some(a), Some(b)) = (geo.node(&m.ends.0), geo.node(&m.ends.1)) else { continue };
         let (sa, sb) = (view.to_screen(a.pos_m[0], a.pos_m[1]), view.to_screen(b.pos_m[0], b.pos_m[1]));

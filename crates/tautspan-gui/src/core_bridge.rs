@@ -4,7 +4,9 @@
 //! `tautspan_core`; the app adds no physics.
 
 use std::time::Instant;
-use tautspan_core::analysis::{Analysis, CaseSimulation, SimulateRequest, member_allowable, release_curve, simulate_case};
+use tautspan_core::analysis::{
+    Analysis, CaseSimulation, SimulateRequest, member_allowable, release_curve, simulate_case,
+};
 use tautspan_core::file::ScenarioDto;
 use tautspan_core::model::{Problem, Scenario, build};
 use tautspan_core::report::{UnitSystem as ReportUnits, html_with_units};
@@ -44,10 +46,16 @@ pub struct CurvePoint {
 
 /// Force in `member_id` at the lowest point of the swing against release
 /// angle, for the mass of swing case `case_id`: the core's release curve.
-pub fn swing_curve(scenario: &Scenario, case_id: &str, member_id: &str, angles_deg: &[f64]) -> Result<Vec<CurvePoint>, String> {
+pub fn swing_curve(
+    scenario: &Scenario,
+    case_id: &str,
+    member_id: &str,
+    angles_deg: &[f64],
+) -> Result<Vec<CurvePoint>, String> {
     let case = scenario.cases.iter().find(|c| c.id() == case_id).ok_or_else(|| format!("no case {case_id}"))?;
     let mass = case.mass().ok_or_else(|| format!("case {case_id} has no mass"))?;
-    let member = scenario.members.iter().position(|m| m.id == member_id).ok_or_else(|| format!("no member {member_id}"))?;
+    let member =
+        scenario.members.iter().position(|m| m.id == member_id).ok_or_else(|| format!("no member {member_id}"))?;
     let curve = release_curve(scenario, mass, angles_deg)?;
     Ok(curve
         .release_deg
@@ -59,7 +67,12 @@ pub fn swing_curve(scenario: &Scenario, case_id: &str, member_id: &str, angles_d
 
 /// A time-domain run of one case: the core's simulation of that case
 /// (a swing released at its angle, a drop from its height, a sudden load).
-pub fn simulate(scenario: &Scenario, case_id: &str, duration_s: f64, progress: &mut dyn FnMut(f64) -> bool) -> Result<CaseSimulation, String> {
+pub fn simulate(
+    scenario: &Scenario,
+    case_id: &str,
+    duration_s: f64,
+    progress: &mut dyn FnMut(f64) -> bool,
+) -> Result<CaseSimulation, String> {
     let req = SimulateRequest { duration_s, ..SimulateRequest::default() };
     simulate_case(scenario, case_id, &req, progress)
 }

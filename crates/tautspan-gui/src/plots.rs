@@ -14,8 +14,8 @@ use egui_plot::{HLine, Legend, Line, LineStyle, Plot, VLine};
 use std::sync::Arc;
 use std::sync::atomic::{AtomicBool, AtomicU32, Ordering};
 use std::sync::mpsc::{Receiver, channel};
-use tautspan_core::file::CaseDto;
 use tautspan_core::analysis::CaseSimulation;
+use tautspan_core::file::CaseDto;
 
 /// Angles of the curve, degrees.
 const ANGLES: [f64; 19] =

@@ -71,7 +71,11 @@ fn a_fraction_where_a_length_belongs_is_refused_inline() {
     h.state_mut().selection = Selection::Member("leg-west".to_string());
     h.run();
     type_into(&mut h, "Diameter", "3/4");
-    assert_eq!(h.state().doc.dto.members[0].diameter.as_ref().map(|q| q.0.as_str()), Some("12 mm"), "the document keeps its last good value");
+    assert_eq!(
+        h.state().doc.dto.members[0].diameter.as_ref().map(|q| q.0.as_str()),
+        Some("12 mm"),
+        "the document keeps its last good value"
+    );
     assert!(h.query_by_label_contains("3/4").is_some(), "the parser's message is shown beside the field");
     type_into(&mut h, "Diameter", "0.75 in");
     assert_eq!(h.state().doc.dto.members[0].diameter.as_ref().map(|q| q.0.as_str()), Some("0.75 in"), "kept as typed");
@@ -85,14 +89,24 @@ fn dragging_a_node_re_solves_live_and_is_one_undo_step() {
     let to = h.state().view.to_screen(0.5, 3.5);
     h.event(egui::Event::PointerMoved(from));
     h.run();
-    h.event(egui::Event::PointerButton { pos: from, button: egui::PointerButton::Primary, pressed: true, modifiers: egui::Modifiers::NONE });
+    h.event(egui::Event::PointerButton {
+        pos: from,
+        button: egui::PointerButton::Primary,
+        pressed: true,
+        modifiers: egui::Modifiers::NONE,
+    });
     h.run();
     for k in 1..=5 {
         let p = from + (to - from) * (k as f32 / 5.0);
         h.event(egui::Event::PointerMoved(p));
         h.run();
     }
-    h.event(egui::Event::PointerButton { pos: to, button: egui::PointerButton::Primary, pressed: false, modifiers: egui::Modifiers::NONE });
+    h.event(egui::Event::PointerButton {
+        pos: to,
+        button: egui::PointerButton::Primary,
+        pressed: false,
+        modifiers: egui::Modifiers::NONE,
+    });
     h.run();
     let j1 = h.state().doc.dto.nodes.iter().find(|n| n.id == "J1").map(|n| n.at.x.0.clone());
     assert_eq!(j1.as_deref(), Some("0.5 m"), "snapped to the grid, in the unit it was written in");

@@ -74,7 +74,13 @@ fn save_then_open_round_trips_and_unsaved_changes_are_guarded() {
     assert!(!h.state().doc.dirty, "clean after saving");
     assert_eq!(h.state().doc.path.as_deref(), Some(path.as_path()));
     let saved = h.state().doc.dto.clone();
-    let forces: Vec<f64> = h.state().derived.solved.as_ref().map(|s| s.analysis.cases[0].members.iter().map(|m| m.force_n).collect()).unwrap_or_default();
+    let forces: Vec<f64> = h
+        .state()
+        .derived
+        .solved
+        .as_ref()
+        .map(|s| s.analysis.cases[0].members.iter().map(|m| m.force_n).collect())
+        .unwrap_or_default();
 
     // the file reads back through the core exactly as it was in the app
     let text = std::fs::read_to_string(&path).unwrap_or_else(|e| panic!("{e}"));
@@ -96,7 +102,13 @@ fn save_then_open_round_trips_and_unsaved_changes_are_guarded() {
     click(&mut h, "Open");
     assert_eq!(h.state().doc.dto, saved, "the saved scenario is back");
     h.run();
-    let again: Vec<f64> = h.state().derived.solved.as_ref().map(|s| s.analysis.cases[0].members.iter().map(|m| m.force_n).collect()).unwrap_or_default();
+    let again: Vec<f64> = h
+        .state()
+        .derived
+        .solved
+        .as_ref()
+        .map(|s| s.analysis.cases[0].members.iter().map(|m| m.force_n).collect())
+        .unwrap_or_default();
     assert_eq!(again, forces, "same numbers");
     assert_eq!(h.state().prefs.recent.first(), Some(&path), "listed in recent files");
     let _ = std::fs::remove_dir_all(&dir);

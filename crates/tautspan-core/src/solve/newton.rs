@@ -173,8 +173,13 @@ pub(crate) fn minimise(
             let accept = if actual.abs() <= roundoff {
                 model.gradient(&ws.trial_pos, loads_dof, inertia, &mut ws.trial_grad, &mut ws.trial_mag);
                 have_trial_grad = true;
+                // at roundoff the energy cannot rank the steps; the sum of
+                // squared out-of-balance forces can (it falls along small
+                // steps even where tension-only members switch on and off,
+                // where the largest single component need not)
+                let norm2 = |g: &[f64]| g.iter().map(|v| v * v).sum::<f64>();
                 let (res_t, _, _) = residual(&ws.trial_grad, &ws.trial_mag, tol_n);
-                res_t < res
+                res_t < res || norm2(&ws.trial_grad) < norm2(&ws.grad)
             } else {
                 actual > 0.0 && phi_t.is_finite()
             };
@@ -200,7 +205,17 @@ pub(crate) fn minimise(
             std::mem::swap(&mut ws.mag, &mut ws.trial_mag);
             phi = phi_t;
             escale = escale_t;
-            let rho = if predicted > 0.0 { (actual / predicted).clamp(0.0, 1.0) } else { 1.0 };
+            // a step accepted at roundoff (energy change unmeasurable, the
+            // out-of-balance fell) is a good step: the gain ratio means
+            // nothing there, and reading it as 0 would double λ on every
+            // such step and stall the soft dofs
+            let rho = if have_trial_grad && actual.abs() <= roundoff {
+                1.0
+            } else if predicted > 0.0 {
+                (actual / predicted).clamp(0.0, 1.0)
+            } else {
+                1.0
+            };
             lambda = (lambda * (1.0 / 3.0_f64).max(1.0 - (2.0 * rho - 1.0).powi(3))).max(lambda_min);
             nu = 2.0;
             break;

@@ -9,7 +9,8 @@ use egui_kittest::kittest::Queryable;
 use tautspan_gui::{Document, Prefs, TautspanApp, blank_scenario};
 
 pub fn harness(app: TautspanApp) -> Harness<'static, TautspanApp> {
-    let mut h = Harness::builder().with_size([1400.0, 900.0]).build_ui_state(|ui, app: &mut TautspanApp| app.frame(ui), app);
+    let mut h =
+        Harness::builder().with_size([1400.0, 900.0]).build_ui_state(|ui, app: &mut TautspanApp| app.frame(ui), app);
     h.run();
     h
 }
@@ -31,8 +32,18 @@ pub fn click_world(h: &mut Harness<'_, TautspanApp>, x_m: f64, y_m: f64) {
     let p = h.state().view.to_screen(x_m, y_m);
     h.event(egui::Event::PointerMoved(p));
     h.run();
-    h.event(egui::Event::PointerButton { pos: p, button: egui::PointerButton::Primary, pressed: true, modifiers: egui::Modifiers::NONE });
-    h.event(egui::Event::PointerButton { pos: p, button: egui::PointerButton::Primary, pressed: false, modifiers: egui::Modifiers::NONE });
+    h.event(egui::Event::PointerButton {
+        pos: p,
+        button: egui::PointerButton::Primary,
+        pressed: true,
+        modifiers: egui::Modifiers::NONE,
+    });
+    h.event(egui::Event::PointerButton {
+        pos: p,
+        button: egui::PointerButton::Primary,
+        pressed: false,
+        modifiers: egui::Modifiers::NONE,
+    });
     h.run();
 }
 
