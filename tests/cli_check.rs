@@ -191,7 +191,7 @@ fn report_writes_html() {
 #[test]
 fn simulate_json_summary() {
     let gantry = Path::new(env!("CARGO_MANIFEST_DIR")).join("scenarios/gantry-swing.ron");
-    let out = run(&["simulate", gantry.to_str().expect("p"), "--case", "swing-25", "--duration", "3 s", "--format", "json"]);
+    let out = run(&["simulate", gantry.to_str().expect("p"), "--case", "swing-25", "--duration", "8 s", "--format", "json"]);
     assert_eq!(out.status.code(), Some(0), "{}", String::from_utf8_lossy(&out.stderr));
     let v: serde_json::Value = serde_json::from_slice(&out.stdout).expect("json");
     assert!(v["caution"].as_str().expect("caution").contains(CAUTION_WORDS));

@@ -41,7 +41,7 @@ pub use view::View;
 use std::path::PathBuf;
 
 /// The demo scenario the app opens when no file is given.
-pub const DEMO_SCENARIO: &str = include_str!("demo_fallback.ron");
+pub const DEMO_SCENARIO: &str = include_str!("../../../scenarios/gantry-swing.ron");
 
 /// The message when there is no display to open a window on.
 pub const NO_DISPLAY: &str = "no display found; use `tautspan check FILE` for the command line";

@@ -33,6 +33,14 @@ fn the_unit_switch_changes_the_displayed_text() {
 }
 
 #[test]
+fn the_built_in_demo_opens_and_solves() {
+    let h = harness(common::builtin_demo_app());
+    let solved = h.state().derived.solved.as_ref().map(|s| s.analysis.cases.iter().all(|c| c.converged));
+    assert_eq!(solved, Some(true), "every case of the demo converges");
+    assert!(h.query_by_label_contains("Planning aid only").is_some(), "the caution is shown");
+}
+
+#[test]
 fn a_broken_file_shows_the_error_and_keeps_the_open_scenario() {
     let dir = temp_dir("broken");
     let path = dir.join("broken.ron");

@@ -98,6 +98,27 @@ fn default_pivot(s: &Scenario, mass_node: usize) -> Option<usize> {
         .min_by(|&a, &b| (s.position_m(a)[1] - y).total_cmp(&(s.position_m(b)[1] - y)))
 }
 
+/// The default time step for a case with a mass: a twentieth of the period
+/// of the mass on its path's stiffness, `2π √(m / k)`, and at most a 400th of
+/// the rigid pendulum period for a swing, so the motion that loads the rig
+/// is resolved; stiffer, lighter parts of the rig (a ring between stiff
+/// hoists) are left to the integrator, which is unconditionally stable. The
+/// user may set a smaller step.
+fn default_step(s: &Scenario, case: &Case, solver: &mut StaticSolver, eq: &crate::solve::Equilibrium) -> Option<f64> {
+    let m = case.mass()?;
+    let node = s.masses[m].node;
+    let k = solver.effective_stiffness(eq, node, [0.0, -1.0, 0.0]).ok()?;
+    let mass_kg = s.masses[m].mass.value;
+    let mut dt = 2.0 * std::f64::consts::PI * (mass_kg / k).sqrt() / 20.0;
+    if let Case::Swing { pivot, .. } = case {
+        let pv = pivot.or_else(|| default_pivot(s, node))?;
+        let (a, b) = (eq.positions_m[pv], eq.positions_m[node]);
+        let l = ((a[0] - b[0]).powi(2) + (a[1] - b[1]).powi(2) + (a[2] - b[2]).powi(2)).sqrt();
+        dt = dt.min(2.0 * std::f64::consts::PI * (l / s.gravity_m_s2()).sqrt() / 400.0);
+    }
+    (dt.is_finite() && dt > 0.0).then_some(dt)
+}
+
 /// Upward zero crossings of `x(t) − x_ref`, averaged into a period.
 fn measured_period(t: &[f64], x: &[f64], x_ref: f64) -> Option<f64> {
     let mut crossings = Vec::new();
@@ -138,14 +159,32 @@ pub fn simulate_case(
         Case::Static { .. } => SimulationStart { positions_m: Some(eq.positions_m.clone()), velocities_m_per_s: None },
         Case::Swing { mass, release, pivot, .. } => {
             let node = s.masses[*mass].node;
-            let pivot = pivot
-                .or_else(|| default_pivot(s, node))
-                .ok_or_else(|| format!("case {case_id}: no pivot above mass {}; give `pivot`", s.masses[*mass].id))?;
+            let pivot = pivot.or_else(|| default_pivot(s, node)).ok_or_else(|| format!("case {case_id}: no pivot above mass {}; give `pivot`", s.masses[*mass].id))?;
             let centre = eq.positions_m[pivot];
             let mut pos = eq.positions_m.clone();
-            // swing towards +x: turn clockwise about the pivot (negative angle lifts a hanging mass to −x), so use −release to start on the −x side
             for n in swinging_nodes(s, node, pivot) {
                 pos[n] = rotate_about(eq.positions_m[n], centre, -release.value);
+            }
+            // At release the line carries only m g cos θ0: shorten the
+            // mass's radius by that much of its static stretch, hold the
+            // mass there and let the rest of the rig settle, so the run
+            // starts in balance and does not ring from the start state.
+            if let Some(k) = s.members.iter().position(|m| m.ends.contains(&node) && m.ends.contains(&pivot)) {
+                let rest = s.rest_length_m(k);
+                let d: Vec<f64> = (0..3).map(|i| pos[node][i] - centre[i]).collect();
+                let r = (d[0] * d[0] + d[1] * d[1] + d[2] * d[2]).sqrt();
+                if r > rest {
+                    let r_new = rest + (r - rest) * release.value.cos().max(0.0);
+                    for i in 0..3 {
+                        pos[node][i] = centre[i] + d[i] * r_new / r;
+                    }
+                }
+            }
+            let mut held = net.clone();
+            held.nodes[node].fixity = crate::solve::Fixity::Fixed;
+            held.nodes[node].position_m = pos[node];
+            if let Ok(eq_held) = StaticSolver::new(&held).and_then(|mut h| h.solve(&loads.total_n, Some(&pos), &opts)) {
+                pos = eq_held.positions_m;
             }
             SimulationStart { positions_m: Some(pos), velocities_m_per_s: None }
         }
@@ -158,9 +197,10 @@ pub fn simulate_case(
             SimulationStart { positions_m: Some(eq0.positions_m), velocities_m_per_s: Some(v) }
         }
     };
+    let time_step_s = req.time_step_s.or_else(|| default_step(s, case, &mut solver, &eq));
     let sim_opts = SimulateOptions {
         duration_s: req.duration_s,
-        time_step_s: req.time_step_s,
+        time_step_s,
         output_interval_s: None,
         mass_damping_per_s: req.damping_per_s,
         newton: SolveOptions::default(),

@@ -21,7 +21,18 @@ pub fn blank_app() -> TautspanApp {
     app
 }
 
+/// The app on the test bridle (tests/fixtures/bridle.ron): anchors A1, A2,
+/// joints J1, J2, legs leg-west and leg-east, a chain drop, mass "load".
 pub fn demo_app() -> TautspanApp {
+    let loaded =
+        tautspan_core::model::load_scenario(include_str!("../fixtures/bridle.ron")).unwrap_or_else(|e| panic!("{e}"));
+    let mut app = TautspanApp::with_document(Document::new(loaded.dto, None), Prefs::default());
+    app.files.native = false;
+    app
+}
+
+/// The app on the built-in demo.
+pub fn builtin_demo_app() -> TautspanApp {
     let mut app = TautspanApp::demo(Prefs::default());
     app.files.native = false;
     app
