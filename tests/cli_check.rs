@@ -69,7 +69,11 @@ fn json_for_every_example_follows_the_contract() {
             assert!(c["limits"].is_object());
             assert!(c["warnings"].is_array());
             if c["kind"] != "static" {
-                assert!(c["limits"]["release_deg"].is_number() || c["limits"]["drop_height_m"].is_number(), "{}", c["id"]);
+                assert!(
+                    c["limits"]["release_deg"].is_number() || c["limits"]["drop_height_m"].is_number(),
+                    "{}",
+                    c["id"]
+                );
             }
         }
     }
@@ -191,7 +195,8 @@ fn report_writes_html() {
 #[test]
 fn simulate_json_summary() {
     let gantry = Path::new(env!("CARGO_MANIFEST_DIR")).join("scenarios/gantry-swing.ron");
-    let out = run(&["simulate", gantry.to_str().expect("p"), "--case", "swing-25", "--duration", "8 s", "--format", "json"]);
+    let out =
+        run(&["simulate", gantry.to_str().expect("p"), "--case", "swing-25", "--duration", "8 s", "--format", "json"]);
     assert_eq!(out.status.code(), Some(0), "{}", String::from_utf8_lossy(&out.stderr));
     let v: serde_json::Value = serde_json::from_slice(&out.stdout).expect("json");
     assert!(v["caution"].as_str().expect("caution").contains(CAUTION_WORDS));
@@ -199,7 +204,8 @@ fn simulate_json_summary() {
     assert_eq!(members.len(), 3);
     assert!(members.iter().all(|m| m["peak_force_n"].as_f64().is_some_and(|f| f > 0.0)));
     assert!(v["period_s"].as_f64().is_some_and(|p| p > 0.5), "{v}");
-    let out = run(&["simulate", gantry.to_str().expect("p"), "--case", "swing-25", "--duration", "0.2 s", "--format", "csv"]);
+    let out =
+        run(&["simulate", gantry.to_str().expect("p"), "--case", "swing-25", "--duration", "0.2 s", "--format", "csv"]);
     let text = String::from_utf8_lossy(&out.stdout);
     assert!(text.lines().next().expect("caution").contains(CAUTION_WORDS));
     assert!(text.lines().nth(1).expect("header").starts_with("time_s,hoist-west_force_n"));

@@ -17,7 +17,12 @@ fn hung_net(cols: usize, rows: usize) -> String {
     for r in 0..rows {
         for c in 0..cols {
             let support = if r == 0 { ", support: Anchor" } else { "" };
-            let _ = write!(s, "Node(id: \"n{r}_{c}\", at: (\"{} m\", \"{} m\"){support}),", c as f64 * 0.5, 10.0 - r as f64 * 0.5);
+            let _ = write!(
+                s,
+                "Node(id: \"n{r}_{c}\", at: (\"{} m\", \"{} m\"){support}),",
+                c as f64 * 0.5,
+                10.0 - r as f64 * 0.5
+            );
         }
     }
     s.push_str("], members: [");
@@ -25,7 +30,11 @@ fn hung_net(cols: usize, rows: usize) -> String {
     for r in 0..rows {
         for c in 0..cols {
             if c + 1 < cols && r > 0 {
-                let _ = write!(s, "Member(id: \"h{r}_{c}\", ends: (\"n{r}_{c}\", \"n{r}_{}\"), {rope}, may_go_slack: true),", c + 1);
+                let _ = write!(
+                    s,
+                    "Member(id: \"h{r}_{c}\", ends: (\"n{r}_{c}\", \"n{r}_{}\"), {rope}, may_go_slack: true),",
+                    c + 1
+                );
             }
             if r + 1 < rows {
                 let _ = write!(s, "Member(id: \"v{r}_{c}\", ends: (\"n{r}_{c}\", \"n{}_{c}\"), {rope}),", r + 1);
@@ -51,7 +60,9 @@ fn bench(c: &mut Criterion) {
     g.bench_function(format!("all cases and limits, {} members", l.scenario.members.len()), |b| {
         b.iter(|| black_box(analyse(black_box(&l.scenario))))
     });
-    g.bench_function("parse and validate the 200-member file", |b| b.iter(|| black_box(load_scenario(black_box(&text)))));
+    g.bench_function("parse and validate the 200-member file", |b| {
+        b.iter(|| black_box(load_scenario(black_box(&text))))
+    });
     g.finish();
 }
 

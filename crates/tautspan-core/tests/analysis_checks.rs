@@ -41,7 +41,8 @@ fn case<'a>(a: &'a Analysis, id: &str) -> &'a tautspan_core::analysis::CaseResul
 }
 
 fn has_warning(a: &Analysis, needle: &str) -> bool {
-    a.cases.iter().any(|c| c.warnings.iter().any(|w| w.contains(needle))) || a.warnings.iter().any(|w| w.message.contains(needle))
+    a.cases.iter().any(|c| c.warnings.iter().any(|w| w.contains(needle)))
+        || a.warnings.iter().any(|w| w.message.contains(needle))
 }
 
 // Timoshenko & Woinowsky-Krieger, central point load on a simply supported
@@ -109,9 +110,14 @@ fn allowables_match_hand_calculations() {
     assert!(rel(a.cases[0].members[0].allowable_n, 240e6 * 4.7e-4 / 2.0) < 1e-12);
     assert!(rel(a.cases[0].floors[0].allowable_n, 8.9e3) < 1e-12);
     // a working load limit is the allowable as is; a termination efficiency reduces MBS
-    let wll = analysed(&single_line(r#"kind: Chain, area: "100 mm^2", modulus: "200 GPa", rating: WorkingLoadLimit("20 kN")"#, "100 kg", r#"Static(id: "s")"#));
+    let wll = analysed(&single_line(
+        r#"kind: Chain, area: "100 mm^2", modulus: "200 GPa", rating: WorkingLoadLimit("20 kN")"#,
+        "100 kg",
+        r#"Static(id: "s")"#,
+    ));
     assert!(rel(wll.cases[0].members[0].allowable_n, 20e3) < 1e-12);
-    let eff = analysed(&single_line(&format!("{STEEL_LINE}, termination_efficiency: 0.8"), "100 kg", r#"Static(id: "s")"#));
+    let eff =
+        analysed(&single_line(&format!("{STEEL_LINE}, termination_efficiency: 0.8"), "100 kg", r#"Static(id: "s")"#));
     assert!(rel(eff.cases[0].members[0].allowable_n, 100e3 * 0.8 / 5.0) < 1e-12);
 }
 
@@ -149,7 +155,12 @@ fn limits_land_on_the_allowable() {
     let (release, height) = (lim.release_deg.expect("release"), lim.drop_height_m.expect("height"));
     let mut dto = l.dto.clone();
     dto.cases = vec![
-        CaseDto::Swing { id: "at-limit".into(), mass: "truss-section".into(), release: Qty(format!("{release} deg")), pivot: None },
+        CaseDto::Swing {
+            id: "at-limit".into(),
+            mass: "truss-section".into(),
+            release: Qty(format!("{release} deg")),
+            pivot: None,
+        },
         CaseDto::Drop { id: "drop-limit".into(), mass: "truss-section".into(), height: Qty(format!("{height} m")) },
     ];
     let b = analyse(&build(&dto).expect("valid"));
@@ -226,7 +237,11 @@ fn each_state_and_warning_is_raised() {
     assert!(rel(f, 1.0 / (1.0_f64).atan2(3.0).sin()) < 5e-3, "{f}");
 
     // dynamic case far above static: a drop on a stiff line
-    let a = analysed(&single_line(STEEL_LINE, "100 kg", r#"Static(id: "s"), Drop(id: "d", mass: "load", height: "0.05 m")"#));
+    let a = analysed(&single_line(
+        STEEL_LINE,
+        "100 kg",
+        r#"Static(id: "s"), Drop(id: "d", mass: "load", height: "0.05 m")"#,
+    ));
     assert!(has_warning(&a, "x its static"));
 
     // floor contact that lifts off: a pretensioned rope pulls a floor node up
@@ -245,11 +260,19 @@ fn each_state_and_warning_is_raised() {
     assert!(rel(a.cases[0].members[0].force_n, 50.0 * G) < 1e-6);
 
     // swing beyond 90°
-    let a = analysed(&single_line(STEEL_LINE, "100 kg", r#"Static(id: "s"), Swing(id: "w", mass: "load", release: "120 deg")"#));
+    let a = analysed(&single_line(
+        STEEL_LINE,
+        "100 kg",
+        r#"Static(id: "s"), Swing(id: "w", mass: "load", release: "120 deg")"#,
+    ));
     assert!(has_warning(&a, "beyond 90 deg"));
 
     // strain beyond the steel model's validity: a very thin steel line
-    let a = analysed(&single_line(r#"kind: WireRope, area: "1 mm^2", modulus: "100 GPa", rating: BreakingStrength("100 kN")"#, "300 kg", r#"Static(id: "s")"#));
+    let a = analysed(&single_line(
+        r#"kind: WireRope, area: "1 mm^2", modulus: "100 GPa", rating: BreakingStrength("100 kN")"#,
+        "300 kg",
+        r#"Static(id: "s")"#,
+    ));
     assert!(has_warning(&a, "outside the model's validity"));
 
     // design factor below the kind's default
@@ -268,12 +291,20 @@ fn each_state_and_warning_is_raised() {
     assert!(has_warning(&a, "sag/span"), "{:?}", a.cases[0].warnings);
 
     // soft line in a swing: nylon
-    let nylon = single_line(r#"kind: FibreRope, diameter: "10 mm", material: "nylon", braided: false, rating: BreakingStrength("20 kN")"#, "100 kg", r#"Static(id: "s"), Swing(id: "w", mass: "load", release: "60 deg")"#);
+    let nylon = single_line(
+        r#"kind: FibreRope, diameter: "10 mm", material: "nylon", braided: false, rating: BreakingStrength("20 kN")"#,
+        "100 kg",
+        r#"Static(id: "s"), Swing(id: "w", mass: "load", release: "60 deg")"#,
+    );
     let a = analysed(&nylon);
     assert!(has_warning(&a, "soft line"), "{:?}", a.cases[1].warnings);
 
     // stress waves: a short, stiff steel rod arresting a hard drop
-    let rod = single_line(r#"kind: Rod, area: "2000 mm^2", material: "steel""#, "5 kg", r#"Static(id: "s"), Drop(id: "d", mass: "load", height: "0.5 m")"#);
+    let rod = single_line(
+        r#"kind: Rod, area: "2000 mm^2", material: "steel""#,
+        "5 kg",
+        r#"Static(id: "s"), Drop(id: "d", mass: "load", height: "0.5 m")"#,
+    );
     let a = analysed(&rod);
     assert!(has_warning(&a, "stress-wave transits"), "{:?}", a.cases[1].warnings);
 
@@ -286,7 +317,11 @@ fn each_state_and_warning_is_raised() {
 // limit, 3 − 2 cos θ = allowable / W (1e-6: root-search tolerance).
 #[test]
 fn release_limit_inverts_the_swing_formula() {
-    let a = analysed(&single_line(STEEL_LINE, "1000 kg", r#"Static(id: "s"), Swing(id: "w", mass: "load", release: "10 deg")"#));
+    let a = analysed(&single_line(
+        STEEL_LINE,
+        "1000 kg",
+        r#"Static(id: "s"), Swing(id: "w", mass: "load", release: "10 deg")"#,
+    ));
     let r = case(&a, "w").limits.release_deg.expect("limit");
     let factor = 20e3 / (1000.0 * G);
     let expected = ((3.0 - factor) / 2.0).acos().to_degrees();

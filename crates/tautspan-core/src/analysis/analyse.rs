@@ -60,7 +60,10 @@ struct Solved {
     eq: Equilibrium,
 }
 
-#[expect(clippy::too_many_arguments, reason = "the scenario, its network, allowables and solver travel together through one call")]
+#[expect(
+    clippy::too_many_arguments,
+    reason = "the scenario, its network, allowables and solver travel together through one call"
+)]
 fn solve_case(
     s: &Scenario,
     net: &Network,
@@ -226,7 +229,10 @@ pub fn analyse(s: &Scenario) -> Analysis {
     }
 }
 
-#[expect(clippy::too_many_arguments, reason = "the scenario, its network, allowables and solver travel together through one call")]
+#[expect(
+    clippy::too_many_arguments,
+    reason = "the scenario, its network, allowables and solver travel together through one call"
+)]
 fn run_case(
     s: &Scenario,
     net: &Network,
@@ -362,7 +368,10 @@ fn dynamic_warnings(
     w
 }
 
-#[expect(clippy::too_many_arguments, reason = "the scenario, its network, allowables and solver travel together through one call")]
+#[expect(
+    clippy::too_many_arguments,
+    reason = "the scenario, its network, allowables and solver travel together through one call"
+)]
 fn comparison(
     s: &Scenario,
     allow: &Allowables,
@@ -380,12 +389,13 @@ fn comparison(
         Case::Drop { mass, .. } | Case::Sudden { mass, .. } => Some(*mass),
         _ => None,
     });
-    let swing_items = swing_mass.map(|m| item_factors(solver, s, allow, loads, m, static_eq));
+    let critical = |m: usize| mass_limits[m].and_then(|l| l.factor);
+    let swing_items = swing_mass.map(|m| item_factors(solver, s, allow, loads, m, static_eq, critical(m)));
     let drop_items = drop_mass.map(|m| {
         if Some(m) == swing_mass {
             swing_items.clone().unwrap_or_default()
         } else {
-            item_factors(solver, s, allow, loads, m, static_eq)
+            item_factors(solver, s, allow, loads, m, static_eq, critical(m))
         }
     });
 

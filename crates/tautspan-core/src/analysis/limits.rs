@@ -103,8 +103,10 @@ pub fn critical_factor(
 }
 
 /// Per item (members then floors): the load factor at which it reaches its
-/// allowable, interpolated on a sweep of factors; `None` when it does not
-/// within the sweep.
+/// allowable, interpolated linearly on a sweep of factors up to three times
+/// the critical factor (at least 5, the swing's 180° factor), and beyond the
+/// sweep extrapolated linearly from its last two points (an estimate for
+/// items far from their allowable; `None` when the trend never reaches it).
 pub fn item_factors(
     solver: &mut StaticSolver,
     s: &Scenario,
@@ -112,13 +114,20 @@ pub fn item_factors(
     loads: &NetworkLoads,
     mass: usize,
     static_eq: &Equilibrium,
+    critical: Option<f64>,
 ) -> Vec<Option<f64>> {
-    const SWEEP: [f64; 13] = [0.0, 1.0, 1.5, 2.0, 3.0, 5.0, 8.0, 13.0, 21.0, 40.0, 100.0, 300.0, 1000.0];
+    let top = critical.map_or(5.0, |c| (3.0 * c).clamp(5.0, MAX_FACTOR));
+    let mut sweep = vec![0.0, 1.0, 1.5, 2.0, 3.0, 5.0];
+    let mut f = 5.0;
+    while f < top {
+        f = (f * 2.0).min(top);
+        sweep.push(f);
+    }
     let n = s.members.len() + s.floors.len();
     let mut out = vec![None; n];
     let mut prev: Option<(f64, Vec<f64>)> = None;
     let mut start = static_eq.clone();
-    for f in SWEEP {
+    for f in sweep {
         let Some(eq) = solve_at(solver, s, loads, mass, f, &start) else { break };
         let u = utilisations(s, a, &eq);
         if let Some((pf, pu)) = &prev {
@@ -139,6 +148,19 @@ pub fn item_factors(
         start = eq;
         if out.iter().all(Option::is_some) {
             break;
+        }
+    }
+    // beyond the sweep: extend each remaining item's last slope
+    if let Some((pf, pu)) = prev {
+        if let Some(eq_lo) = solve_at(solver, s, loads, mass, pf * 0.8, &start) {
+            let ul = utilisations(s, a, &eq_lo);
+            for k in 0..n {
+                let slope = (pu[k] - ul[k]) / (0.2 * pf);
+                if out[k].is_none() && slope > 0.0 {
+                    let f = pf + (1.0 - pu[k]) / slope;
+                    out[k] = (f <= MAX_FACTOR).then_some(f);
+                }
+            }
         }
     }
     out

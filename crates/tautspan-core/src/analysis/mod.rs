@@ -2,8 +2,8 @@
 //! limits, warnings and the comparison table.
 
 mod allowable;
-mod curves;
 mod analyse;
+mod curves;
 mod evaluate;
 pub mod formulas;
 mod limits;
@@ -13,7 +13,7 @@ mod warnings;
 
 pub use allowable::{Allowable, floor_allowable, member_allowable};
 pub use analyse::{analyse, assumptions};
+pub use curves::{ReleaseCurve, release_curve, single_line_swing};
 pub use evaluate::Allowables;
 pub use results::*;
 pub use simulate_case::{CaseSimulation, SimulateRequest, simulate_case};
-pub use curves::{ReleaseCurve, release_curve, single_line_swing};

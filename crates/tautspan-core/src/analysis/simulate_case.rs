@@ -159,7 +159,9 @@ pub fn simulate_case(
         Case::Static { .. } => SimulationStart { positions_m: Some(eq.positions_m.clone()), velocities_m_per_s: None },
         Case::Swing { mass, release, pivot, .. } => {
             let node = s.masses[*mass].node;
-            let pivot = pivot.or_else(|| default_pivot(s, node)).ok_or_else(|| format!("case {case_id}: no pivot above mass {}; give `pivot`", s.masses[*mass].id))?;
+            let pivot = pivot
+                .or_else(|| default_pivot(s, node))
+                .ok_or_else(|| format!("case {case_id}: no pivot above mass {}; give `pivot`", s.masses[*mass].id))?;
             let centre = eq.positions_m[pivot];
             let mut pos = eq.positions_m.clone();
             for n in swinging_nodes(s, node, pivot) {

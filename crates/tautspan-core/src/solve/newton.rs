@@ -163,14 +163,14 @@ pub(crate) fn minimise(
                 continue;
             }
             model.add_step(pos, &ws.step, &mut ws.trial_pos);
-            let (phi_t, escale_t) = model.energy(&ws.trial_pos, loads_dof, inertia);
+            let (mut phi_t, mut escale_t) = model.energy(&ws.trial_pos, loads_dof, inertia);
             let actual = phi - phi_t;
             let step2: f64 = ws.step.iter().map(|s| s * s).sum();
             let gdx: f64 = -ws.step.iter().zip(&ws.grad).map(|(s, g)| s * g).sum::<f64>();
             let predicted = 0.5 * (gdx + lambda * step2);
             let roundoff = 1e-12 * escale.max(escale_t);
             let mut have_trial_grad = false;
-            let accept = if actual.abs() <= roundoff {
+            let mut accept = if actual.abs() <= roundoff {
                 model.gradient(&ws.trial_pos, loads_dof, inertia, &mut ws.trial_grad, &mut ws.trial_mag);
                 have_trial_grad = true;
                 // at roundoff the energy cannot rank the steps; the sum of
@@ -183,6 +183,28 @@ pub(crate) fn minimise(
             } else {
                 actual > 0.0 && phi_t.is_finite()
             };
+            let mut line_searched = false;
+            if !accept && phi_t.is_finite() {
+                // The step crossed a kink (a member going slack or taut, a
+                // floor contact opening): the quadratic model was wrong past
+                // it, not the direction. Go to the minimum along the
+                // direction, found from the directional derivative, which
+                // stays accurate where energy differences are at roundoff.
+                let (step, grad) = (std::mem::take(&mut ws.step), std::mem::take(&mut ws.grad));
+                let found = line_minimum(model, pos, &step, &grad, loads_dof, inertia, ws);
+                (ws.step, ws.grad) = (step, grad);
+                if found {
+                    let (p2, e2) = model.energy(&ws.trial_pos, loads_dof, inertia);
+                    let (res_t, _, _) = residual(&ws.trial_grad, &ws.trial_mag, tol_n);
+                    if p2 <= phi + roundoff && res_t.is_finite() {
+                        accept = true;
+                        have_trial_grad = true;
+                        line_searched = true;
+                        phi_t = p2;
+                        escale_t = e2;
+                    }
+                }
+            }
             if !accept {
                 lambda *= nu;
                 nu *= 2.0;
@@ -209,7 +231,9 @@ pub(crate) fn minimise(
             // out-of-balance fell) is a good step: the gain ratio means
             // nothing there, and reading it as 0 would double λ on every
             // such step and stall the soft dofs
-            let rho = if have_trial_grad && actual.abs() <= roundoff {
+            let rho = if line_searched {
+                0.5
+            } else if have_trial_grad && actual.abs() <= roundoff {
                 1.0
             } else if predicted > 0.0 {
                 (actual / predicted).clamp(0.0, 1.0)
@@ -221,4 +245,70 @@ pub(crate) fn minimise(
             break;
         }
     }
+}
+
+/// Moves `ws.trial_pos` (and its gradient) to the minimum of the potential
+/// along `step` from `pos`, between 0 and the full step: the root of the
+/// directional derivative `g(x + α d)·d`, by Illinois false position. The
+/// potential is convex along any line for tension-only members and floors,
+/// so that root is the minimum. False when the full step is still downhill
+/// (no bracket) or no useful fraction of the step is found.
+fn line_minimum(
+    model: &Model,
+    pos: &[[f64; 3]],
+    step: &[f64],
+    grad: &[f64],
+    loads_dof: &[f64],
+    inertia: Option<Inertia<'_>>,
+    ws: &mut Workspace,
+) -> bool {
+    let dot = |g: &[f64]| g.iter().zip(step).map(|(a, b)| a * b).sum::<f64>();
+    let d0 = dot(grad);
+    if !(d0 < 0.0) {
+        return false;
+    }
+    let mut scaled = vec![0.0; step.len()];
+    let mut eval = |alpha: f64, ws: &mut Workspace| -> f64 {
+        for (o, s) in scaled.iter_mut().zip(step) {
+            *o = alpha * s;
+        }
+        model.add_step(pos, &scaled, &mut ws.trial_pos);
+        model.gradient(&ws.trial_pos, loads_dof, inertia, &mut ws.trial_grad, &mut ws.trial_mag);
+        dot(&ws.trial_grad)
+    };
+    let (mut lo, mut flo) = (0.0, d0);
+    let (mut hi, mut fhi) = (1.0, eval(1.0, ws));
+    if !(fhi > 0.0) {
+        return false;
+    }
+    let mut alpha = 0.5;
+    let mut side = 0i8;
+    for _ in 0..30 {
+        alpha = hi - fhi * (hi - lo) / (fhi - flo);
+        if !(alpha > lo && alpha < hi) {
+            alpha = 0.5 * (lo + hi);
+        }
+        let f = eval(alpha, ws);
+        if f.abs() <= 1e-6 * d0.abs() {
+            break;
+        }
+        if f > 0.0 {
+            hi = alpha;
+            fhi = f;
+            if side == 1 {
+                flo *= 0.5;
+            }
+            side = 1;
+        } else {
+            lo = alpha;
+            flo = f;
+            if side == -1 {
+                fhi *= 0.5;
+            }
+            side = -1;
+        }
+    }
+    // leave the trial state at the accepted α
+    let _ = eval(alpha, ws);
+    alpha > 1e-6
 }
