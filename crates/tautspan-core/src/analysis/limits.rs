@@ -151,15 +151,15 @@ pub fn item_factors(
         }
     }
     // beyond the sweep: extend each remaining item's last slope
-    if let Some((pf, pu)) = prev {
-        if let Some(eq_lo) = solve_at(solver, s, loads, mass, pf * 0.8, &start) {
-            let ul = utilisations(s, a, &eq_lo);
-            for k in 0..n {
-                let slope = (pu[k] - ul[k]) / (0.2 * pf);
-                if out[k].is_none() && slope > 0.0 {
-                    let f = pf + (1.0 - pu[k]) / slope;
-                    out[k] = (f <= MAX_FACTOR).then_some(f);
-                }
+    if let Some((pf, pu)) = prev
+        && let Some(eq_lo) = solve_at(solver, s, loads, mass, pf * 0.8, &start)
+    {
+        let ul = utilisations(s, a, &eq_lo);
+        for k in 0..n {
+            let slope = (pu[k] - ul[k]) / (0.2 * pf);
+            if out[k].is_none() && slope > 0.0 {
+                let f = pf + (1.0 - pu[k]) / slope;
+                out[k] = (f <= MAX_FACTOR).then_some(f);
             }
         }
     }

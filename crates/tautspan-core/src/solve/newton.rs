@@ -264,7 +264,7 @@ fn line_minimum(
 ) -> bool {
     let dot = |g: &[f64]| g.iter().zip(step).map(|(a, b)| a * b).sum::<f64>();
     let d0 = dot(grad);
-    if !(d0 < 0.0) {
+    if d0.is_nan() || d0 >= 0.0 {
         return false;
     }
     let mut scaled = vec![0.0; step.len()];
@@ -278,7 +278,7 @@ fn line_minimum(
     };
     let (mut lo, mut flo) = (0.0, d0);
     let (mut hi, mut fhi) = (1.0, eval(1.0, ws));
-    if !(fhi > 0.0) {
+    if fhi.is_nan() || fhi <= 0.0 {
         return false;
     }
     let mut alpha = 0.5;
