@@ -296,6 +296,13 @@ pub fn draw(
 
     let results: HashMap<&str, &MemberResult> =
         case.map(|c| c.members.iter().map(|r| (r.id.as_str(), r)).collect()).unwrap_or_default();
+    // labels go on the side of each member away from the middle of the rig,
+    // so the labels of members meeting at a joint do not sit on each other
+    let centre = {
+        let pts: Vec<Pos2> = geo.nodes.iter().map(|n| view.to_screen(n.pos_m[0], n.pos_m[1])).collect();
+        let n = pts.len().max(1) as f32;
+        pts.iter().fold(Pos2::ZERO, |acc, p| acc + p.to_vec2() / n)
+    };
     for m in &geo.members {
         let (Some(a), Some(b)) = (geo.node(&m.ends.0), geo.node(&m.ends.1)) else { continue };
         let (sa, sb) = (view.to_screen(a.pos_m[0], a.pos_m[1]), view.to_screen(b.pos_m[0], b.pos_m[1]));
@@ -330,7 +337,26 @@ pub fn draw(
                 format!("{} {}", m.id, units.fmt(r.force_n, Shown::Force))
             };
             let mid = sa + (sb - sa) * 0.5;
-            label(painter, mid + vec2(8.0, -8.0), Align2::LEFT_BOTTOM, text, INK);
+            let dir = (sb - sa).normalized();
+            let mut normal = vec2(-dir.y, dir.x);
+            if normal.dot(mid - centre) < 0.0 {
+                normal = -normal;
+            }
+            let h = if normal.x > 0.3 {
+                egui::Align::Min
+            } else if normal.x < -0.3 {
+                egui::Align::Max
+            } else {
+                egui::Align::Center
+            };
+            let v = if normal.y > 0.3 {
+                egui::Align::Min
+            } else if normal.y < -0.3 {
+                egui::Align::Max
+            } else {
+                egui::Align::Center
+            };
+            label(painter, mid + normal * 10.0, Align2([h, v]), text, INK);
         }
     }
 

@@ -4,7 +4,7 @@
 
 use super::evaluate::{Allowables, evaluate};
 use super::formulas::{arrest_time_s, drop_factor, height_for_factor, release_for_factor, swing_factor};
-use super::limits::{critical_factor, item_factors};
+use super::limits::{LimitSearch, search_limits};
 use super::results::{Analysis, CaseResult, ComparisonRow, DynamicLoad, Limits, Warning};
 use super::warnings::case_warnings;
 use crate::CAUTION;
@@ -180,6 +180,7 @@ pub fn analyse(s: &Scenario) -> Analysis {
 
     // per mass with a dynamic case: path stiffness and critical factor
     let mut mass_limits: Vec<Option<MassLimits>> = vec![None; s.masses.len()];
+    let mut searches: Vec<Option<LimitSearch>> = vec![None; s.masses.len()];
     for c in &s.cases {
         if let Some(m) = c.mass()
             && mass_limits[m].is_none()
@@ -187,8 +188,9 @@ pub fn analyse(s: &Scenario) -> Analysis {
             let node = s.masses[m].node;
             let k =
                 solver.effective_stiffness(&base.eq, node, [0.0, -1.0, 0.0]).ok().filter(|k| k.is_finite() && *k > 0.0);
-            let factor = critical_factor(&mut solver, s, &allow, &loads, m, &base.eq);
-            mass_limits[m] = Some(MassLimits { factor, stiffness_n_per_m: k });
+            let search = search_limits(&mut solver, s, &allow, &loads, m, &base.eq);
+            mass_limits[m] = Some(MassLimits { factor: search.critical, stiffness_n_per_m: k });
+            searches[m] = Some(search);
         }
     }
 
@@ -213,7 +215,7 @@ pub fn analyse(s: &Scenario) -> Analysis {
         r.warning_items = items;
     }
 
-    let comparison = comparison(s, &allow, &results, &static_result, &mut solver, &loads, &base.eq, &mass_limits);
+    let comparison = comparison(s, &allow, &results, &static_result, &searches, &mass_limits);
     warnings.extend(
         results.iter().filter_map(|r| {
             r.error.as_ref().map(|e| Warning { subject: None, message: format!("case {}: {e}", r.id) })
@@ -368,18 +370,12 @@ fn dynamic_warnings(
     w
 }
 
-#[expect(
-    clippy::too_many_arguments,
-    reason = "the scenario, its network, allowables and solver travel together through one call"
-)]
 fn comparison(
     s: &Scenario,
     allow: &Allowables,
     results: &[CaseResult],
     static_result: &CaseResult,
-    solver: &mut StaticSolver,
-    loads: &NetworkLoads,
-    static_eq: &Equilibrium,
+    searches: &[Option<LimitSearch>],
     mass_limits: &[Option<MassLimits>],
 ) -> Vec<ComparisonRow> {
     let g = s.gravity_m_s2();
@@ -389,15 +385,8 @@ fn comparison(
         Case::Drop { mass, .. } | Case::Sudden { mass, .. } => Some(*mass),
         _ => None,
     });
-    let critical = |m: usize| mass_limits[m].and_then(|l| l.factor);
-    let swing_items = swing_mass.map(|m| item_factors(solver, s, allow, loads, m, static_eq, critical(m)));
-    let drop_items = drop_mass.map(|m| {
-        if Some(m) == swing_mass {
-            swing_items.clone().unwrap_or_default()
-        } else {
-            item_factors(solver, s, allow, loads, m, static_eq, critical(m))
-        }
-    });
+    let swing_items = swing_mass.and_then(|m| searches[m].as_ref()).map(|x| x.items.clone());
+    let drop_items = drop_mass.and_then(|m| searches[m].as_ref()).map(|x| x.items.clone());
 
     let n_members = s.members.len();
     let mut rows = Vec::new();

@@ -65,17 +65,6 @@ fn floor_loads(s: &Scenario, eq: &Equilibrium) -> Vec<(f64, f64, bool)> {
     out
 }
 
-/// Largest utilisation of any member or floor in an equilibrium.
-pub fn max_utilisation(s: &Scenario, a: &Allowables, eq: &Equilibrium) -> f64 {
-    let m = eq.member_force_n.iter().zip(&a.member_n).map(|(f, al)| f.abs() / al).fold(0.0, f64::max);
-    let f = floor_loads(s, eq)
-        .iter()
-        .enumerate()
-        .map(|(k, (force, defl, _))| f64::max(force / a.floor_n[k], defl / a.floor_deflection_m[k]))
-        .fold(0.0, f64::max);
-    m.max(f)
-}
-
 /// Utilisation of each member then each floor.
 pub fn utilisations(s: &Scenario, a: &Allowables, eq: &Equilibrium) -> Vec<f64> {
     let mut u: Vec<f64> = eq.member_force_n.iter().zip(&a.member_n).map(|(f, al)| f.abs() / al).collect();

@@ -1,84 +1,171 @@
 //! The largest load factor on one mass that keeps every member and floor
-//! within its allowable, found by a bracketed root search on the full
-//! network (Illinois false position: superlinear, never leaves the bracket),
-//! and per-item limits from a sweep of load factors.
+//! within its allowable, found by a root search on the full nonlinear
+//! network, and each item's own limiting factor from the same solves.
+//!
+//! Method: solve at the weight (the static case) and at twice it; predict
+//! each item's limiting factor from the straight line through those two
+//! utilisations; bracket the smallest prediction with full solves and close
+//! the bracket by Illinois false position (superlinear, never leaves the
+//! bracket) to 1e-7 relative on the factor. Every solve is warm-started from
+//! a straight-line extrapolation of the two nearest solved states, so each
+//! takes few Newton steps. An item's own limit is read from the solved
+//! samples by linear interpolation between the two that straddle it, or
+//! extrapolated from the two highest (an estimate, for items far from
+//! their allowable).
 
-use super::evaluate::{Allowables, max_utilisation, utilisations};
+use super::evaluate::{Allowables, utilisations};
 use crate::model::{NetworkLoads, Scenario};
 use crate::solve::{Equilibrium, SolveOptions, StaticSolver};
 
 /// Largest factor searched: 1000 × the weight.
 pub const MAX_FACTOR: f64 = 1000.0;
 
-/// Solve at load factor `factor` on `mass`, warm-started from `start`.
-pub fn solve_at(
-    solver: &mut StaticSolver,
-    s: &Scenario,
-    loads: &NetworkLoads,
-    mass: usize,
-    factor: f64,
-    start: &Equilibrium,
-) -> Option<Equilibrium> {
-    let l = loads.with_mass_factor(s, mass, factor);
-    solver.solve(&l, Some(&start.positions_m), &SolveOptions::default()).ok()
+/// The outcome of a limit search for one mass.
+#[derive(Debug, Clone, PartialEq)]
+pub struct LimitSearch {
+    /// The factor at which the first item reaches its allowable (`None`
+    /// when none does up to [`MAX_FACTOR`]; 0 when even no load is too much).
+    pub critical: Option<f64>,
+    /// Per item (members then floors), its own limiting factor.
+    pub items: Vec<Option<f64>>,
 }
 
-/// The load factor at which the first member or floor reaches its
-/// allowable; `None` when no factor ≥ 0 up to [`MAX_FACTOR`] brings any item
-/// to its allowable, `Some(f < 1)` when even less than the weight is too much.
-pub fn critical_factor(
+struct Sample {
+    factor: f64,
+    util: Vec<f64>,
+    eq: Equilibrium,
+}
+
+struct Search<'a> {
+    solver: &'a mut StaticSolver,
+    s: &'a Scenario,
+    a: &'a Allowables,
+    loads: &'a NetworkLoads,
+    mass: usize,
+    samples: Vec<Sample>,
+}
+
+impl Search<'_> {
+    /// Start positions for `f`: straight-line extrapolation of the two
+    /// solved samples nearest to it.
+    fn predict(&self, f: f64) -> Vec<[f64; 3]> {
+        let mut near: Vec<&Sample> = self.samples.iter().collect();
+        near.sort_by(|x, y| (x.factor - f).abs().total_cmp(&(y.factor - f).abs()));
+        match near.as_slice() {
+            [a, b, ..] if (b.factor - a.factor).abs() > 1e-12 => {
+                let t = (f - a.factor) / (b.factor - a.factor);
+                a.eq.positions_m
+                    .iter()
+                    .zip(&b.eq.positions_m)
+                    .map(|(pa, pb)| {
+                        [pa[0] + t * (pb[0] - pa[0]), pa[1] + t * (pb[1] - pa[1]), pa[2] + t * (pb[2] - pa[2])]
+                    })
+                    .collect()
+            }
+            [a, ..] => a.eq.positions_m.clone(),
+            [] => Vec::new(),
+        }
+    }
+
+    /// Largest utilisation at factor `f` (solving and recording the sample).
+    fn max_util(&mut self, f: f64) -> Option<f64> {
+        if let Some(x) = self.samples.iter().find(|x| x.factor == f) {
+            return Some(x.util.iter().copied().fold(0.0, f64::max));
+        }
+        let l = self.loads.with_mass_factor(self.s, self.mass, f);
+        let start = self.predict(f);
+        let opts = SolveOptions::default();
+        let eq = match self.solver.solve(&l, Some(&start), &opts) {
+            Ok(eq) => eq,
+            // a poor prediction can throw the start too far: retry from the nearest state
+            Err(_) => {
+                let nearest =
+                    self.samples.iter().min_by(|x, y| (x.factor - f).abs().total_cmp(&(y.factor - f).abs()))?;
+                let start = nearest.eq.positions_m.clone();
+                self.solver.solve(&l, Some(&start), &opts).ok()?
+            }
+        };
+        let util = utilisations(self.s, self.a, &eq);
+        let m = util.iter().copied().fold(0.0, f64::max);
+        self.samples.push(Sample { factor: f, util, eq });
+        Some(m)
+    }
+}
+
+/// Search the limits of `mass`, from the static equilibrium `static_eq`.
+pub fn search_limits(
     solver: &mut StaticSolver,
     s: &Scenario,
     a: &Allowables,
     loads: &NetworkLoads,
     mass: usize,
     static_eq: &Equilibrium,
-) -> Option<f64> {
-    let g = |solver: &mut StaticSolver, f: f64, start: &Equilibrium| -> Option<(f64, Equilibrium)> {
-        let eq = solve_at(solver, s, loads, mass, f, start)?;
-        Some((max_utilisation(s, a, &eq) - 1.0, eq))
-    };
-    let g1 = max_utilisation(s, a, static_eq) - 1.0;
-    // bracket [lo, hi] with g(lo) ≤ 0 < g(hi)
-    let (mut lo, mut glo, mut hi, mut ghi, mut near_eq);
+) -> LimitSearch {
+    let util1 = utilisations(s, a, static_eq);
+    let n = util1.len();
+    let mut sr =
+        Search { solver, s, a, loads, mass, samples: vec![Sample { factor: 1.0, util: util1, eq: static_eq.clone() }] };
+    let critical = critical(&mut sr);
+    let items = (0..n).map(|k| item_factor(&sr.samples, k)).collect();
+    LimitSearch { critical, items }
+}
+
+fn critical(sr: &mut Search<'_>) -> Option<f64> {
+    let g1 = sr.max_util(1.0)? - 1.0;
+    let (mut lo, mut glo, mut hi, mut ghi);
     if g1 > 0.0 {
-        let (g0, eq0) = g(solver, 0.0, static_eq)?;
+        let g0 = sr.max_util(0.0)? - 1.0;
         if g0 > 0.0 {
             return Some(0.0);
         }
-        (lo, glo, hi, ghi, near_eq) = (0.0, g0, 1.0, g1, eq0);
+        (lo, glo, hi, ghi) = (0.0, g0, 1.0, g1);
     } else {
-        lo = 1.0;
-        glo = g1;
-        near_eq = static_eq.clone();
-        let mut f = 2.0;
-        loop {
-            let (gf, eq) = g(solver, f, &near_eq)?;
-            if gf > 0.0 {
-                hi = f;
-                ghi = gf;
-                break;
+        let g2 = sr.max_util(2.0)? - 1.0;
+        if g2 > 0.0 {
+            (lo, glo, hi, ghi) = (1.0, g1, 2.0, g2);
+        } else {
+            // predict from the straight lines through the two samples
+            let (s1, s2) = (&sr.samples[0], &sr.samples[1]);
+            let pred = s1
+                .util
+                .iter()
+                .zip(&s2.util)
+                .filter(|(u1, u2)| *u2 > *u1)
+                .map(|(u1, u2)| 1.0 + (1.0 - u1) / (u2 - u1))
+                .fold(f64::INFINITY, f64::min);
+            lo = 2.0;
+            glo = g2;
+            let mut f = if pred.is_finite() { pred.clamp(2.0 * 1.0001, MAX_FACTOR) } else { 4.0 };
+            loop {
+                let gf = sr.max_util(f)? - 1.0;
+                if gf > 0.0 {
+                    hi = f;
+                    ghi = gf;
+                    break;
+                }
+                lo = f;
+                glo = gf;
+                if f >= MAX_FACTOR {
+                    return None;
+                }
+                // just short of the prediction: step past it a little, then widen
+                f = (f * if f < pred * 1.05 { 1.05 } else { 2.0 }).min(MAX_FACTOR);
             }
-            lo = f;
-            glo = gf;
-            near_eq = eq;
-            if f >= MAX_FACTOR {
-                return None;
-            }
-            f = (f * 2.0).min(MAX_FACTOR);
         }
     }
-    // Illinois false position
     let mut side = 0i8;
     for _ in 0..60 {
-        if (hi - lo) <= 1e-7 * hi {
+        if hi - lo <= 1e-7 * hi {
             break;
         }
         let mut m = hi - ghi * (hi - lo) / (ghi - glo);
         if !(m > lo && m < hi) {
             m = 0.5 * (lo + hi);
         }
-        let (gm, eq) = g(solver, m, &near_eq)?;
+        let gm = sr.max_util(m)? - 1.0;
+        if gm.abs() < 1e-9 {
+            return Some(m);
+        }
         if gm > 0.0 {
             hi = m;
             ghi = gm;
@@ -89,79 +176,32 @@ pub fn critical_factor(
         } else {
             lo = m;
             glo = gm;
-            near_eq = eq;
             if side == -1 {
                 ghi *= 0.5;
             }
             side = -1;
         }
-        if gm.abs() < 1e-9 {
-            return Some(m);
-        }
     }
     Some(0.5 * (lo + hi))
 }
 
-/// Per item (members then floors): the load factor at which it reaches its
-/// allowable, interpolated linearly on a sweep of factors up to three times
-/// the critical factor (at least 5, the swing's 180° factor), and beyond the
-/// sweep extrapolated linearly from its last two points (an estimate for
-/// items far from their allowable; `None` when the trend never reaches it).
-pub fn item_factors(
-    solver: &mut StaticSolver,
-    s: &Scenario,
-    a: &Allowables,
-    loads: &NetworkLoads,
-    mass: usize,
-    static_eq: &Equilibrium,
-    critical: Option<f64>,
-) -> Vec<Option<f64>> {
-    let top = critical.map_or(5.0, |c| (3.0 * c).clamp(5.0, MAX_FACTOR));
-    let mut sweep = vec![0.0, 1.0, 1.5, 2.0, 3.0, 5.0];
-    let mut f = 5.0;
-    while f < top {
-        f = (f * 2.0).min(top);
-        sweep.push(f);
+fn item_factor(samples: &[Sample], k: usize) -> Option<f64> {
+    let mut pts: Vec<(f64, f64)> = samples.iter().map(|x| (x.factor, x.util[k])).collect();
+    pts.sort_by(|x, y| x.0.total_cmp(&y.0));
+    if pts.first().is_some_and(|p| p.1 > 1.0) {
+        return Some(0.0);
     }
-    let n = s.members.len() + s.floors.len();
-    let mut out = vec![None; n];
-    let mut prev: Option<(f64, Vec<f64>)> = None;
-    let mut start = static_eq.clone();
-    for f in sweep {
-        let Some(eq) = solve_at(solver, s, loads, mass, f, &start) else { break };
-        let u = utilisations(s, a, &eq);
-        if let Some((pf, pu)) = &prev {
-            for k in 0..n {
-                if out[k].is_none() && pu[k] <= 1.0 && u[k] > 1.0 {
-                    let t = (1.0 - pu[k]) / (u[k] - pu[k]);
-                    out[k] = Some(pf + t * (f - pf));
-                }
-            }
-        } else {
-            for (k, uk) in u.iter().enumerate() {
-                if *uk > 1.0 {
-                    out[k] = Some(0.0);
-                }
-            }
-        }
-        prev = Some((f, u));
-        start = eq;
-        if out.iter().all(Option::is_some) {
-            break;
+    for w in pts.windows(2) {
+        let ((f0, u0), (f1, u1)) = (w[0], w[1]);
+        if u0 <= 1.0 && u1 > 1.0 {
+            return Some(f0 + (1.0 - u0) / (u1 - u0) * (f1 - f0));
         }
     }
-    // beyond the sweep: extend each remaining item's last slope
-    if let Some((pf, pu)) = prev
-        && let Some(eq_lo) = solve_at(solver, s, loads, mass, pf * 0.8, &start)
-    {
-        let ul = utilisations(s, a, &eq_lo);
-        for k in 0..n {
-            let slope = (pu[k] - ul[k]) / (0.2 * pf);
-            if out[k].is_none() && slope > 0.0 {
-                let f = pf + (1.0 - pu[k]) / slope;
-                out[k] = (f <= MAX_FACTOR).then_some(f);
-            }
+    match pts.as_slice() {
+        [.., (f0, u0), (f1, u1)] if u1 > u0 && f1 > f0 => {
+            let f = f1 + (1.0 - u1) / ((u1 - u0) / (f1 - f0));
+            (f <= MAX_FACTOR).then_some(f)
         }
+        _ => None,
     }
-    out
 }
