@@ -7,7 +7,8 @@
 
 use criterion::{Criterion, criterion_group, criterion_main};
 use tautspan_core::solve::{
-    AxialLaw, Fixity, NetMember, NetNode, Network, SimulateOptions, SimulationStart, SolveOptions, simulate, solve_static,
+    AxialLaw, Fixity, NetMember, NetNode, Network, SimulateOptions, SimulationStart, SolveOptions, simulate,
+    solve_static,
 };
 
 const G: f64 = 9.80665;

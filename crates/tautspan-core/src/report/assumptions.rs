@@ -24,7 +24,8 @@ pub fn assumptions(scenario: &Scenario, analysis: &Analysis, units: UnitSystem) 
             number(scenario.dynamic_ratio_warning)
         ));
     }
-    items.extend(analysis.assumptions.iter().map(|a| escape(a)));
+    // the analysis states g in SI; the report states it in its own units above
+    items.extend(analysis.assumptions.iter().filter(|a| !a.starts_with("Gravity ")).map(|a| escape(a)));
     let list: String = items.iter().map(|i| format!("<li>{i}</li>")).collect();
     format!(
         "<section id=\"assumptions\"><h2>Assumptions, formulas and sources</h2><ul class=\"assumptions\">{list}</ul></section>"
