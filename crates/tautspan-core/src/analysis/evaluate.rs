@@ -105,6 +105,8 @@ pub fn evaluate(s: &Scenario, net: &Network, a: &Allowables, loads: &[[f64; 3]],
             // d = w⊥ L² / (8 T), w⊥ = μ g cos α (Irvine, Cable Structures, parabolic sag)
             let w_across = m.linear_mass.value * s.gravity_m_s2() * angle.to_radians().cos();
             let sag_m = if force > 0.0 && w_across > 0.0 { w_across * length * length / (8.0 * force) } else { 0.0 };
+            // a plumb member has none; cos 90° is not exactly 0 in floating point
+            let sag_m = if sag_m < 1e-9 { 0.0 } else { sag_m };
             MemberResult {
                 id: m.id.clone(),
                 force_n: force,
@@ -115,6 +117,7 @@ pub fn evaluate(s: &Scenario, net: &Network, a: &Allowables, loads: &[[f64; 3]],
                 length_m: length,
                 sling_angle_deg: angle,
                 sag_m,
+                wave_transit_s: m.wave_speed_m_s.map(|c| length / c),
             }
         })
         .collect();

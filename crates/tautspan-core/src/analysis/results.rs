@@ -51,6 +51,11 @@ pub struct MemberResult {
     pub sling_angle_deg: f64,
     /// Own-weight sag at mid-length across the chord, m (parabolic, Irvine).
     pub sag_m: f64,
+    /// Longitudinal stress-wave transit time `L / c`, s, with `c = √(EA/μ)`
+    /// (`√(E/ρ)` for a solid member; CRC thin-rod speed), where the own
+    /// weight is known.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub wave_transit_s: Option<f64>,
 }
 
 /// One floor in one case.

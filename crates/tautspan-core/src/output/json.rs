@@ -33,7 +33,8 @@ fn case_json(c: &CaseResult) -> Value {
             .map(|m| {
                 json!({ "id": m.id, "force_n": num(m.force_n), "allowable_n": num(m.allowable_n),
                         "utilisation": num(m.utilisation), "state": m.state.as_str(), "stretch_m": num(m.stretch_m),
-                        "length_m": num(m.length_m), "sling_angle_deg": num(m.sling_angle_deg) })
+                        "length_m": num(m.length_m), "sling_angle_deg": num(m.sling_angle_deg),
+                        "sag_m": num(m.sag_m), "wave_transit_s": m.wave_transit_s.map(num) })
             })
             .collect(),
     );

@@ -68,26 +68,34 @@ fn case_text(c: &CaseResult, out: &mut String) {
         );
     }
     let _ = writeln!(out, "  converged in {} iterations, out-of-balance {:.2e} N", c.iterations, c.residual_n);
+    let waves = matches!(c.kind.as_str(), "drop" | "sudden");
     let rows: Vec<Vec<String>> = c
         .members
         .iter()
         .map(|m| {
-            vec![
+            let mut row = vec![
                 m.id.clone(),
                 kn(m.force_n),
                 kn(m.allowable_n),
                 pct(m.utilisation),
                 m.state.as_str().to_string(),
                 format_number(m.stretch_m * 1e3, 4),
+                format_number(m.sag_m * 1e3, 3),
                 format_number(m.sling_angle_deg, 3),
-            ]
+            ];
+            if waves {
+                row.push(m.wave_transit_s.map_or("-".into(), |t| format_number(t * 1e3, 3)));
+            }
+            row
         })
         .collect();
-    out.push_str(&indent(&table(
-        &["member", "force kN", "allowable kN", "util %", "state", "stretch mm", "angle deg"],
-        &rows,
-        &[false, true, true, true, false, true, true],
-    )));
+    let mut header = vec!["member", "force kN", "allowable kN", "util %", "state", "stretch mm", "sag mm", "angle deg"];
+    let mut right = vec![false, true, true, true, false, true, true, true];
+    if waves {
+        header.push("wave transit ms");
+        right.push(true);
+    }
+    out.push_str(&indent(&table(&header, &rows, &right)));
     if !c.floors.is_empty() {
         let rows: Vec<Vec<String>> = c
             .floors
