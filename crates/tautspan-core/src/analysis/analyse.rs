@@ -138,6 +138,7 @@ pub fn assumptions(s: &Scenario) -> Vec<String> {
         "Swing: lowest-point load m g (3 - 2 cos theta0) on the swinging mass (rigid line, energy and centripetal balance), network solved quasi-statically; limited to 90 deg, beyond which a rope goes slack.".to_string(),
         "Drop: F = W (1 + sqrt(1 + 2 k h / W)) with k the static path stiffness at the mass (Timoshenko & Gere, impact); sudden load: factor 2. Member mass, damping and hysteresis ignored (fibre ropes peak lower).".to_string(),
         "Allowable = rated strength x efficiency / design factor, or a working load limit as given; rods on yield x area.".to_string(),
+        "Limits: the case's largest release angle and drop height come from a root search on the full network to 1e-7 on the load factor; each member's own limit is interpolated between solved load factors, or extrapolated linearly beyond them (an estimate for members far from their allowable).".to_string(),
         format!("Near limit from utilisation {}; dynamic/static ratio warning above {}.", format_number(s.near_limit, 3), format_number(s.dynamic_ratio_warning, 3)),
     ]
 }
