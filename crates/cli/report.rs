@@ -8,20 +8,10 @@ use std::process::ExitCode;
 use tautspan_core::CAUTION;
 use tautspan_core::analysis::analyse;
 
-/// Today's date (UTC) as YYYY-MM-DD, from the system clock (civil-from-days,
-/// H. Hinnant's algorithm).
+/// Today's date (UTC) as YYYY-MM-DD, from the system clock.
 pub fn today() -> String {
     let secs = std::time::SystemTime::now().duration_since(std::time::UNIX_EPOCH).map_or(0, |d| d.as_secs());
-    let z = (secs / 86_400) as i64 + 719_468;
-    let era = z.div_euclid(146_097);
-    let doe = z - era * 146_097;
-    let yoe = (doe - doe / 1460 + doe / 36_524 - doe / 146_096) / 365;
-    let doy = doe - (365 * yoe + yoe / 4 - yoe / 100);
-    let mp = (5 * doy + 2) / 153;
-    let d = doy - (153 * mp + 2) / 5 + 1;
-    let m = if mp < 10 { mp + 3 } else { mp - 9 };
-    let y = yoe + era * 400 + i64::from(m <= 2);
-    format!("{y:04}-{m:02}-{d:02}")
+    tautspan_core::report::civil_date(secs)
 }
 
 /// Write `text` to `path` atomically: a temporary file beside it, flushed

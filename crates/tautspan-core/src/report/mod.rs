@@ -6,6 +6,7 @@
 mod assumptions;
 mod cases;
 mod comparison;
+mod date;
 mod document;
 mod drawing;
 mod escape;
@@ -23,6 +24,7 @@ mod table;
 mod unit_system;
 mod warnings;
 
+pub use date::civil_date;
 pub use document::{html, html_with_units};
 pub use escape::escape;
 pub use unit_system::UnitSystem;
