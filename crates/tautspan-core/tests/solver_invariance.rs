@@ -264,3 +264,85 @@ proptest! {
         prop_assert!(eq.positions_m.iter().flatten().all(|c| c.is_finite()));
     }
 }
+
+/// A flat rig in the plane z = 0.4: a three-leg bridle of ropes to two
+/// joints joined by a rod, one leg
+/// drawn short that the others unload.
+fn flat_rig() -> Network {
+    let mut net = Network::default();
+    let z = 0.4;
+    let mut add = |name: &str, p: [f64; 2], fixity: Fixity, load: f64| {
+        net.nodes.push(NetNode {
+            name: name.into(),
+            position_m: [p[0], p[1], z],
+            fixity,
+            load_n: [0.0, load, 0.0],
+            mass_kg: 0.0,
+        })
+    };
+    add("A1", [0.0, 6.0], Fixity::Fixed, 0.0);
+    add("A2", [5.0, 6.5], Fixity::Fixed, 0.0);
+    add("A3", [2.0, 7.0], Fixity::Fixed, 0.0);
+    add("J1", [1.5, 3.0], Fixity::Free, -4000.0);
+    add("J2", [3.5, 2.5], Fixity::Free, -2500.0);
+    let members = [
+        (0, 3, 5e6, 0.0, AxialLaw::TensionOnly),
+        (2, 3, 4e6, 0.02, AxialLaw::TensionOnly),
+        (1, 4, 6e6, 0.0, AxialLaw::TensionOnly),
+        (3, 4, 2e7, 0.0, AxialLaw::TensionAndCompression),
+        (2, 4, 5e6, -0.003, AxialLaw::TensionOnly),
+    ];
+    for (i, (a, b, ea, slack, law)) in members.into_iter().enumerate() {
+        let rest = dist(net.nodes[a].position_m, net.nodes[b].position_m) + slack;
+        net.members.push(NetMember {
+            name: format!("f{i}"),
+            ends: [a, b],
+            axial_stiffness_n: ea,
+            rest_length_m: rest,
+            law,
+        });
+    }
+    net
+}
+
+#[test]
+fn flat_network_solved_without_z_matches_the_three_dimensional_solve() {
+    use tautspan_core::solve::StaticSolver;
+    // The flat form drops the z dofs; turning the same rig about the
+    // vertical axis takes it out of any z = const plane, so that solve runs
+    // with every dof. Same forces to 1e-9 (as above), the flat positions
+    // stay exactly in the plane, and a load out of the plane switches the
+    // flat solver to three dimensions and gives the tilted answer.
+    let net = flat_rig();
+    let loads: Vec<[f64; 3]> = net.nodes.iter().map(|n| n.load_n).collect();
+    let mut flat = StaticSolver::new(&net).unwrap();
+    assert!(flat.is_flat());
+    let base = flat.solve(&loads, None, &tight()).unwrap();
+    assert!(base.positions_m.iter().all(|p| p[2] == 0.4), "{:?}", base.positions_m);
+    // a slack leg and loaded ones: both branches of the rope law are in play
+    assert!(base.member_force_n[4] == 0.0 && base.member_force_n[0] > 0.0, "{:?}", base.member_force_n);
+
+    let r = rotation([0.0, 1.0, 0.0], 0.9);
+    let mut turned = net.clone();
+    for n in &mut turned.nodes {
+        n.position_m = apply(&r, n.position_m);
+    }
+    let mut full = StaticSolver::new(&turned).unwrap();
+    assert!(!full.is_flat());
+    let turned_loads: Vec<[f64; 3]> = turned.nodes.iter().map(|n| n.load_n).collect();
+    assert_same_forces(&base, &full.solve(&turned_loads, None, &tight()).unwrap(), "flat vs turned");
+
+    let sideways: Vec<[f64; 3]> = loads.iter().map(|l| if l[1] != 0.0 { [0.0, l[1], 300.0] } else { *l }).collect();
+    let off = flat.solve(&sideways, None, &tight()).unwrap();
+    assert!(!flat.is_flat());
+    assert!(off.positions_m[3][2] > 0.4, "{:?}", off.positions_m[3]);
+    let fresh = solve_static(
+        &Network {
+            nodes: net.nodes.iter().zip(&sideways).map(|(n, l)| NetNode { load_n: *l, ..n.clone() }).collect(),
+            ..net.clone()
+        },
+        &tight(),
+    )
+    .unwrap();
+    assert_same_forces(&fresh, &off, "out-of-plane load");
+}

@@ -4,7 +4,7 @@
 
 use super::evaluate::{Allowables, evaluate};
 use super::formulas::{arrest_time_s, drop_factor, height_for_factor, release_for_factor, swing_factor};
-use super::limits::{LimitSearch, search_limits};
+use super::limits::{LimitSearch, predict_start, search_limits};
 use super::results::{Analysis, CaseResult, ComparisonRow, DynamicLoad, Limits, Warning};
 use super::warnings::case_warnings;
 use crate::CAUTION;
@@ -71,14 +71,25 @@ fn solve_case(
     solver: &mut StaticSolver,
     case: &Case,
     loads: &[[f64; 3]],
-    start: Option<&Equilibrium>,
+    start: Option<&[[f64; 3]]>,
     dynamic: Option<DynamicLoad>,
 ) -> Result<Solved, String> {
-    let eq = solver
-        .solve(loads, start.map(|e| e.positions_m.as_slice()), &SolveOptions::default())
-        .map_err(|e| e.to_string())?;
+    let eq = solver.solve(loads, start, &SolveOptions::default()).map_err(|e| e.to_string())?;
+    Ok(solved_case(s, net, a, case, loads, eq, dynamic))
+}
+
+/// The results of a case from its solved equilibrium.
+fn solved_case(
+    s: &Scenario,
+    net: &Network,
+    a: &Allowables,
+    case: &Case,
+    loads: &[[f64; 3]],
+    eq: Equilibrium,
+    dynamic: Option<DynamicLoad>,
+) -> Solved {
     let ev = evaluate(s, net, a, loads, &eq);
-    Ok(Solved {
+    Solved {
         result: CaseResult {
             id: case.id().to_string(),
             kind: case.kind_name().to_string(),
@@ -97,7 +108,7 @@ fn solve_case(
             warning_items: Vec::new(),
         },
         eq,
-    })
+    }
 }
 
 /// Scenario-wide warnings: design factors below the kind's default.
@@ -197,7 +208,7 @@ pub fn analyse(s: &Scenario) -> Analysis {
 
     let mut results: Vec<CaseResult> = Vec::with_capacity(s.cases.len());
     for c in &s.cases {
-        let r = run_case(s, &net, &allow, &mut solver, &loads, c, &base, &mass_limits);
+        let r = run_case(s, &net, &allow, &mut solver, &loads, c, &base, &mass_limits, &searches);
         results.push(r);
     }
     let static_result = s
@@ -245,6 +256,7 @@ fn run_case(
     c: &Case,
     base: &Solved,
     mass_limits: &[Option<MassLimits>],
+    searches: &[Option<LimitSearch>],
 ) -> CaseResult {
     let g = s.gravity_m_s2();
     let (factor, formula, k) = match c {
@@ -299,7 +311,22 @@ fn run_case(
     let l = loads.with_mass_factor(s, m, factor);
     let dynamic =
         DynamicLoad { mass: s.masses[m].id.clone(), factor, load_n: factor * w, formula, path_stiffness_n_per_m: k };
-    match solve_case(s, net, allow, solver, c, &l, Some(&base.eq), Some(dynamic)) {
+    // the limit search solved this mass at several factors already: the
+    // case is one of them (the sudden case is its factor-2 solve) or starts
+    // from the straight line through the two nearest
+    let samples: Vec<(f64, &Equilibrium)> = searches[m]
+        .as_ref()
+        .map(|x| x.samples.iter().map(|(f, eq)| (*f, eq)).collect())
+        .unwrap_or_else(|| vec![(1.0, &base.eq)]);
+    let same = samples.iter().find(|(f, _)| (f - factor).abs() <= 1e-12 * factor.abs().max(1.0));
+    let outcome = match same {
+        Some((_, eq)) => Ok(solved_case(s, net, allow, c, &l, (*eq).clone(), Some(dynamic))),
+        None => {
+            let start = predict_start(&samples, factor);
+            solve_case(s, net, allow, solver, c, &l, Some(&start), Some(dynamic))
+        }
+    };
+    match outcome {
         Ok(mut solved) => {
             if let Some(ml) = &mass_limits[m] {
                 solved.result.limits = limits_from(ml, w);

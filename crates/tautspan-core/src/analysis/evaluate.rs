@@ -5,7 +5,7 @@ use super::allowable::{floor_allowable, member_allowable};
 use super::results::{FloorResult, LoadPathResult, MemberResult, NodeResult, State, SupportResult};
 use crate::library::Carries;
 use crate::model::{Scenario, Support};
-use crate::solve::{Equilibrium, Network, load_paths};
+use crate::solve::{Equilibrium, Network, load_paths_from};
 
 /// The allowables of a scenario, computed once.
 #[derive(Debug, Clone)]
@@ -155,7 +155,16 @@ pub fn evaluate(s: &Scenario, net: &Network, a: &Allowables, loads: &[[f64; 3]],
         .filter(|(_, n)| n.support != Support::Joint)
         .map(|(i, n)| SupportResult { node: n.id.clone(), reaction_n: eq.reaction_n[i] })
         .collect();
-    let paths = load_paths(net, eq, loads, 1e-9);
+    // walks only from the masses' nodes (those with a load): the paths shown
+    let mut starts: Vec<usize> = s
+        .masses
+        .iter()
+        .map(|m| m.node)
+        .filter(|&i| loads.get(i).is_some_and(|l| l.iter().any(|c| *c != 0.0)))
+        .collect();
+    starts.sort_unstable();
+    starts.dedup();
+    let paths = load_paths_from(net, eq, &starts, 1e-9);
     let load_path = s
         .masses
         .iter()

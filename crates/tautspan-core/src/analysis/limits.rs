@@ -28,6 +28,29 @@ pub struct LimitSearch {
     pub critical: Option<f64>,
     /// Per item (members then floors), its own limiting factor.
     pub items: Vec<Option<f64>>,
+    /// The equilibria solved on the way, by load factor: the cases of this
+    /// mass start from them (or are one of them: the sudden case is the
+    /// factor-2 solve).
+    pub samples: Vec<(f64, Equilibrium)>,
+}
+
+/// Start positions for load factor `f`: straight-line extrapolation of the
+/// two solved states nearest to it.
+pub(crate) fn predict_start(samples: &[(f64, &Equilibrium)], f: f64) -> Vec<[f64; 3]> {
+    let mut near: Vec<&(f64, &Equilibrium)> = samples.iter().collect();
+    near.sort_by(|x, y| (x.0 - f).abs().total_cmp(&(y.0 - f).abs()));
+    match near.as_slice() {
+        [a, b, ..] if (b.0 - a.0).abs() > 1e-12 => {
+            let t = (f - a.0) / (b.0 - a.0);
+            a.1.positions_m
+                .iter()
+                .zip(&b.1.positions_m)
+                .map(|(pa, pb)| [pa[0] + t * (pb[0] - pa[0]), pa[1] + t * (pb[1] - pa[1]), pa[2] + t * (pb[2] - pa[2])])
+                .collect()
+        }
+        [a, ..] => a.1.positions_m.clone(),
+        [] => Vec::new(),
+    }
 }
 
 struct Sample {
@@ -46,25 +69,10 @@ struct Search<'a> {
 }
 
 impl Search<'_> {
-    /// Start positions for `f`: straight-line extrapolation of the two
-    /// solved samples nearest to it.
+    /// Start positions for `f` from the solved samples.
     fn predict(&self, f: f64) -> Vec<[f64; 3]> {
-        let mut near: Vec<&Sample> = self.samples.iter().collect();
-        near.sort_by(|x, y| (x.factor - f).abs().total_cmp(&(y.factor - f).abs()));
-        match near.as_slice() {
-            [a, b, ..] if (b.factor - a.factor).abs() > 1e-12 => {
-                let t = (f - a.factor) / (b.factor - a.factor);
-                a.eq.positions_m
-                    .iter()
-                    .zip(&b.eq.positions_m)
-                    .map(|(pa, pb)| {
-                        [pa[0] + t * (pb[0] - pa[0]), pa[1] + t * (pb[1] - pa[1]), pa[2] + t * (pb[2] - pa[2])]
-                    })
-                    .collect()
-            }
-            [a, ..] => a.eq.positions_m.clone(),
-            [] => Vec::new(),
-        }
+        let near: Vec<(f64, &Equilibrium)> = self.samples.iter().map(|x| (x.factor, &x.eq)).collect();
+        predict_start(&near, f)
     }
 
     /// Largest utilisation at factor `f` (solving and recording the sample).
@@ -107,7 +115,9 @@ pub fn search_limits(
         Search { solver, s, a, loads, mass, samples: vec![Sample { factor: 1.0, util: util1, eq: static_eq.clone() }] };
     let critical = critical(&mut sr);
     let items = (0..n).map(|k| item_factor(&sr.samples, k)).collect();
-    LimitSearch { critical, items }
+    let mut samples: Vec<(f64, Equilibrium)> = sr.samples.into_iter().map(|x| (x.factor, x.eq)).collect();
+    samples.sort_by(|x, y| x.0.total_cmp(&y.0));
+    LimitSearch { critical, items, samples }
 }
 
 fn critical(sr: &mut Search<'_>) -> Option<f64> {

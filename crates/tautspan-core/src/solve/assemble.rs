@@ -108,6 +108,93 @@ impl Model {
         (phi, scale)
     }
 
+    /// Change of the total potential from `pos` to `pos + step` (one value
+    /// per dof), computed from the step itself so that it keeps its relative
+    /// accuracy when it is many orders below the total (near equilibrium the
+    /// difference of two totals is roundoff), with a magnitude scale of the
+    /// summed terms for judging what is left of roundoff, J.
+    ///
+    /// Per member `ΔL = (2 d·δ + δ·δ) / (L + L')` (d the member vector, δ its
+    /// change) and `ΔU = ½ k ΔL (e + e')` while taut on both sides, the
+    /// one-sided forms where it goes slack or taut; likewise for floors and
+    /// the inertia term; the loads contribute `−f·step` exactly.
+    pub(crate) fn energy_change(
+        &self,
+        pos: &[[f64; 3]],
+        step: &[f64],
+        loads_dof: &[f64],
+        inertia: Option<Inertia<'_>>,
+        delta: &mut Vec<[f64; 3]>,
+    ) -> (f64, f64) {
+        delta.clear();
+        delta.resize(pos.len(), [0.0; 3]);
+        for (node, dofs) in self.node_dofs.iter().enumerate() {
+            for ax in 0..3 {
+                if dofs[ax] != NONE {
+                    delta[node][ax] = step[dofs[ax]];
+                }
+            }
+        }
+        let mut dphi = 0.0;
+        let mut scale = 0.0;
+        let one_sided = |e0: f64, e1: f64, de: f64, k: f64| -> f64 {
+            match (e0 > 0.0, e1 > 0.0) {
+                (true, true) => 0.5 * k * de * (e0 + e1),
+                (true, false) => -0.5 * k * e0 * e0,
+                (false, true) => 0.5 * k * e1 * e1,
+                (false, false) => 0.0,
+            }
+        };
+        for m in &self.members {
+            let (a, b) = (m.ends[0], m.ends[1]);
+            let d = [pos[b][0] - pos[a][0], pos[b][1] - pos[a][1], pos[b][2] - pos[a][2]];
+            let dd = [delta[b][0] - delta[a][0], delta[b][1] - delta[a][1], delta[b][2] - delta[a][2]];
+            if dd == [0.0; 3] {
+                continue;
+            }
+            let l0 = (d[0] * d[0] + d[1] * d[1] + d[2] * d[2]).sqrt();
+            let d1 = [d[0] + dd[0], d[1] + dd[1], d[2] + dd[2]];
+            let l1 = (d1[0] * d1[0] + d1[1] * d1[1] + d1[2] * d1[2]).sqrt();
+            let num =
+                2.0 * (d[0] * dd[0] + d[1] * dd[1] + d[2] * dd[2]) + (dd[0] * dd[0] + dd[1] * dd[1] + dd[2] * dd[2]);
+            let dl = if l0 + l1 > 0.0 { num / (l0 + l1) } else { 0.0 };
+            let e0 = l0 - m.rest_m;
+            let e1 = e0 + dl;
+            let du =
+                if m.tension_only { one_sided(e0, e1, dl, m.k_n_per_m) } else { 0.5 * m.k_n_per_m * dl * (e0 + e1) };
+            dphi += du;
+            scale += du.abs() + m.k_n_per_m * dl.abs() * (e0.abs() + e1.abs() + l0 * f64::EPSILON);
+        }
+        for f in &self.floors {
+            let dy = step[f.dof];
+            if dy == 0.0 {
+                continue;
+            }
+            let p0 = penetration(f, pos);
+            let p1 = p0 - dy;
+            let du = one_sided(p0, p1, -dy, f.k_n_per_m);
+            dphi += du;
+            scale += du.abs() + f.k_n_per_m * dy.abs() * (p0.abs() + p1.abs() + pos[f.node][1].abs() * f64::EPSILON);
+        }
+        for (l, s) in loads_dof.iter().zip(step) {
+            dphi -= l * s;
+            scale += (l * s).abs();
+        }
+        if let Some(inn) = inertia {
+            for (dof, z) in inn.target_m.iter().enumerate() {
+                let m = self.mass_per_dof_kg[dof];
+                if m > 0.0 {
+                    let x = self.dof_value(pos, dof);
+                    let s = step[dof];
+                    let du = 0.5 * inn.scale_per_s2 * m * s * (2.0 * (x - z) + s);
+                    dphi += du;
+                    scale += du.abs() + inn.scale_per_s2 * m * s.abs() * ((x - z).abs() + x.abs() * f64::EPSILON);
+                }
+            }
+        }
+        (dphi, scale)
+    }
+
     /// Gradient of the total potential (= internal − external force) per
     /// dof into `grad`, and per dof the sum of magnitudes of the terms (for
     /// the roundoff floor of the convergence test) into `mag`.

@@ -44,6 +44,9 @@ impl StaticSolver {
             return Err(invalid("direction must be finite and non-zero"));
         }
         let d = direction.map(|c| c / len);
+        if d[2] != 0.0 {
+            self.go_three_d()?;
+        }
         let dofs = self.model.node_dofs[node];
         if (0..3).all(|ax| dofs[ax] == NONE || d[ax] == 0.0) {
             return Err(invalid("the node is held along that direction"));

@@ -32,6 +32,22 @@ pub struct LoadPath {
 /// `loads_n` (one per node) at the equilibrium `eq` of `net`.
 /// `threshold_fraction` (e.g. 1e-6) decides which members carry force.
 pub fn load_paths(net: &Network, eq: &Equilibrium, loads_n: &[[f64; 3]], threshold_fraction: f64) -> Vec<LoadPath> {
+    let starts: Vec<usize> = loads_n
+        .iter()
+        .enumerate()
+        .take(net.nodes.len())
+        .filter(|(_, l)| l.iter().any(|c| *c != 0.0))
+        .map(|(i, _)| i)
+        .collect();
+    load_paths_from(net, eq, &starts, threshold_fraction)
+}
+
+/// Load paths from the nodes `starts` (ascending, no anchors: those are
+/// skipped), as [`load_paths`] defines them. The walk from each node is
+/// linear in the network size, so asking only for the nodes that matter
+/// (the masses, not every node carrying a member's own weight) keeps the
+/// cost linear too.
+pub fn load_paths_from(net: &Network, eq: &Equilibrium, starts: &[usize], threshold_fraction: f64) -> Vec<LoadPath> {
     let n = net.nodes.len();
     let max_force = eq.member_force_n.iter().fold(0.0_f64, |a, f| a.max(f.abs()));
     let threshold = threshold_fraction.max(0.0) * max_force;
@@ -45,19 +61,22 @@ pub fn load_paths(net: &Network, eq: &Equilibrium, loads_n: &[[f64; 3]], thresho
     }
     let is_support = |i: usize| !matches!(net.nodes[i].fixity, Fixity::Free);
     let mut paths = Vec::new();
-    for (start, load) in loads_n.iter().enumerate().take(n) {
-        let loaded = load.iter().any(|c| *c != 0.0);
-        if !loaded || matches!(net.nodes[start].fixity, Fixity::Fixed) {
+    let mut seen_node = vec![false; n];
+    let mut seen_member = vec![false; net.members.len()];
+    let mut queue = VecDeque::new();
+    for &start in starts {
+        if start >= n || matches!(net.nodes[start].fixity, Fixity::Fixed) {
             continue;
         }
-        let mut seen_node = vec![false; n];
-        let mut seen_member = vec![false; net.members.len()];
+        seen_node.fill(false);
+        seen_member.fill(false);
         let mut supports = Vec::new();
         let mut members = Vec::new();
         if eq.floor_force_n.get(start).is_some_and(|f| *f > 0.0) {
             supports.push(start);
         }
-        let mut queue = VecDeque::from([start]);
+        queue.clear();
+        queue.push_back(start);
         seen_node[start] = true;
         while let Some(i) = queue.pop_front() {
             for &(member, other) in &adjacent[i] {

@@ -17,7 +17,7 @@ mod validate;
 
 pub use equilibrium::Equilibrium;
 pub use error::SolveError;
-pub use load_path::{LoadPath, load_paths};
+pub use load_path::{LoadPath, load_paths, load_paths_from};
 pub use network::{AxialLaw, Fixity, NetMember, NetNode, Network};
 pub use newmark::{SimulateOptions, Simulation, SimulationStart, simulate};
 pub use newton::SolveOptions;

@@ -8,9 +8,14 @@
 //! ratio rule of Nielsen (1999), otherwise λ grows and the step is retried.
 //! The damping makes the shifted matrix positive definite however singular
 //! or indefinite K is (slack members, flat lines, rods in compression), and
-//! turns the step into a short gradient step far from equilibrium. Near
-//! convergence the energy change falls to roundoff level; there a step is
-//! accepted when it lowers the largest out-of-balance force instead.
+//! turns the step into a short gradient step far from equilibrium. The
+//! change of potential is computed from the step itself
+//! ([`Model::energy_change`]), so it stays accurate to the last steps,
+//! where the difference of two totals would be roundoff; only where even
+//! that change is below its own roundoff is a step judged by the
+//! out-of-balance force instead. A step rejected at a kink (a member going
+//! slack or taut) goes to the minimum along its direction; near the
+//! solution a watchdog lets full Newton steps through (see [`minimise`]).
 
 use super::assemble::Inertia;
 use super::error::SolveError;
@@ -64,6 +69,10 @@ pub(crate) struct Workspace {
     step: Vec<f64>,
     k_values: Vec<f64>,
     trial_pos: Vec<[f64; 3]>,
+    delta: Vec<[f64; 3]>,
+    best_pos: Vec<[f64; 3]>,
+    best_grad: Vec<f64>,
+    best_mag: Vec<f64>,
 }
 
 /// Largest |g_i| and its dof, and whether every dof is within tolerance
@@ -120,7 +129,6 @@ pub(crate) fn minimise(
     let mut nu = 2.0;
     let runaway_m = opts.runaway_factor * model.model_size_m;
 
-    let (mut phi, mut escale) = model.energy(pos, loads_dof, inertia);
     model.gradient(pos, loads_dof, inertia, &mut ws.grad, &mut ws.mag);
     let mut iterations = 0;
     let not_converged = |model: &Model, iterations: usize, grad: &[f64], mag: &[f64]| {
@@ -132,11 +140,36 @@ pub(crate) fn minimise(
             worst_node: model.node_name(model.dof_node[at]),
         }
     };
+    // Watchdog (Chamberlain et al., 1982) for the last stage: near the
+    // solution the full Newton step is taken even when it does not lower
+    // the potential, because there it is a kink that hides the progress
+    // (members at their rest length switching between slack and taut), and
+    // the generalised Newton step converges where the monotone safeguards
+    // creep. The state before the first such step is kept; if a few steps
+    // later the out-of-balance force is not below it, the iteration goes
+    // back to it and carries on monotone.
+    let mut watch = Watchdog { saved_res: None, free_steps: WATCHDOG_STEPS, enabled: true };
     loop {
         let (res, _, converged) = residual(&ws.grad, &ws.mag, tol_n);
         if converged {
             return Ok(NewtonOutcome { iterations, residual_n: res });
         }
+        let res = match watch.saved_res {
+            Some(saved) if res < saved => {
+                // progress past the saved state: it is no longer needed
+                watch.saved_res = None;
+                res
+            }
+            Some(saved) if watch.free_steps == 0 => {
+                pos.copy_from_slice(&ws.best_pos);
+                ws.grad.copy_from_slice(&ws.best_grad);
+                ws.mag.copy_from_slice(&ws.best_mag);
+                watch.saved_res = None;
+                watch.enabled = false;
+                saved
+            }
+            _ => res,
+        };
         model.tangent(pos, inertia, &mut ws.k_values);
         loop {
             if iterations >= opts.max_iterations || lambda > lambda_max {
@@ -163,45 +196,55 @@ pub(crate) fn minimise(
                 continue;
             }
             model.add_step(pos, &ws.step, &mut ws.trial_pos);
-            let (mut phi_t, mut escale_t) = model.energy(&ws.trial_pos, loads_dof, inertia);
-            let actual = phi - phi_t;
+            let (dphi, dscale) = model.energy_change(pos, &ws.step, loads_dof, inertia, &mut ws.delta);
+            let actual = -dphi;
             let step2: f64 = ws.step.iter().map(|s| s * s).sum();
             let gdx: f64 = -ws.step.iter().zip(&ws.grad).map(|(s, g)| s * g).sum::<f64>();
             let predicted = 0.5 * (gdx + lambda * step2);
-            let roundoff = 1e-12 * escale.max(escale_t);
+            let roundoff = 64.0 * f64::EPSILON * dscale;
+            let at_roundoff = actual.abs() <= roundoff;
             let mut have_trial_grad = false;
-            let mut accept = if actual.abs() <= roundoff {
+            let mut accept = if at_roundoff {
                 model.gradient(&ws.trial_pos, loads_dof, inertia, &mut ws.trial_grad, &mut ws.trial_mag);
                 have_trial_grad = true;
                 // at roundoff the energy cannot rank the steps; the sum of
-                // squared out-of-balance forces can (it falls along small
-                // steps even where tension-only members switch on and off,
-                // where the largest single component need not)
+                // squared out-of-balance forces can
                 let norm2 = |g: &[f64]| g.iter().map(|v| v * v).sum::<f64>();
                 let (res_t, _, _) = residual(&ws.trial_grad, &ws.trial_mag, tol_n);
                 res_t < res || norm2(&ws.trial_grad) < norm2(&ws.grad)
             } else {
-                actual > 0.0 && phi_t.is_finite()
+                actual > 0.0 && actual.is_finite()
             };
+            let mut forced = false;
+            if !accept && watch.enabled && watch.free_steps > 0 && res <= WATCHDOG_NEAR * tol_n && actual.is_finite() {
+                if watch.saved_res.is_none() {
+                    ws.best_pos.clear();
+                    ws.best_pos.extend_from_slice(pos);
+                    ws.best_grad.clone_from(&ws.grad);
+                    ws.best_mag.clone_from(&ws.mag);
+                    watch.saved_res = Some(res);
+                }
+                watch.free_steps -= 1;
+                accept = true;
+                forced = true;
+            }
             let mut line_searched = false;
-            if !accept && phi_t.is_finite() {
+            if !accept && actual.is_finite() {
                 // The step crossed a kink (a member going slack or taut, a
                 // floor contact opening): the quadratic model was wrong past
                 // it, not the direction. Go to the minimum along the
-                // direction, found from the directional derivative, which
-                // stays accurate where energy differences are at roundoff.
+                // direction, found from the directional derivative.
                 let (step, grad) = (std::mem::take(&mut ws.step), std::mem::take(&mut ws.grad));
                 let found = line_minimum(model, pos, &step, &grad, loads_dof, inertia, ws);
                 (ws.step, ws.grad) = (step, grad);
-                if found {
-                    let (p2, e2) = model.energy(&ws.trial_pos, loads_dof, inertia);
+                if let Some(alpha) = found {
+                    let scaled: Vec<f64> = ws.step.iter().map(|s| alpha * s).collect();
+                    let (d2, s2) = model.energy_change(pos, &scaled, loads_dof, inertia, &mut ws.delta);
                     let (res_t, _, _) = residual(&ws.trial_grad, &ws.trial_mag, tol_n);
-                    if p2 <= phi + roundoff && res_t.is_finite() {
+                    if d2 <= 64.0 * f64::EPSILON * s2 && res_t.is_finite() {
                         accept = true;
                         have_trial_grad = true;
                         line_searched = true;
-                        phi_t = p2;
-                        escale_t = e2;
                     }
                 }
             }
@@ -225,15 +268,13 @@ pub(crate) fn minimise(
             pos.copy_from_slice(&ws.trial_pos);
             std::mem::swap(&mut ws.grad, &mut ws.trial_grad);
             std::mem::swap(&mut ws.mag, &mut ws.trial_mag);
-            phi = phi_t;
-            escale = escale_t;
             // a step accepted at roundoff (energy change unmeasurable, the
             // out-of-balance fell) is a good step: the gain ratio means
             // nothing there, and reading it as 0 would double λ on every
             // such step and stall the soft dofs
-            let rho = if line_searched {
+            let rho = if line_searched || forced {
                 0.5
-            } else if have_trial_grad && actual.abs() <= roundoff {
+            } else if at_roundoff {
                 1.0
             } else if predicted > 0.0 {
                 (actual / predicted).clamp(0.0, 1.0)
@@ -245,6 +286,23 @@ pub(crate) fn minimise(
             break;
         }
     }
+}
+
+/// Full Newton steps the watchdog may take without lowering the potential.
+const WATCHDOG_STEPS: usize = 6;
+
+/// The watchdog acts once the out-of-balance force is within this many
+/// force tolerances (1e5 × 1e-9 of the load by default: the last stage of
+/// the iteration, where the active set is nearly settled).
+const WATCHDOG_NEAR: f64 = 1e5;
+
+struct Watchdog {
+    /// Out-of-balance force of the saved state, while one is kept.
+    saved_res: Option<f64>,
+    /// Forced steps left in this solve.
+    free_steps: usize,
+    /// Off after a return to the saved state.
+    enabled: bool,
 }
 
 /// Moves `ws.trial_pos` (and its gradient) to the minimum of the potential
@@ -261,11 +319,11 @@ fn line_minimum(
     loads_dof: &[f64],
     inertia: Option<Inertia<'_>>,
     ws: &mut Workspace,
-) -> bool {
+) -> Option<f64> {
     let dot = |g: &[f64]| g.iter().zip(step).map(|(a, b)| a * b).sum::<f64>();
     let d0 = dot(grad);
     if d0.is_nan() || d0 >= 0.0 {
-        return false;
+        return None;
     }
     let mut scaled = vec![0.0; step.len()];
     let mut eval = |alpha: f64, ws: &mut Workspace| -> f64 {
@@ -279,7 +337,7 @@ fn line_minimum(
     let (mut lo, mut flo) = (0.0, d0);
     let (mut hi, mut fhi) = (1.0, eval(1.0, ws));
     if fhi.is_nan() || fhi <= 0.0 {
-        return false;
+        return None;
     }
     let mut alpha = 0.5;
     let mut side = 0i8;
@@ -310,5 +368,5 @@ fn line_minimum(
     }
     // leave the trial state at the accepted α
     let _ = eval(alpha, ws);
-    alpha > 1e-6
+    (alpha > 1e-6).then_some(alpha)
 }

@@ -21,6 +21,15 @@ pub struct StaticSolver {
     components: Components,
     ws: Workspace,
     loads_dof: Vec<f64>,
+    /// The drawn plane z of a flat network solved without z dofs (see
+    /// [`Model::with_plane`]); `None` once solved in three dimensions.
+    plane_z: Option<f64>,
+}
+
+/// The common z of every node, when the network is flat in z.
+fn flat_plane(net: &Network) -> Option<f64> {
+    let z0 = net.nodes.first()?.position_m[2];
+    net.nodes.iter().all(|n| n.position_m[2] == z0).then_some(z0)
 }
 
 /// The force tolerance for loads `loads_n`: the relative tolerance times
@@ -39,7 +48,8 @@ impl StaticSolver {
     /// [`SolveError::Factorisation`] if the pattern cannot be analysed.
     pub fn new(net: &Network) -> Result<Self, SolveError> {
         validate_network(net)?;
-        let model = Model::new(net)?;
+        let plane_z = flat_plane(net);
+        let model = Model::with_plane(net, plane_z.is_some())?;
         let factor = if model.n_dofs() > 0 { Some(Factor::new(model.matrix.symbolic())?) } else { None };
         Ok(Self {
             net: net.clone(),
@@ -48,7 +58,38 @@ impl StaticSolver {
             loads_dof: vec![0.0; model.n_dofs()],
             model,
             factor,
+            plane_z,
         })
+    }
+
+    /// Whether the solver works without z dofs (a flat network, flat loads).
+    pub fn is_flat(&self) -> bool {
+        self.plane_z.is_some()
+    }
+
+    /// Leaves the flat form for the full three-dimensional one (a load or a
+    /// start position out of the plane needs the z dofs).
+    pub(crate) fn go_three_d(&mut self) -> Result<(), SolveError> {
+        if self.plane_z.take().is_some() {
+            self.model = Model::new(&self.net)?;
+            self.factor = if self.model.n_dofs() > 0 { Some(Factor::new(self.model.matrix.symbolic())?) } else { None };
+            self.loads_dof = vec![0.0; self.model.n_dofs()];
+            self.ws = Workspace::default();
+        }
+        Ok(())
+    }
+
+    /// Goes three-dimensional when loads or start positions leave the plane.
+    fn fit_plane(&mut self, loads_n: &[[f64; 3]], start_m: Option<&[[f64; 3]]>) -> Result<(), SolveError> {
+        if let Some(z0) = self.plane_z {
+            let off_loads = loads_n.iter().any(|l| l[2] != 0.0);
+            let free = |i: usize| matches!(self.net.nodes[i].fixity, super::network::Fixity::Free);
+            let off_start = start_m.is_some_and(|s| s.iter().enumerate().any(|(i, p)| free(i) && p[2] != z0));
+            if off_loads || off_start {
+                self.go_three_d()?;
+            }
+        }
+        Ok(())
     }
 
     /// The network this solver was built for.
@@ -77,6 +118,7 @@ impl StaticSolver {
             validate_per_node(&self.net, "start positions", start)?;
         }
         self.components.check_loads(&self.net, loads_n)?;
+        self.fit_plane(loads_n, start_m)?;
         self.model.gather(loads_n, &mut self.loads_dof);
         let mut pos = self.model.start_positions(start_m);
         let tol_n = force_tolerance(loads_n, opts);
