@@ -361,3 +361,40 @@ fn wave_transit_time_of_a_steel_rod() {
     let t = m.wave_transit_s.expect("own weight known for steel");
     assert!(rel(t, 4.0 / 5200.0) < 0.01, "{t}");
 }
+
+#[test]
+fn warm_start_from_a_prior_answer_gives_the_same_answer() {
+    use tautspan_core::analysis::{Prior, analyse_from};
+    // The app re-solves from the last answer while a node is dragged. The
+    // equilibrium does not depend on where the iteration starts (the
+    // potential of tension-only members is convex), so every member force
+    // must match a solve from the drawing. Tolerance 1e-7 of the largest
+    // force: both solves stop at 1e-9 of the load on the out-of-balance
+    // force, which leaves member forces equal to about that over the
+    // stiffness ratio of the rig.
+    for name in ["bridle-unequal.ron", "gantry-swing.ron", "mezzanine-hoist.ron"] {
+        let l = load_scenario(&example(name)).unwrap();
+        let before = analyse(&l.scenario);
+        let mut dto = l.dto.clone();
+        let joint = dto.nodes.iter_mut().find(|n| n.support == tautspan_core::file::SupportDto::Joint).unwrap();
+        let x = joint.at.x.0.trim_end_matches(" m").parse::<f64>().unwrap_or(0.0) + 0.07;
+        joint.at.x = Qty(format!("{x} m"));
+        let moved = build(&dto).unwrap();
+        let fresh = analyse(&moved);
+        let warm = analyse_from(&moved, Some(Prior { scenario: &l.scenario, analysis: &before }));
+        for (a, b) in fresh.cases.iter().zip(&warm.cases) {
+            assert!(a.converged && b.converged, "{name} {}", a.id);
+            let scale = a.members.iter().fold(1.0_f64, |m, r| m.max(r.force_n.abs()));
+            for (ma, mb) in a.members.iter().zip(&b.members) {
+                assert!(
+                    (ma.force_n - mb.force_n).abs() <= 1e-7 * scale,
+                    "{name} {} {}: {} vs {}",
+                    a.id,
+                    ma.id,
+                    ma.force_n,
+                    mb.force_n
+                );
+            }
+        }
+    }
+}

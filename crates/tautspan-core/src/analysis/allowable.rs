@@ -24,6 +24,16 @@ fn kn(v: f64) -> String {
     format!("{} kN", format_number(v / 1e3, 4))
 }
 
+/// Allowable axial force of a member, N (the number of [`member_allowable`]
+/// without its derivation, for the solves that need only the number).
+pub fn member_allowable_n(m: &Member) -> f64 {
+    match m.rating {
+        Rating::BreakingStrength(f) => f.value * m.efficiency / m.design_factor.value,
+        Rating::WorkingLoadLimit(f) => f.value,
+        Rating::Yield(fy) => fy.value * m.area.value / m.design_factor.value,
+    }
+}
+
 /// Allowable axial force of a member.
 pub fn member_allowable(m: &Member) -> Allowable {
     let df = &m.design_factor;
@@ -37,7 +47,7 @@ pub fn member_allowable(m: &Member) -> Allowable {
     };
     match m.rating {
         Rating::BreakingStrength(f) => {
-            let a = f.value * m.efficiency / df.value;
+            let a = member_allowable_n(m);
             Allowable {
                 force_n: a,
                 explanation: format!(
@@ -56,7 +66,7 @@ pub fn member_allowable(m: &Member) -> Allowable {
             explanation: format!("working load limit {} used as the allowable ({})", kn(f.value), m.rating_note),
         },
         Rating::Yield(fy) => {
-            let a = fy.value * m.area.value / df.value;
+            let a = member_allowable_n(m);
             Allowable {
                 force_n: a,
                 explanation: format!(

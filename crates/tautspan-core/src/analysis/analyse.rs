@@ -154,8 +154,46 @@ pub fn assumptions(s: &Scenario) -> Vec<String> {
     ]
 }
 
+/// A previous answer to start from: the scenario it was for and its analysis.
+#[derive(Debug, Clone, Copy)]
+pub struct Prior<'a> {
+    /// The scenario analysed before (same nodes, some moved or changed).
+    pub scenario: &'a Scenario,
+    /// Its analysis.
+    pub analysis: &'a Analysis,
+}
+
+/// Start positions from a prior answer: each node's drawn position now plus
+/// the displacement it had at the prior static equilibrium. `None` when the
+/// nodes are not the same ones in the same order or there is no converged
+/// static case to start from.
+fn warm_start(s: &Scenario, prior: Option<Prior<'_>>) -> Option<Vec<[f64; 3]>> {
+    let p = prior?;
+    if p.scenario.nodes.len() != s.nodes.len() || p.scenario.nodes.iter().zip(&s.nodes).any(|(a, b)| a.id != b.id) {
+        return None;
+    }
+    let st = p.analysis.cases.iter().find(|c| c.kind == "static" && c.converged && c.nodes.len() == s.nodes.len())?;
+    Some(
+        s.nodes
+            .iter()
+            .zip(&p.scenario.nodes)
+            .zip(&st.nodes)
+            .map(|((now, before), solved)| {
+                [0, 1, 2].map(|ax| now.position[ax].value + (solved.position_m[ax] - before.position[ax].value))
+            })
+            .collect(),
+    )
+}
+
 /// Analyse every case of a scenario.
 pub fn analyse(s: &Scenario) -> Analysis {
+    analyse_from(s, None)
+}
+
+/// As [`analyse`], with the static solve started from a prior answer's
+/// displacements (the app re-solving while a node is dragged): the same
+/// answer to the solver's tolerance in fewer Newton steps.
+pub fn analyse_from(s: &Scenario, prior: Option<Prior<'_>>) -> Analysis {
     let (net, loads) = to_network(s);
     let allow = Allowables::of(s);
     let mut warnings = input_warnings(s);
@@ -174,7 +212,12 @@ pub fn analyse(s: &Scenario) -> Analysis {
         }
     };
     let static_case = Case::Static { id: "static".to_string() };
-    let base = solve_case(s, &net, &allow, &mut solver, &static_case, &loads.total_n, None, None);
+    let start = warm_start(s, prior);
+    let mut base = solve_case(s, &net, &allow, &mut solver, &static_case, &loads.total_n, start.as_deref(), None);
+    if base.is_err() && start.is_some() {
+        // a prior state that no longer fits (a member made much shorter, say): from the drawing
+        base = solve_case(s, &net, &allow, &mut solver, &static_case, &loads.total_n, None, None);
+    }
     let base = match base {
         Ok(b) => b,
         Err(e) => {

@@ -1,7 +1,7 @@
 //! Turning one solved equilibrium into member, floor, node, support and
 //! load-path results against the allowables, with the state of each.
 
-use super::allowable::{floor_allowable, member_allowable};
+use super::allowable::{floor_allowable, member_allowable_n};
 use super::results::{FloorResult, LoadPathResult, MemberResult, NodeResult, State, SupportResult};
 use crate::library::Carries;
 use crate::model::{Scenario, Support};
@@ -12,31 +12,26 @@ use crate::solve::{Equilibrium, Network, load_paths_from};
 pub struct Allowables {
     /// Per member, N.
     pub member_n: Vec<f64>,
-    /// Per member, explanation.
-    pub member_note: Vec<String>,
     /// Per floor, N.
     pub floor_n: Vec<f64>,
     /// Per floor, deflection limit, m.
     pub floor_deflection_m: Vec<f64>,
-    /// Per floor, explanation.
-    pub floor_note: Vec<String>,
 }
 
 impl Allowables {
-    /// Compute every allowable of a scenario.
+    /// Compute every allowable of a scenario (the numbers; their
+    /// derivations in words come from [`member_allowable`](super::allowable::member_allowable)
+    /// and [`floor_allowable`] where they are shown).
     pub fn of(s: &Scenario) -> Allowables {
-        let (member_n, member_note) =
-            s.members.iter().map(member_allowable).map(|a| (a.force_n, a.explanation)).unzip();
+        let member_n = s.members.iter().map(member_allowable_n).collect();
         let mut floor_n = Vec::new();
         let mut floor_deflection_m = Vec::new();
-        let mut floor_note = Vec::new();
         for f in &s.floors {
             let (a, d) = floor_allowable(f);
             floor_n.push(a.force_n);
             floor_deflection_m.push(d);
-            floor_note.push(a.explanation);
         }
-        Allowables { member_n, member_note, floor_n, floor_deflection_m, floor_note }
+        Allowables { member_n, floor_n, floor_deflection_m }
     }
 }
 

@@ -11,8 +11,8 @@ pub mod results;
 mod simulate_case;
 mod warnings;
 
-pub use allowable::{Allowable, floor_allowable, member_allowable};
-pub use analyse::{analyse, assumptions};
+pub use allowable::{Allowable, floor_allowable, member_allowable, member_allowable_n};
+pub use analyse::{Prior, analyse, analyse_from, assumptions};
 pub use curves::{ReleaseCurve, release_curve, single_line_swing};
 pub use evaluate::Allowables;
 pub use results::*;

@@ -253,8 +253,12 @@ pub fn format_number(value: f64, significant: usize) -> String {
         return format!("{:.*e}", significant.saturating_sub(1), value);
     }
     let decimals = (significant as i32 - 1 - magnitude).max(0) as usize;
-    let s = format!("{value:.decimals$}");
-    if s.contains('.') { s.trim_end_matches('0').trim_end_matches('.').to_string() } else { s }
+    let mut s = format!("{value:.decimals$}");
+    if s.contains('.') {
+        let kept = s.trim_end_matches('0').trim_end_matches('.').len();
+        s.truncate(kept);
+    }
+    s
 }
 
 #[cfg(test)]
