@@ -77,6 +77,8 @@ pub struct TautspanApp {
     pub pending: Option<Pending>,
     /// The report waiting for a path.
     pub(crate) report_html: Option<String>,
+    /// The report waits for the results of the current revision.
+    pub(crate) export_waiting: bool,
     /// The user chose to close without saving.
     pub(crate) quit_allowed: bool,
     /// Set when the app asked the window to close.
@@ -104,6 +106,7 @@ impl TautspanApp {
             message: None,
             pending: None,
             report_html: None,
+            export_waiting: false,
             quit_allowed: false,
             close_requested: false,
             last_title: String::new(),
@@ -147,7 +150,18 @@ impl TautspanApp {
         for c in commands {
             self.apply_one(ctx, c);
         }
-        self.derived.refresh(&self.doc);
+        self.derived.refresh(&self.doc, ctx);
+        if self.export_waiting && self.derived.is_current(&self.doc) {
+            self.export_waiting = false;
+            self.file_command(ctx, Command::ExportReport);
+        }
+    }
+
+    /// Block until the results for the current revision are in (tests and
+    /// the benchmark; the app itself never waits on the solver). Returns
+    /// whether they arrived within a minute.
+    pub fn wait_for_results(&mut self) -> bool {
+        self.derived.wait_for(&self.doc, std::time::Duration::from_secs(60))
     }
 
     fn apply_one(&mut self, ctx: &egui::Context, c: Command) {
@@ -237,7 +251,6 @@ impl TautspanApp {
         self.fields.clear();
         self.canvas = CanvasState::default();
         self.view.fit_pending = true;
-        self.derived.refresh(&self.doc);
     }
 
     fn shortcuts(&mut self, ui: &Ui, out: &mut Vec<Command>) {
@@ -276,7 +289,7 @@ impl TautspanApp {
 
     /// One frame of the whole app inside `ui`.
     pub fn frame(&mut self, ui: &mut Ui) {
-        self.derived.refresh(&self.doc);
+        self.derived.refresh(&self.doc, ui.ctx());
         self.poll_files(ui.ctx());
         let mut out: Vec<Command> = Vec::new();
         self.shortcuts(ui, &mut out);
@@ -378,6 +391,11 @@ impl TautspanApp {
         ui.horizontal(|ui| {
             ui.label(self.tool.hint());
             ui.separator();
+            if self.derived.is_updating() {
+                ui.spinner();
+                ui.label("updating results…");
+                ui.separator();
+            }
             match &self.derived.solved {
                 Some(s) => {
                     let n = s.analysis.cases.len();

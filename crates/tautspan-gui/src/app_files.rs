@@ -55,6 +55,13 @@ impl TautspanApp {
                 }
             }
             Command::ExportReport => {
+                if !self.derived.is_current(&self.doc) {
+                    // the report is of the scenario as it is now: wait for its results
+                    self.export_waiting = true;
+                    self.message =
+                        Some(Message::Info("The report follows once the results are up to date.".to_string()));
+                    return;
+                }
                 let Some(solved) = self.derived.solved.as_ref() else {
                     self.message =
                         Some(Message::Error("No report: the scenario has problems to fix first.".to_string()));

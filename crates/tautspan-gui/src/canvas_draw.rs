@@ -6,6 +6,7 @@
 
 use crate::canvas::CanvasInput;
 use crate::colour_ramp::{RAMP_MAX, colour};
+use crate::member_labels::{self, Candidate, label};
 use crate::selection::Selection;
 use crate::units_display::{Shown, UnitSystem, fmt_utilisation};
 use crate::view::View;
@@ -172,13 +173,6 @@ pub fn mass_rect(geo: &Geometry, view: &View, m: &GeoMass) -> Option<Rect> {
     Some(Rect::from_center_size(p + vec2(0.0, 30.0), vec2(34.0, 20.0)))
 }
 
-fn label(painter: &Painter, at: Pos2, anchor: Align2, text: String, colour: Color32) {
-    let galley = painter.layout_no_wrap(text, FontId::proportional(12.0), colour);
-    let rect = anchor.anchor_size(at, galley.size()).expand(2.0);
-    painter.rect_filled(rect, 2.0, Color32::from_rgba_unmultiplied(0xf5, 0xf3, 0xec, 0xe0));
-    painter.galley(rect.min + vec2(2.0, 2.0), galley, colour);
-}
-
 fn draw_grid(painter: &Painter, view: &View, units: UnitSystem) {
     let rect = view.rect;
     painter.rect_filled(rect, 0.0, PAPER);
@@ -303,7 +297,8 @@ pub fn draw(
         let n = pts.len().max(1) as f32;
         pts.iter().fold(Pos2::ZERO, |acc, p| acc + p.to_vec2() / n)
     };
-    for m in &geo.members {
+    let mut labels = Vec::new();
+    for (k, m) in geo.members.iter().enumerate() {
         let (Some(a), Some(b)) = (geo.node(&m.ends.0), geo.node(&m.ends.1)) else { continue };
         let (sa, sb) = (view.to_screen(a.pos_m[0], a.pos_m[1]), view.to_screen(b.pos_m[0], b.pos_m[1]));
         let result = results.get(m.id.as_str()).copied();
@@ -331,32 +326,29 @@ pub fn draw(
         if input.labels
             && let Some(r) = result
         {
-            let text = if r.state == State::Slack {
-                format!("{} slack", m.id)
-            } else {
-                format!("{} {}", m.id, units.fmt(r.force_n, Shown::Force))
-            };
-            let mid = sa + (sb - sa) * 0.5;
-            let dir = (sb - sa).normalized();
-            let mut normal = vec2(-dir.y, dir.x);
-            if normal.dot(mid - centre) < 0.0 {
-                normal = -normal;
+            labels.push(Candidate { member: k, ends: [sa, sb], utilisation: r.utilisation, picked });
+        }
+    }
+    if input.labels {
+        let hidden = member_labels::draw(painter, view.rect, centre, labels, INK, |k| {
+            let m = &geo.members[k];
+            match results.get(m.id.as_str()) {
+                Some(r) if r.state == State::Slack => format!("{} slack", m.id),
+                Some(r) => format!("{} {}", m.id, units.fmt(r.force_n, Shown::Force)),
+                None => m.id.clone(),
             }
-            let h = if normal.x > 0.3 {
-                egui::Align::Min
-            } else if normal.x < -0.3 {
-                egui::Align::Max
-            } else {
-                egui::Align::Center
-            };
-            let v = if normal.y > 0.3 {
-                egui::Align::Min
-            } else if normal.y < -0.3 {
-                egui::Align::Max
-            } else {
-                egui::Align::Center
-            };
-            label(painter, mid + normal * 10.0, Align2([h, v]), text, INK);
+        });
+        if hidden > 0 {
+            let text = format!(
+                "{hidden} force label(s) left out: members too short on screen or crowded. Zoom in, or read the results table."
+            );
+            painter.text(
+                view.rect.left_bottom() + vec2(16.0, -40.0),
+                Align2::LEFT_BOTTOM,
+                text,
+                FontId::proportional(11.0),
+                CASING,
+            );
         }
     }
 

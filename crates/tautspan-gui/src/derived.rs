@@ -1,37 +1,130 @@
 //! What follows from the document: the validated scenario and its analysis,
-//! or the validation problems. Recomputed only when the document's revision
-//! changes, never on a frame that edited nothing.
+//! or the validation problems. A changed revision is sent to the solve
+//! worker; until its answer arrives the last results stay on screen, marked
+//! as updating. Results older than the ones shown are discarded. Nothing is
+//! re-solved on a frame that edited nothing.
 
-use crate::core_bridge::{Solved, solve};
+use crate::core_bridge::Solved;
 use crate::document::Document;
+use crate::solve_worker::{Outcome, SolveWorker, solve_revision};
+use std::sync::Arc;
+use std::time::{Duration, Instant};
 use tautspan_core::analysis::{CaseResult, MemberResult};
 use tautspan_core::model::Problem;
 
 /// The derived state of the document.
 #[derive(Debug, Default)]
 pub struct Derived {
-    /// The document revision these results are for.
+    /// The document revision the results shown are for.
     pub revision: u64,
     /// The analysis, when the scenario validates.
-    pub solved: Option<Solved>,
+    pub solved: Option<Arc<Solved>>,
     /// Why it does not validate.
     pub problems: Vec<Problem>,
-    /// Time of the last solve, ms.
+    /// Time of the solve of the results shown, ms (on the worker).
     pub solve_ms: f64,
-    /// How many solves have run (for the status bar and tests).
+    /// How many results have been taken in (for tests).
     pub solves: u64,
+    /// The newest revision sent to the worker.
+    requested: u64,
+    /// The worker, started on the first request.
+    worker: Option<SolveWorker>,
+    /// The context the worker wakes when an answer is ready.
+    ctx: Option<egui::Context>,
 }
 
 impl Derived {
-    /// Bring the results up to the document's revision. Returns true when it re-solved.
-    pub fn refresh(&mut self, doc: &Document) -> bool {
-        if self.revision == doc.revision {
+    /// Send the document to the worker when its revision is new, and take
+    /// in whatever answers have arrived. Returns true when the results shown
+    /// changed.
+    pub fn refresh(&mut self, doc: &Document, ctx: &egui::Context) -> bool {
+        if self.ctx.is_none() {
+            self.ctx = Some(ctx.clone());
+        }
+        self.request(doc);
+        self.take_arrived()
+    }
+
+    /// Whether the results shown are for the document's current revision.
+    pub fn is_current(&self, doc: &Document) -> bool {
+        self.revision == doc.revision
+    }
+
+    /// Whether a newer revision than the one shown is being solved.
+    pub fn is_updating(&self) -> bool {
+        self.requested > self.revision
+    }
+
+    /// Block until the results for the document's current revision are in,
+    /// or `timeout` passes (tests and the benchmark; the UI never waits).
+    /// Returns whether they are in.
+    pub fn wait_for(&mut self, doc: &Document, timeout: Duration) -> bool {
+        let deadline = Instant::now() + timeout;
+        self.request(doc);
+        let mut took = self.take_arrived();
+        while !self.is_current(doc) {
+            let left = deadline.saturating_duration_since(Instant::now());
+            let Some(w) = &self.worker else { break };
+            match w.wait(left) {
+                Ok(Some(o)) => took |= self.install(o),
+                Ok(None) => break,
+                Err(_) => {
+                    self.worker = None;
+                    self.requested = self.revision;
+                    self.request(doc);
+                }
+            }
+        }
+        if took && let Some(ctx) = &self.ctx {
+            ctx.request_repaint();
+        }
+        self.is_current(doc)
+    }
+
+    /// Send the current revision unless it was sent already. Without a
+    /// worker (no context yet, or no thread to be had) it is solved here.
+    fn request(&mut self, doc: &Document) {
+        if self.requested == doc.revision {
+            return;
+        }
+        self.requested = doc.revision;
+        if self.worker.is_none()
+            && let Some(ctx) = &self.ctx
+        {
+            self.worker = SolveWorker::spawn(ctx.clone()).ok();
+        }
+        let sent = self.worker.as_ref().is_some_and(|w| w.request(doc.revision, doc.dto.clone()));
+        if !sent {
+            self.worker = None;
+            let o = solve_revision(doc.revision, &doc.dto, self.solved.as_deref());
+            self.install(o);
+        }
+    }
+
+    fn take_arrived(&mut self) -> bool {
+        let Some(w) = &self.worker else { return false };
+        match w.arrived() {
+            Ok(outcomes) => outcomes.into_iter().fold(false, |took, o| self.install(o) | took),
+            Err(_) => {
+                // the worker ended: start another on the next request
+                self.worker = None;
+                if self.requested > self.revision {
+                    self.requested = self.revision;
+                }
+                false
+            }
+        }
+    }
+
+    /// Show an outcome unless it is older than what is shown.
+    fn install(&mut self, o: Outcome) -> bool {
+        if o.revision <= self.revision {
             return false;
         }
-        self.revision = doc.revision;
+        self.revision = o.revision;
         self.solves += 1;
-        let start = std::time::Instant::now();
-        match solve(&doc.dto) {
+        self.solve_ms = o.solve_ms;
+        match o.result {
             Ok(s) => {
                 self.solved = Some(s);
                 self.problems.clear();
@@ -41,7 +134,6 @@ impl Derived {
                 self.problems = p;
             }
         }
-        self.solve_ms = start.elapsed().as_secs_f64() * 1e3;
         true
     }
 
@@ -64,5 +156,41 @@ impl Derived {
         self.problems.iter().filter(move |p| {
             p.path == path || (p.path.starts_with(path) && p.path[path.len()..].starts_with(['.', '[']))
         })
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    fn outcome(revision: u64) -> Outcome {
+        Outcome { revision, result: Err(Vec::new()), solve_ms: 0.0 }
+    }
+
+    #[test]
+    fn an_answer_older_than_the_one_shown_is_discarded() {
+        let mut d = Derived::default();
+        assert!(d.install(outcome(3)));
+        assert!(!d.install(outcome(2)), "older than shown");
+        assert!(!d.install(outcome(3)), "already shown");
+        assert_eq!(d.revision, 3);
+    }
+
+    #[test]
+    fn the_newest_revision_wins() {
+        let ctx = egui::Context::default();
+        let mut doc = Document::new(crate::document::blank_scenario(), None);
+        let mut d = Derived::default();
+        d.refresh(&doc, &ctx);
+        for t in ["a", "b", "c"] {
+            doc.edit(None, |s| s.title = t.to_string());
+            d.refresh(&doc, &ctx);
+        }
+        assert!(d.wait_for(&doc, Duration::from_secs(60)));
+        assert_eq!(d.revision, doc.revision);
+        assert!(!d.is_updating());
+        let title = d.solved.as_ref().map(|s| s.analysis.title.clone());
+        assert_eq!(title.as_deref(), Some("c"), "the results are of the last edit");
+        assert!(d.solves <= 4, "at most one answer per revision taken in");
     }
 }

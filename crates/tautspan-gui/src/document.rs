@@ -38,6 +38,15 @@ impl Document {
 
     /// Apply an edit, recording the state before it for undo.
     pub fn edit(&mut self, merge_key: Option<&str>, apply: impl FnOnce(&mut ScenarioDto)) {
+        if self.undo.merges(merge_key) {
+            // the undo step already holds the state before this run of edits:
+            // no copy of the whole scenario per drag step or keystroke
+            apply(&mut self.dto);
+            self.undo.record_merged();
+            self.dirty = true;
+            self.revision += 1;
+            return;
+        }
         let before = self.dto.clone();
         apply(&mut self.dto);
         if self.dto != before {

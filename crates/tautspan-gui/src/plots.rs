@@ -102,7 +102,9 @@ impl Plots {
             RichText::new(format!("{member}: force at the lowest point against release angle (case {})", case.id()))
                 .strong(),
         );
-        let key: CurveKey = (doc.revision, case.id().to_string(), member.to_string());
+        // keyed by the revision of the results, not the document: while they
+        // update, the curve belongs to the scenario they were found for
+        let key: CurveKey = (derived.revision, case.id().to_string(), member.to_string());
         if let Some((k, rx)) = &self.curve_job
             && let Ok(points) = rx.try_recv()
         {
@@ -113,11 +115,11 @@ impl Plots {
         let running = self.curve_job.as_ref().is_some_and(|(k, _)| *k == key);
         if !fresh && !running {
             let (tx, rx) = channel();
-            let Some(scenario) = derived.solved.as_ref().map(|s| s.scenario.clone()) else { return };
+            let Some(solved) = derived.solved.clone() else { return };
             let (c, m) = (key.1.clone(), key.2.clone());
             let ctx = ui.ctx().clone();
             std::thread::spawn(move || {
-                let _ = tx.send(swing_curve(&scenario, &c, &m, &ANGLES));
+                let _ = tx.send(swing_curve(&solved.scenario, &c, &m, &ANGLES));
                 ctx.request_repaint();
             });
             self.curve_job = Some((key.clone(), rx));
@@ -181,7 +183,7 @@ impl Plots {
         let Some(solved) = derived.solved.as_ref() else { return };
         let case_id =
             shown.map(str::to_string).or_else(|| doc.dto.cases.first().map(|c| c.id().to_string())).unwrap_or_default();
-        let key = (doc.revision, case_id.clone());
+        let key = (derived.revision, case_id.clone());
         if let Some(job) = &self.sim_job
             && let Ok(r) = job.rx.try_recv()
         {
@@ -201,7 +203,7 @@ impl Plots {
                 let cancel = Arc::new(AtomicBool::new(false));
                 let (tx, rx) = channel();
                 let (p, c) = (progress.clone(), cancel.clone());
-                let scenario = solved.scenario.clone();
+                let solved = solved.clone();
                 let case = case_id.clone();
                 let ctx = ui.ctx().clone();
                 std::thread::spawn(move || {
@@ -209,7 +211,7 @@ impl Plots {
                         p.store((f as f32).to_bits(), Ordering::Relaxed);
                         !c.load(Ordering::Relaxed)
                     };
-                    let _ = tx.send(simulate(&scenario, &case, 6.0, &mut report));
+                    let _ = tx.send(simulate(&solved.scenario, &case, 6.0, &mut report));
                     ctx.request_repaint();
                 });
                 self.sim_job = Some(SimJob { progress, cancel, rx, key: key.clone() });

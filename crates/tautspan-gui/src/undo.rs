@@ -21,8 +21,7 @@ impl UndoStack {
     /// Record the document as it was before an edit. An edit with the same
     /// `merge_key` as the previous one is folded into it.
     pub fn record(&mut self, before: &ScenarioDto, merge_key: Option<&str>) {
-        let merges = merge_key.is_some() && merge_key == self.last_key.as_deref();
-        if !merges {
+        if !self.merges(merge_key) {
             self.undo.push(before.clone());
             if self.undo.len() > LIMIT {
                 self.undo.remove(0);
@@ -30,6 +29,16 @@ impl UndoStack {
         }
         self.redo.clear();
         self.last_key = merge_key.map(str::to_string);
+    }
+
+    /// Whether an edit with `merge_key` folds into the previous step.
+    pub fn merges(&self, merge_key: Option<&str>) -> bool {
+        merge_key.is_some() && merge_key == self.last_key.as_deref()
+    }
+
+    /// Record an edit folded into the previous step (see [`UndoStack::merges`]).
+    pub fn record_merged(&mut self) {
+        self.redo.clear();
     }
 
     /// Stop merging: the next edit starts a new step.

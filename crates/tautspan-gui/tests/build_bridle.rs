@@ -46,8 +46,12 @@ fn build_a_two_leg_bridle_and_read_the_forces() {
         assert!(h.query_all_by_label(&text).count() >= 1, "table shows {text} for {}", m.id);
         assert!(m.force_n > 400.0 * 9.80665 / 2.0, "each leg carries more than half the weight");
     }
-    let shown = h.state().derived.solved.as_ref().map(|s| s.analysis.cases[0].members[0].force_n);
-    assert_eq!(shown, Some(case.members[0].force_n), "the app's numbers are the core's");
+    // the app re-solves warm-started from its previous answer: the same
+    // equilibrium to the solver's residual tolerance (1e-9 of the forces),
+    // so the forces agree to 1e-7 relative
+    let shown = h.state().derived.solved.as_ref().map(|s| s.analysis.cases[0].members[0].force_n).unwrap_or_default();
+    let core = case.members[0].force_n;
+    assert!((shown - core).abs() <= 1e-7 * core.abs(), "the app's numbers are the core's: {shown} against {core}");
 
     // undo the mass edit, then the mass, and redo both
     click(&mut h, "Select");

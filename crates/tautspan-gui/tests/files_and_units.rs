@@ -117,7 +117,13 @@ fn save_then_open_round_trips_and_unsaved_changes_are_guarded() {
         .as_ref()
         .map(|s| s.analysis.cases[0].members.iter().map(|m| m.force_n).collect())
         .unwrap_or_default();
-    assert_eq!(again, forces, "same numbers");
+    // the earlier numbers were warm-started from the edit before them, these
+    // are solved afresh: the same equilibrium to the solver's tolerance
+    // (residual 1e-9 of the forces), so 1e-7 relative
+    assert_eq!(again.len(), forces.len());
+    for (a, f) in again.iter().zip(&forces) {
+        assert!((a - f).abs() <= 1e-7 * f.abs(), "same numbers: {a} against {f}");
+    }
     assert_eq!(h.state().prefs.recent.first(), Some(&path), "listed in recent files");
     let _ = std::fs::remove_dir_all(&dir);
 }

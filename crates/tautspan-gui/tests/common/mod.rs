@@ -8,9 +8,17 @@ use egui_kittest::Harness;
 use egui_kittest::kittest::Queryable;
 use tautspan_gui::{Document, Prefs, TautspanApp, blank_scenario};
 
+/// A harness on the whole app. After each frame it waits for the solve
+/// worker's answer to the current revision, so every test step sees the
+/// results of what it just did (the app itself never waits).
 pub fn harness(app: TautspanApp) -> Harness<'static, TautspanApp> {
-    let mut h =
-        Harness::builder().with_size([1400.0, 900.0]).build_ui_state(|ui, app: &mut TautspanApp| app.frame(ui), app);
+    let mut h = Harness::builder().with_size([1400.0, 900.0]).build_ui_state(
+        |ui, app: &mut TautspanApp| {
+            app.frame(ui);
+            assert!(app.wait_for_results(), "the solve worker answers within a minute");
+        },
+        app,
+    );
     h.run();
     h
 }
