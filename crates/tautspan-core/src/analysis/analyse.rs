@@ -391,11 +391,13 @@ fn dynamic_warnings(
     let Some(m) = c.mass() else { return w };
     let g = s.gravity_m_s2();
     let mass_kg = s.masses[m].mass.value;
+    let index: std::collections::HashMap<&str, usize> =
+        s.members.iter().enumerate().map(|(i, x)| (x.id.as_str(), i)).collect();
     let path: Vec<usize> = r
         .load_path
         .iter()
         .filter(|p| p.mass == s.masses[m].id)
-        .flat_map(|p| p.members.iter().filter_map(|id| s.members.iter().position(|x| &x.id == id)))
+        .flat_map(|p| p.members.iter().filter_map(|id| index.get(id.as_str()).copied()))
         .collect();
     if let Case::Swing { .. } = c {
         {

@@ -35,12 +35,16 @@ pub struct LimitSearch {
 }
 
 /// Start positions for load factor `f`: straight-line extrapolation of the
-/// two solved states nearest to it.
+/// solved state nearest to it and the nearest other one far enough from it
+/// (at least a tenth of the way to `f`, so that the line is not stretched
+/// more than tenfold from two nearly equal solves).
 pub(crate) fn predict_start(samples: &[(f64, &Equilibrium)], f: f64) -> Vec<[f64; 3]> {
     let mut near: Vec<&(f64, &Equilibrium)> = samples.iter().collect();
     near.sort_by(|x, y| (x.0 - f).abs().total_cmp(&(y.0 - f).abs()));
-    match near.as_slice() {
-        [a, b, ..] if (b.0 - a.0).abs() > 1e-12 => {
+    let Some(a) = near.first() else { return Vec::new() };
+    let reach = (f - a.0).abs();
+    match near.iter().skip(1).find(|b| (b.0 - a.0).abs() >= 0.1 * reach && (b.0 - a.0).abs() > 1e-12) {
+        Some(b) if reach > 0.0 => {
             let t = (f - a.0) / (b.0 - a.0);
             a.1.positions_m
                 .iter()
@@ -48,8 +52,7 @@ pub(crate) fn predict_start(samples: &[(f64, &Equilibrium)], f: f64) -> Vec<[f64
                 .map(|(pa, pb)| [pa[0] + t * (pb[0] - pa[0]), pa[1] + t * (pb[1] - pa[1]), pa[2] + t * (pb[2] - pa[2])])
                 .collect()
         }
-        [a, ..] => a.1.positions_m.clone(),
-        [] => Vec::new(),
+        _ => a.1.positions_m.clone(),
     }
 }
 
@@ -75,6 +78,11 @@ impl Search<'_> {
         predict_start(&near, f)
     }
 
+    /// The sample solved at factor `f`.
+    fn sample(&self, f: f64) -> Option<&Sample> {
+        self.samples.iter().find(|x| x.factor == f)
+    }
+
     /// Largest utilisation at factor `f` (solving and recording the sample).
     fn max_util(&mut self, f: f64) -> Option<f64> {
         if let Some(x) = self.samples.iter().find(|x| x.factor == f) {
@@ -98,6 +106,23 @@ impl Search<'_> {
         self.samples.push(Sample { factor: f, util, eq });
         Some(m)
     }
+}
+
+/// How far past a predicted root the bracketing solve is placed, relative:
+/// half the closing tolerance, so that a right prediction closes the
+/// bracket at once.
+const OVERSHOOT: f64 = 5e-8;
+
+/// The smallest load factor at which any item's utilisation reaches 1 on
+/// the straight lines through two solved samples (infinite when no item
+/// rises between them).
+fn line_prediction(a: &Sample, b: &Sample) -> f64 {
+    a.util
+        .iter()
+        .zip(&b.util)
+        .filter(|(ua, ub)| *ub > *ua)
+        .map(|(ua, ub)| b.factor + (1.0 - ub) * (b.factor - a.factor) / (ub - ua))
+        .fold(f64::INFINITY, f64::min)
 }
 
 /// Search the limits of `mass`, from the static equilibrium `static_eq`.
@@ -134,32 +159,42 @@ fn critical(sr: &mut Search<'_>) -> Option<f64> {
         if g2 > 0.0 {
             (lo, glo, hi, ghi) = (1.0, g1, 2.0, g2);
         } else {
-            // predict from the straight lines through the two samples
-            let (s1, s2) = (&sr.samples[0], &sr.samples[1]);
-            let pred = s1
-                .util
-                .iter()
-                .zip(&s2.util)
-                .filter(|(u1, u2)| *u2 > *u1)
-                .map(|(u1, u2)| 1.0 + (1.0 - u1) / (u2 - u1))
-                .fold(f64::INFINITY, f64::min);
+            // predict from the straight lines through the two samples, then
+            // from the two highest: a line is exact for a rig that responds
+            // linearly, so the first solves land next to the root; each try
+            // steps a hair past the prediction (more each time) to bracket it
+            let pred = line_prediction(&sr.samples[0], &sr.samples[1]);
             lo = 2.0;
             glo = g2;
-            let mut f = if pred.is_finite() { pred.clamp(2.0 * 1.0001, MAX_FACTOR) } else { 4.0 };
+            let mut f = if pred.is_finite() { pred.clamp(2.0 * (1.0 + OVERSHOOT), MAX_FACTOR) } else { 4.0 };
+            let mut tries = 0;
             loop {
                 let gf = sr.max_util(f)? - 1.0;
+                if gf.abs() < 1e-9 {
+                    return Some(f);
+                }
                 if gf > 0.0 {
                     hi = f;
                     ghi = gf;
                     break;
                 }
+                let below = lo;
                 lo = f;
                 glo = gf;
                 if f >= MAX_FACTOR {
                     return None;
                 }
-                // just short of the prediction: step past it a little, then widen
-                f = (f * if f < pred * 1.05 { 1.05 } else { 2.0 }).min(MAX_FACTOR);
+                tries += 1;
+                let next = match (sr.sample(below), sr.sample(lo)) {
+                    (Some(a), Some(b)) => line_prediction(a, b),
+                    _ => f64::INFINITY,
+                };
+                f = if tries <= 4 && next.is_finite() && next > lo {
+                    next * (1.0 + OVERSHOOT * 10f64.powi(tries - 1))
+                } else {
+                    f * 2.0
+                }
+                .min(MAX_FACTOR);
             }
         }
     }

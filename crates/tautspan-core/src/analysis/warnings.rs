@@ -4,14 +4,33 @@
 use super::results::{CaseResult, State, Warning};
 use crate::library::{Carries, MemberKind};
 use crate::model::{Case, Scenario};
-use crate::units::format_number;
+use crate::units::Sig;
 
-fn kn(v: f64) -> String {
-    format!("{} kN", format_number(v / 1e3, 4))
+/// A force in kN, 4 significant digits, written in place.
+struct Kn(f64);
+
+impl std::fmt::Display for Kn {
+    fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
+        write!(f, "{} kN", Sig(self.0 / 1e3, 4))
+    }
 }
 
-fn pct(v: f64) -> String {
-    format!("{} %", format_number(v * 100.0, 3))
+/// A fraction as a percentage, 3 significant digits, written in place.
+struct Pct(f64);
+
+impl std::fmt::Display for Pct {
+    fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
+        write!(f, "{} %", Sig(self.0 * 100.0, 3))
+    }
+}
+
+/// A message written into one string sized for it at the start (the
+/// hundreds of warnings of a large rig are written on every re-solve).
+fn msg(args: std::fmt::Arguments<'_>) -> String {
+    use std::fmt::Write as _;
+    let mut s = String::with_capacity(192);
+    let _ = s.write_fmt(args);
+    s
 }
 
 /// Strain beyond which a steel member leaves the linear elastic range the
@@ -32,31 +51,31 @@ pub fn case_warnings(s: &Scenario, case: &Case, r: &CaseResult, static_r: Option
         match m.state {
             State::Over => push(
                 &m.id,
-                format!(
+                msg(format_args!(
                     "member {}: {} is over its allowable {} by {} (utilisation {})",
                     m.id,
-                    kn(m.force_n.abs()),
-                    kn(m.allowable_n),
-                    pct(m.utilisation - 1.0),
-                    format_number(m.utilisation, 3)
-                ),
+                    Kn(m.force_n.abs()),
+                    Kn(m.allowable_n),
+                    Pct(m.utilisation - 1.0),
+                    Sig(m.utilisation, 3)
+                )),
             ),
             State::Near => push(
                 &m.id,
-                format!(
+                msg(format_args!(
                     "member {}: at {} of its allowable {} (near-limit threshold {})",
                     m.id,
-                    pct(m.utilisation),
-                    kn(m.allowable_n),
-                    pct(s.near_limit)
-                ),
+                    Pct(m.utilisation),
+                    Kn(m.allowable_n),
+                    Pct(s.near_limit)
+                )),
             ),
             State::Slack if !member.may_go_slack => push(
                 &m.id,
-                format!(
+                msg(format_args!(
                     "member {}: slack in case {}, where it was meant to carry (set may_go_slack if that is intended)",
                     m.id, r.id
-                ),
+                )),
             ),
             _ => {}
         }
@@ -64,22 +83,22 @@ pub fn case_warnings(s: &Scenario, case: &Case, r: &CaseResult, static_r: Option
             let factor = 1.0 / m.sling_angle_deg.to_radians().sin().max(1e-9);
             push(
                 &m.id,
-                format!(
+                msg(format_args!(
                     "member {}: sling angle {} deg from horizontal is below 30 deg (load-angle factor {}); ASME B30.9 allows it only with a qualified person's approval",
                     m.id,
-                    format_number(m.sling_angle_deg, 3),
-                    format_number(factor, 3)
-                ),
+                    Sig(m.sling_angle_deg, 3),
+                    Sig(factor, 3)
+                )),
             );
         }
         if member.kind == MemberKind::Rod && m.force_n < 0.0 {
             push(
                 &m.id,
-                format!(
+                msg(format_args!(
                     "member {}: rod in compression ({}); buckling is not checked by this tool",
                     m.id,
-                    kn(-m.force_n)
-                ),
+                    Kn(-m.force_n)
+                )),
             );
         }
         let strain = if m.length_m > 0.0 { m.stretch_m / (m.length_m - m.stretch_m) } else { 0.0 };
@@ -88,12 +107,12 @@ pub fn case_warnings(s: &Scenario, case: &Case, r: &CaseResult, static_r: Option
         if steel && strain.abs() > STEEL_STRAIN_LIMIT {
             push(
                 &m.id,
-                format!(
+                msg(format_args!(
                     "member {}: strain {} is beyond the {} the linear spring model holds for steel; the result is outside the model's validity",
                     m.id,
-                    pct(strain),
-                    pct(STEEL_STRAIN_LIMIT)
-                ),
+                    Pct(strain),
+                    Pct(STEEL_STRAIN_LIMIT)
+                )),
             );
         }
         {
@@ -101,11 +120,11 @@ pub fn case_warnings(s: &Scenario, case: &Case, r: &CaseResult, static_r: Option
             if span > 0.0 && sag / span > SAG_RATIO_LIMIT {
                 push(
                     &m.id,
-                    format!(
+                    msg(format_args!(
                         "member {}: own-weight sag/span {} exceeds 1/8; the parabolic sag view (Irvine) does not hold",
                         m.id,
-                        format_number(sag / span, 3)
-                    ),
+                        Sig(sag / span, 3)
+                    )),
                 );
             }
         }
@@ -116,43 +135,45 @@ pub fn case_warnings(s: &Scenario, case: &Case, r: &CaseResult, static_r: Option
             if f0 > 0.0 && m.force_n > s.dynamic_ratio_warning * f0 {
                 push(
                     &m.id,
-                    format!(
+                    msg(format_args!(
                         "member {}: {} case force {} is {} x its static {} (warning set at {} x)",
                         m.id,
                         r.kind,
-                        kn(m.force_n),
-                        format_number(m.force_n / f0, 3),
-                        kn(f0),
-                        format_number(s.dynamic_ratio_warning, 3)
-                    ),
+                        Kn(m.force_n),
+                        Sig(m.force_n / f0, 3),
+                        Kn(f0),
+                        Sig(s.dynamic_ratio_warning, 3)
+                    )),
                 );
             }
         }
     }
     for f in &r.floors {
         match f.state {
-            State::Slack => push(&f.id, format!("floor {}: contact lifts off in case {}; normal force 0", f.id, r.id)),
+            State::Slack => {
+                push(&f.id, msg(format_args!("floor {}: contact lifts off in case {}; normal force 0", f.id, r.id)))
+            }
             State::Over => push(
                 &f.id,
-                format!(
+                msg(format_args!(
                     "floor {}: normal force {} against allowable {}, deflection {} mm against limit {} mm: utilisation {} (over by {})",
                     f.id,
-                    kn(f.normal_force_n),
-                    kn(f.allowable_n),
-                    format_number(f.deflection_m * 1e3, 3),
-                    format_number(f.deflection_limit_m * 1e3, 3),
-                    format_number(f.utilisation, 3),
-                    pct(f.utilisation - 1.0)
-                ),
+                    Kn(f.normal_force_n),
+                    Kn(f.allowable_n),
+                    Sig(f.deflection_m * 1e3, 3),
+                    Sig(f.deflection_limit_m * 1e3, 3),
+                    Sig(f.utilisation, 3),
+                    Pct(f.utilisation - 1.0)
+                )),
             ),
             State::Near => push(
                 &f.id,
-                format!(
+                msg(format_args!(
                     "floor {}: at {} of its allowable (near-limit threshold {})",
                     f.id,
-                    pct(f.utilisation),
-                    pct(s.near_limit)
-                ),
+                    Pct(f.utilisation),
+                    Pct(s.near_limit)
+                )),
             ),
             State::Ok => {}
         }
@@ -162,11 +183,11 @@ pub fn case_warnings(s: &Scenario, case: &Case, r: &CaseResult, static_r: Option
     {
         push(
             &s.masses[*mass].id,
-            format!(
+            msg(format_args!(
                 "case {}: release {} deg is beyond 90 deg: a rope goes slack on release, the mass falls and then snatches the line; check it as a drop case",
                 r.id,
-                format_number(release.value.to_degrees(), 3)
-            ),
+                Sig(release.value.to_degrees(), 3)
+            )),
         );
     }
     w

@@ -1,18 +1,25 @@
-//! Sparse Cholesky factorisation of the (damped) tangent with faer: the
-//! symbolic analysis (fill-reducing AMD ordering, elimination tree, factor
-//! pattern) is done once per [`Model`](super::model::Model) pattern; each
+//! Sparse Cholesky factorisation of the (damped) tangent: the symbolic
+//! analysis is done once per [`Model`](super::model::Model) pattern; each
 //! Newton iteration only redoes the numeric factorisation into the same
 //! buffers, and the solve works in place.
+//!
+//! Two methods, chosen once per pattern by their operation counts: faer's
+//! general sparse Cholesky after a fill-reducing AMD ordering, and an
+//! envelope factorisation after reverse Cuthill–McKee ([`Envelope`]), which
+//! wins for the narrow networks most rigs are (fewer instructions per
+//! multiply-add) and loses for wide two-dimensional ones (more fill).
 
 use faer::dyn_stack::{MemBuffer, MemStack, StackReq};
 use faer::linalg::cholesky::llt::factor::LltRegularization;
 use faer::sparse::SparseColMatRef;
 use faer::sparse::SymbolicSparseColMatRef;
 use faer::sparse::linalg::cholesky::{
-    CholeskySymbolicParams, LltRef, SymbolicCholesky, SymmetricOrdering, factorize_symbolic_cholesky,
+    CholeskySymbolicParams, LltRef, SymbolicCholesky, SymbolicCholeskyRaw, SymmetricOrdering,
+    factorize_symbolic_cholesky,
 };
 use faer::{Conj, MatMut, Par, Side};
 
+use super::envelope::Envelope;
 use super::error::SolveError;
 
 /// A reusable Cholesky factorisation for one sparsity pattern.
@@ -20,8 +27,26 @@ pub(crate) struct Factor {
     symbolic: SymbolicCholesky<usize>,
     l_values: Vec<f64>,
     mem: MemBuffer,
-    /// Whether `l_values` holds a valid factor.
+    /// The envelope method, when it is the cheaper one.
+    envelope: Option<Envelope>,
+    /// Whether `l_values` (or the envelope) holds a valid factor.
     valid: bool,
+}
+
+/// Instructions per multiply-add of each method, measured on this
+/// project's benchmarks (general sparse: index-driven scatter and gather;
+/// envelope: contiguous dot products). Only their ratio matters.
+const SPARSE_COST: f64 = 3.0;
+const ENVELOPE_COST: f64 = 1.0;
+
+/// Multiply-adds of a simplicial factorisation with these column counts.
+fn sparse_operation_count(symbolic: &SymbolicCholesky<usize>) -> Option<f64> {
+    match symbolic.raw() {
+        SymbolicCholeskyRaw::Simplicial(s) => {
+            Some(s.col_ptr().windows(2).map(|w| ((w[1] - w[0]) as f64).powi(2) / 2.0).sum())
+        }
+        SymbolicCholeskyRaw::Supernodal(_) => None,
+    }
 }
 
 impl std::fmt::Debug for Factor {
@@ -51,13 +76,22 @@ impl Factor {
         ]);
         let mem = MemBuffer::try_new(req).map_err(|e| fail(&e))?;
         let l_values = vec![0.0; symbolic.len_val()];
-        Ok(Self { symbolic, l_values, mem, valid: false })
+        let n = pattern.nrows();
+        let envelope = Envelope::new(n, pattern.col_ptr(), pattern.row_idx());
+        // a supernodal choice means a large, wide pattern: keep faer's
+        let use_envelope = sparse_operation_count(&symbolic)
+            .is_some_and(|sparse| ENVELOPE_COST * envelope.operation_count() < SPARSE_COST * sparse);
+        Ok(Self { symbolic, l_values, mem, envelope: use_envelope.then_some(envelope), valid: false })
     }
 
     /// Numeric factorisation of `a` (lower triangle, same pattern as given
     /// to [`Factor::new`]). Returns false when `a` is not numerically
     /// positive definite.
     pub(crate) fn factorize(&mut self, a: SparseColMatRef<'_, usize, f64>) -> bool {
+        if let Some(env) = self.envelope.as_mut() {
+            self.valid = env.factorize(a.val());
+            return self.valid;
+        }
         let stack = MemStack::new(&mut self.mem);
         let ok = self
             .symbolic
@@ -80,6 +114,10 @@ impl Factor {
     /// Does nothing when there is none (the caller checks [`Factor::factorize`]).
     pub(crate) fn solve_in_place(&mut self, rhs: &mut [f64]) {
         if !self.valid || rhs.is_empty() {
+            return;
+        }
+        if let Some(env) = self.envelope.as_mut() {
+            env.solve_in_place(rhs);
             return;
         }
         let n = rhs.len();

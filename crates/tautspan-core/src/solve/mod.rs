@@ -4,6 +4,7 @@
 
 mod assemble;
 mod compliance;
+mod envelope;
 mod equilibrium;
 mod error;
 mod factor;

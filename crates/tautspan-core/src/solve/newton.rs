@@ -216,7 +216,12 @@ pub(crate) fn minimise(
                 actual > 0.0 && actual.is_finite()
             };
             let mut forced = false;
-            if !accept && watch.enabled && watch.free_steps > 0 && res <= WATCHDOG_NEAR * tol_n && actual.is_finite() {
+            if !accept
+                && watch.enabled
+                && watch.free_steps > 0
+                && watch.saved_res.unwrap_or(res) <= WATCHDOG_NEAR * tol_n
+                && actual.is_finite()
+            {
                 if watch.saved_res.is_none() {
                     ws.best_pos.clear();
                     ws.best_pos.extend_from_slice(pos);

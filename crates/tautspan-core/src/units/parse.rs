@@ -245,20 +245,53 @@ pub fn format_quantity(si_value: f64, dimension: Dimension, unit_symbol: &str, s
 /// A number with up to `significant` significant digits, no exponent for
 /// everyday magnitudes, trailing zeros removed.
 pub fn format_number(value: f64, significant: usize) -> String {
-    if value == 0.0 || !value.is_finite() {
-        return if value.is_finite() { "0".to_string() } else { format!("{value}") };
+    Sig(value, significant).to_string()
+}
+
+/// [`format_number`] as a `Display` value, to write a number straight into
+/// a message without a string of its own.
+#[derive(Debug, Clone, Copy)]
+pub struct Sig(pub f64, pub usize);
+
+/// A small stack buffer for one formatted number.
+struct NumBuf {
+    bytes: [u8; 64],
+    len: usize,
+}
+
+impl std::fmt::Write for NumBuf {
+    fn write_str(&mut self, s: &str) -> std::fmt::Result {
+        let end = self.len + s.len();
+        let slot = self.bytes.get_mut(self.len..end).ok_or(std::fmt::Error)?;
+        slot.copy_from_slice(s.as_bytes());
+        self.len = end;
+        Ok(())
     }
-    let magnitude = value.abs().log10().floor() as i32;
-    if !(-5..=12).contains(&magnitude) {
-        return format!("{:.*e}", significant.saturating_sub(1), value);
+}
+
+impl std::fmt::Display for Sig {
+    fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
+        use std::fmt::Write as _;
+        let Sig(value, significant) = *self;
+        if value == 0.0 || !value.is_finite() {
+            return if value.is_finite() { f.write_str("0") } else { write!(f, "{value}") };
+        }
+        let magnitude = value.abs().log10().floor() as i32;
+        if !(-5..=12).contains(&magnitude) {
+            return write!(f, "{:.*e}", significant.saturating_sub(1), value);
+        }
+        let decimals = (significant as i32 - 1 - magnitude).max(0) as usize;
+        let mut buf = NumBuf { bytes: [0; 64], len: 0 };
+        if write!(buf, "{value:.decimals$}").is_err() {
+            // longer than the buffer (many significant digits asked for)
+            let s = format!("{value:.decimals$}");
+            let t = if s.contains('.') { s.trim_end_matches('0').trim_end_matches('.') } else { &s };
+            return f.write_str(t);
+        }
+        let text = std::str::from_utf8(&buf.bytes[..buf.len]).map_err(|_| std::fmt::Error)?;
+        let t = if text.contains('.') { text.trim_end_matches('0').trim_end_matches('.') } else { text };
+        f.write_str(t)
     }
-    let decimals = (significant as i32 - 1 - magnitude).max(0) as usize;
-    let mut s = format!("{value:.decimals$}");
-    if s.contains('.') {
-        let kept = s.trim_end_matches('0').trim_end_matches('.').len();
-        s.truncate(kept);
-    }
-    s
 }
 
 #[cfg(test)]
