@@ -3,8 +3,9 @@
 //! commands; it never edits the document itself. Drawing is in
 //! `canvas_draw`.
 
-use crate::canvas_draw::{self, Geometry};
+use crate::canvas_draw::{self, Deflection, Geometry};
 use crate::command::Command;
+use crate::deflected;
 use crate::derived::Derived;
 use crate::document::Document;
 use crate::edits;
@@ -12,11 +13,14 @@ use crate::selection::{Selection, Tool};
 use crate::units_display::UnitSystem;
 use crate::view::View;
 use egui::{Pos2, Sense, Ui};
+use std::sync::Arc;
 use tautspan_core::file::SupportDto;
 
 /// The canvas's own state between frames.
 #[derive(Debug, Default, Clone)]
 pub struct CanvasState {
+    /// The geometry of the document revision it was read from.
+    geometry: Option<(u64, Arc<Geometry>)>,
     /// The first node picked with the member tool.
     pub member_start: Option<String>,
     /// The node being dragged.
@@ -41,6 +45,20 @@ pub struct CanvasInput<'a> {
     pub units: UnitSystem,
     /// Draw force labels.
     pub labels: bool,
+}
+
+impl CanvasState {
+    /// The document's geometry, read again only when its revision changed.
+    fn geometry(&mut self, doc: &Document) -> Arc<Geometry> {
+        match &self.geometry {
+            Some((rev, g)) if *rev == doc.revision => g.clone(),
+            _ => {
+                let g = Arc::new(Geometry::of(&doc.dto));
+                self.geometry = Some((doc.revision, g.clone()));
+                g
+            }
+        }
+    }
 }
 
 /// What is under a screen point.
@@ -95,9 +113,23 @@ pub fn ui(ui: &mut Ui, state: &mut CanvasState, view: &mut View, input: &CanvasI
     let (rect, response) = ui.allocate_exact_size(size, Sense::click_and_drag());
     response.widget_info(|| egui::WidgetInfo::labeled(egui::Role::Canvas, true, "Canvas"));
     view.rect = rect;
-    let geo = Geometry::of(&input.doc.dto);
+    let drawn = state.geometry(input.doc);
+    // the deflected view draws and picks at the solved positions; nodes are
+    // dragged in the drawn view only
+    let deflected = if view.deflected {
+        input.derived.solved.as_ref().zip(input.derived.case(input.case)).map(|(s, c)| {
+            let by = deflected::displacements(s, c);
+            (
+                deflected::displaced(&drawn, &by, f64::from(view.magnification)),
+                deflected::caption(&c.id, view.magnification),
+            )
+        })
+    } else {
+        None
+    };
+    let geo: &Geometry = deflected.as_ref().map_or(&drawn, |(g, _)| g);
     if view.fit_pending && rect.width() > 10.0 {
-        if let Some((min, max)) = geo.bounds() {
+        if let Some((min, max)) = drawn.bounds() {
             view.fit(min, max);
         } else {
             view.fit_pending = false;
@@ -119,12 +151,12 @@ pub fn ui(ui: &mut Ui, state: &mut CanvasState, view: &mut View, input: &CanvasI
     let pointer = response.interact_pointer_pos().or_else(|| response.hover_pos());
     let units = input.units;
     match input.tool {
-        Tool::Select => select_tool(state, view, &geo, &response, pointer, units, out),
+        Tool::Select => select_tool(state, view, geo, &response, pointer, units, deflected.is_none(), out),
         Tool::Anchor | Tool::Joint | Tool::FloorNode => {
             if response.clicked()
                 && let Some(p) = pointer
             {
-                match hit(&geo, view, p) {
+                match hit(geo, view, p) {
                     Selection::Node(id) => out.push(Command::Select(Selection::Node(id))),
                     _ => {
                         let [x, y] = view.snapped(view.to_world(p), units);
@@ -146,7 +178,7 @@ pub fn ui(ui: &mut Ui, state: &mut CanvasState, view: &mut View, input: &CanvasI
             if response.clicked()
                 && let Some(p) = pointer
             {
-                if let Selection::Node(id) = hit(&geo, view, p) {
+                if let Selection::Node(id) = hit(geo, view, p) {
                     match state.member_start.take() {
                         Some(first) if first != id => {
                             out.push(Command::place(move |d| {
@@ -164,7 +196,7 @@ pub fn ui(ui: &mut Ui, state: &mut CanvasState, view: &mut View, input: &CanvasI
         Tool::Mass => {
             if response.clicked()
                 && let Some(p) = pointer
-                && let Selection::Node(id) = hit(&geo, view, p)
+                && let Selection::Node(id) = hit(geo, view, p)
             {
                 out.push(Command::place(move |d| Selection::Mass(edits::add_mass(d, &id, units))));
             }
@@ -175,14 +207,21 @@ pub fn ui(ui: &mut Ui, state: &mut CanvasState, view: &mut View, input: &CanvasI
         && matches!(input.tool, Tool::Select)
         && state.dragging.is_none()
     {
-        let over = hit(&geo, view, p);
+        let over = hit(geo, view, p);
         if over != Selection::None {
             ui.ctx().set_cursor_icon(egui::CursorIcon::PointingHand);
         }
     }
 
     let painter = ui.painter_at(rect);
-    canvas_draw::draw(&painter, view, &geo, input, state.member_start.as_deref(), response.hover_pos());
+    let deflection = deflected.as_ref().map(|_| Deflection { drawn: &drawn });
+    let member_start = state.member_start.as_deref();
+    canvas_draw::draw(&painter, view, geo, input, member_start, response.hover_pos(), deflection.as_ref());
+    if let Some((_, caption)) = &deflected {
+        canvas_draw::deflection_caption(ui, view, caption);
+    } else if view.deflected {
+        canvas_draw::deflection_caption(ui, view, "Deflected shape: no results to show yet");
+    }
 }
 
 fn background_pan(state: &mut CanvasState, view: &mut View, response: &egui::Response) {
@@ -197,6 +236,7 @@ fn background_pan(state: &mut CanvasState, view: &mut View, response: &egui::Res
     }
 }
 
+#[allow(clippy::too_many_arguments, reason = "the canvas's pieces, passed apart to keep the borrows short")]
 fn select_tool(
     state: &mut CanvasState,
     view: &mut View,
@@ -204,6 +244,7 @@ fn select_tool(
     response: &egui::Response,
     pointer: Option<Pos2>,
     units: UnitSystem,
+    can_drag: bool,
     out: &mut Vec<Command>,
 ) {
     if response.clicked()
@@ -217,7 +258,7 @@ fn select_tool(
         // the press point, not where the pointer is after the drag threshold
         let press = response.ctx.input(|i| i.pointer.press_origin()).unwrap_or(p);
         match hit(geo, view, press) {
-            Selection::Node(id) => {
+            Selection::Node(id) if can_drag => {
                 out.push(Command::Select(Selection::Node(id.clone())));
                 state.dragging = Some(id);
             }

@@ -27,6 +27,7 @@ const PATH_GLOW: Color32 = Color32::from_rgba_premultiplied(0x2a, 0x7a, 0xd8, 0x
 const UNSOLVED: Color32 = Color32::from_rgb(0x9a, 0x9c, 0xa3);
 
 /// A node as drawn.
+#[derive(Debug, Clone)]
 pub struct GeoNode {
     /// Id.
     pub id: String,
@@ -37,6 +38,7 @@ pub struct GeoNode {
 }
 
 /// A member as drawn.
+#[derive(Debug, Clone)]
 pub struct GeoMember {
     /// Id.
     pub id: String,
@@ -45,6 +47,7 @@ pub struct GeoMember {
 }
 
 /// A mass as drawn.
+#[derive(Debug, Clone)]
 pub struct GeoMass {
     /// Id.
     pub id: String,
@@ -55,9 +58,12 @@ pub struct GeoMass {
 }
 
 /// A slab under a floor node.
+#[derive(Debug, Clone)]
 pub struct GeoFloor {
     /// The slab's id.
     pub floor_id: String,
+    /// The floor node's id.
+    pub node_id: String,
     /// The node's position, m.
     pub at_m: [f64; 2],
     /// Span along x, m.
@@ -77,7 +83,7 @@ impl GeoFloor {
 }
 
 /// The drawing's geometry, read from the document.
-#[derive(Default)]
+#[derive(Debug, Clone, Default)]
 pub struct Geometry {
     /// Nodes whose positions parse.
     pub nodes: Vec<GeoNode>,
@@ -116,6 +122,7 @@ impl Geometry {
                 let f = dto.floors.iter().find(|f| &f.id == fid)?;
                 Some(GeoFloor {
                     floor_id: fid.clone(),
+                    node_id: n.id.clone(),
                     at_m: n.pos_m,
                     span_m: len(&f.span.0.0).unwrap_or(1.0).abs(),
                     thickness_m: len(&f.thickness.0).unwrap_or(0.15).abs(),
@@ -259,9 +266,13 @@ pub fn draw(
     input: &CanvasInput<'_>,
     member_start: Option<&str>,
     hover: Option<Pos2>,
+    deflection: Option<&Deflection<'_>>,
 ) {
     let units = input.units;
     draw_grid(painter, view, units);
+    if let Some(d) = deflection {
+        draw_ghost(painter, view, d.drawn);
+    }
     let case = input.derived.case(input.case);
     for f in &geo.floors {
         draw_floor(painter, view, f, *input.selection == Selection::Floor(f.floor_id.clone()));
@@ -393,6 +404,47 @@ pub fn draw(
         painter.text(p + vec2(9.0, 9.0), Align2::LEFT_TOP, &n.id, FontId::proportional(11.0), CASING);
     }
     legend(painter, view, input.derived.solved.as_ref().map(|s| s.scenario.near_limit).unwrap_or(0.8));
+}
+
+/// The deflected view: the geometry as drawn, shown faint under the
+/// deflected one.
+pub struct Deflection<'a> {
+    /// The geometry as drawn.
+    pub drawn: &'a Geometry,
+}
+
+/// The deflected view's caption over the canvas's top left corner, naming
+/// the case and the magnification (a widget, so it can be read out).
+pub fn deflection_caption(ui: &mut egui::Ui, view: &View, caption: &str) {
+    let at = Rect::from_min_size(view.rect.left_top() + vec2(12.0, 10.0), vec2(view.rect.width() * 0.6, 60.0));
+    ui.scope_builder(egui::UiBuilder::new().max_rect(at), |ui| {
+        egui::Frame::new()
+            .fill(Color32::from_rgba_unmultiplied(0xff, 0xff, 0xfb, 0xee))
+            .stroke(Stroke::new(1.5, PICK))
+            .corner_radius(3.0)
+            .inner_margin(6.0)
+            .show(ui, |ui| {
+                ui.label(egui::RichText::new(caption).size(14.0).color(INK).strong());
+                ui.label(
+                    egui::RichText::new("grey dashes: as drawn · nodes move in the drawn view")
+                        .size(11.0)
+                        .color(CASING),
+                );
+            });
+    });
+}
+
+/// The drawn shape under the deflected one: thin dashed members, small rings.
+fn draw_ghost(painter: &Painter, view: &View, geo: &Geometry) {
+    let stroke = Stroke::new(1.5, UNSOLVED);
+    for m in &geo.members {
+        let (Some(a), Some(b)) = (geo.node(&m.ends.0), geo.node(&m.ends.1)) else { continue };
+        let (sa, sb) = (view.to_screen(a.pos_m[0], a.pos_m[1]), view.to_screen(b.pos_m[0], b.pos_m[1]));
+        painter.extend(Shape::dashed_line(&[sa, sb], stroke, 5.0, 4.0));
+    }
+    for n in &geo.nodes {
+        painter.circle_stroke(view.to_screen(n.pos_m[0], n.pos_m[1]), 3.5, stroke);
+    }
 }
 
 fn legend(painter: &Painter, view: &View, near: f64) {

@@ -29,9 +29,20 @@ pub struct Solved {
 pub fn solve(dto: &ScenarioDto, prior: Option<&Solved>) -> Result<Solved, Vec<Problem>> {
     let start = Instant::now();
     let scenario = build(dto)?;
+    Ok(analyse_model(scenario, prior, start))
+}
+
+/// Validate a document (the first step of [`solve`]).
+pub fn validate(dto: &ScenarioDto) -> Result<Scenario, Vec<Problem>> {
+    build(dto)
+}
+
+/// Analyse a validated scenario, warm-started from `prior` (the second step
+/// of [`solve`]); the time reported runs from `start`.
+pub fn analyse_model(scenario: Scenario, prior: Option<&Solved>, start: Instant) -> Solved {
     let prior = prior.map(|p| Prior { scenario: &p.scenario, analysis: &p.analysis });
     let analysis = analyse_from(&scenario, prior);
-    Ok(Solved { scenario, analysis, solve_ms: start.elapsed().as_secs_f64() * 1e3 })
+    Solved { scenario, analysis, solve_ms: start.elapsed().as_secs_f64() * 1e3 }
 }
 
 /// How a member's allowable was found, in words (formula, inputs, sources).

@@ -96,7 +96,7 @@ impl Derived {
         let sent = self.worker.as_ref().is_some_and(|w| w.request(doc.revision, doc.dto.clone()));
         if !sent {
             self.worker = None;
-            let o = solve_revision(doc.revision, &doc.dto, self.solved.as_deref());
+            let o = solve_revision(doc.revision, doc.dto.clone(), self.solved.as_deref());
             self.install(o);
         }
     }
@@ -124,15 +124,18 @@ impl Derived {
         self.revision = o.revision;
         self.solves += 1;
         self.solve_ms = o.solve_ms;
-        match o.result {
+        let old = match o.result {
             Ok(s) => {
-                self.solved = Some(s);
                 self.problems.clear();
+                self.solved.replace(s)
             }
             Err(p) => {
-                self.solved = None;
                 self.problems = p;
+                self.solved.take()
             }
+        };
+        if let (Some(old), Some(w)) = (old, &self.worker) {
+            w.discard(old);
         }
         true
     }

@@ -4,13 +4,16 @@
 
 use crate::undo::UndoStack;
 use std::path::PathBuf;
+use std::sync::Arc;
 use tautspan_core::file::ScenarioDto;
 
 /// An open scenario.
 #[derive(Debug, Clone, Default)]
 pub struct Document {
-    /// The scenario as written.
-    pub dto: ScenarioDto,
+    /// The scenario as written. Shared with the solve worker, which takes a
+    /// reference instead of a copy; an edit copies it only if the worker
+    /// still holds the revision being replaced.
+    pub dto: Arc<ScenarioDto>,
     /// Where it is saved, if anywhere.
     pub path: Option<PathBuf>,
     /// Changed since opened or saved.
@@ -24,12 +27,12 @@ pub struct Document {
 impl Document {
     /// A document on a scenario, clean, with no history.
     pub fn new(dto: ScenarioDto, path: Option<PathBuf>) -> Document {
-        Document { dto, path, dirty: false, revision: 1, undo: UndoStack::default() }
+        Document { dto: Arc::new(dto), path, dirty: false, revision: 1, undo: UndoStack::default() }
     }
 
     /// Replace the scenario with an opened or new one (history cleared).
     pub fn replace(&mut self, dto: ScenarioDto, path: Option<PathBuf>) {
-        self.dto = dto;
+        self.dto = Arc::new(dto);
         self.path = path;
         self.dirty = false;
         self.revision += 1;
@@ -41,15 +44,15 @@ impl Document {
         if self.undo.merges(merge_key) {
             // the undo step already holds the state before this run of edits:
             // no copy of the whole scenario per drag step or keystroke
-            apply(&mut self.dto);
+            apply(Arc::make_mut(&mut self.dto));
             self.undo.record_merged();
             self.dirty = true;
             self.revision += 1;
             return;
         }
-        let before = self.dto.clone();
-        apply(&mut self.dto);
-        if self.dto != before {
+        let before: ScenarioDto = (*self.dto).clone();
+        apply(Arc::make_mut(&mut self.dto));
+        if *self.dto != before {
             self.undo.record(&before, merge_key);
             self.dirty = true;
             self.revision += 1;
@@ -60,7 +63,7 @@ impl Document {
     pub fn undo(&mut self) -> bool {
         match self.undo.undo(&self.dto) {
             Some(prev) => {
-                self.dto = prev;
+                self.dto = Arc::new(prev);
                 self.dirty = true;
                 self.revision += 1;
                 true
@@ -73,7 +76,7 @@ impl Document {
     pub fn redo(&mut self) -> bool {
         match self.undo.redo(&self.dto) {
             Some(next) => {
-                self.dto = next;
+                self.dto = Arc::new(next);
                 self.dirty = true;
                 self.revision += 1;
                 true

@@ -11,6 +11,7 @@ mod cases_panel;
 mod colour_ramp;
 mod command;
 pub mod core_bridge;
+mod deflected;
 mod derived;
 mod document;
 mod edits;

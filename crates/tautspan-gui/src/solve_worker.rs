@@ -4,17 +4,25 @@
 //! waking the UI. Requests overtaken before the worker gets to them are
 //! skipped: only the newest revision waiting is solved.
 
-use crate::core_bridge::{Solved, solve};
+use crate::core_bridge::{Solved, analyse_model, validate};
 use std::sync::Arc;
 use std::sync::mpsc::{Receiver, RecvTimeoutError, Sender, channel};
 use std::time::{Duration, Instant};
 use tautspan_core::file::ScenarioDto;
 use tautspan_core::model::Problem;
 
-/// The scenario of one document revision, to be solved.
-struct Request {
-    revision: u64,
-    dto: ScenarioDto,
+/// What the worker is asked to do.
+enum Request {
+    /// Solve the scenario of one document revision.
+    Solve {
+        /// The revision.
+        revision: u64,
+        /// Its scenario, shared with the document.
+        dto: Arc<ScenarioDto>,
+    },
+    /// Drop results the UI no longer shows (freeing a large analysis takes
+    /// time better spent off the UI thread).
+    Discard(Arc<Solved>),
 }
 
 /// What the worker found for one revision.
@@ -28,24 +36,29 @@ pub struct Outcome {
     pub solve_ms: f64,
 }
 
-/// Validate and analyse one revision, warm-started from `prior`. A panic in
-/// the core (a bug, never expected) becomes a problem the user can read
-/// instead of a dead worker.
-pub fn solve_revision(revision: u64, dto: &ScenarioDto, prior: Option<&Solved>) -> Outcome {
+/// Validate and analyse one revision, warm-started from `prior`. The
+/// scenario is let go as soon as it is validated, so the document's next
+/// edit need not copy it. A panic in the core (a bug, never expected)
+/// becomes a problem the user can read instead of a dead worker.
+pub fn solve_revision(revision: u64, dto: Arc<ScenarioDto>, prior: Option<&Solved>) -> Outcome {
     let start = Instant::now();
-    let result = std::panic::catch_unwind(std::panic::AssertUnwindSafe(|| solve(dto, prior)))
-        .unwrap_or_else(|panic| {
-            let what = panic
-                .downcast_ref::<&str>()
-                .map(|s| (*s).to_string())
-                .or_else(|| panic.downcast_ref::<String>().cloned())
-                .unwrap_or_else(|| "no message".to_string());
-            Err(vec![Problem {
-                path: String::new(),
-                message: format!("the solver failed on this scenario ({what}); please report it with the file"),
-            }])
-        })
-        .map(Arc::new);
+    let result = std::panic::catch_unwind(std::panic::AssertUnwindSafe(move || {
+        let built = validate(&dto);
+        drop(dto);
+        built.map(|scenario| analyse_model(scenario, prior, start))
+    }))
+    .unwrap_or_else(|panic| {
+        let what = panic
+            .downcast_ref::<&str>()
+            .map(|s| (*s).to_string())
+            .or_else(|| panic.downcast_ref::<String>().cloned())
+            .unwrap_or_else(|| "no message".to_string());
+        Err(vec![Problem {
+            path: String::new(),
+            message: format!("the solver failed on this scenario ({what}); please report it with the file"),
+        }])
+    })
+    .map(Arc::new);
     Outcome { revision, result, solve_ms: start.elapsed().as_secs_f64() * 1e3 }
 }
 
@@ -70,12 +83,27 @@ impl SolveWorker {
         let (done, rx) = channel::<Outcome>();
         std::thread::Builder::new().name("tautspan-solve".to_string()).spawn(move || {
             let mut prior: Option<Arc<Solved>> = None;
-            while let Ok(mut req) = requests.recv() {
-                // latest revision wins: skip every request already overtaken
-                while let Ok(newer) = requests.try_recv() {
-                    req = newer;
+            let mut waiting: Option<(u64, Arc<ScenarioDto>)> = None;
+            loop {
+                if waiting.is_none() {
+                    match requests.recv() {
+                        Ok(Request::Solve { revision, dto }) => waiting = Some((revision, dto)),
+                        Ok(Request::Discard(old)) => {
+                            drop(old);
+                            continue;
+                        }
+                        Err(_) => break,
+                    }
                 }
-                let outcome = solve_revision(req.revision, &req.dto, prior.as_deref());
+                // latest revision wins: skip every request already overtaken
+                while let Ok(r) = requests.try_recv() {
+                    match r {
+                        Request::Solve { revision, dto } => waiting = Some((revision, dto)),
+                        Request::Discard(old) => drop(old),
+                    }
+                }
+                let Some((revision, dto)) = waiting.take() else { continue };
+                let outcome = solve_revision(revision, dto, prior.as_deref());
                 if let Ok(s) = &outcome.result {
                     prior = Some(s.clone());
                 }
@@ -89,8 +117,14 @@ impl SolveWorker {
     }
 
     /// Ask for a revision to be solved. False when the worker has stopped.
-    pub fn request(&self, revision: u64, dto: ScenarioDto) -> bool {
-        self.tx.send(Request { revision, dto }).is_ok()
+    pub fn request(&self, revision: u64, dto: Arc<ScenarioDto>) -> bool {
+        self.tx.send(Request::Solve { revision, dto }).is_ok()
+    }
+
+    /// Hand back results no longer shown, to be freed on the worker. When
+    /// the worker has stopped they are returned to be freed here.
+    pub fn discard(&self, old: Arc<Solved>) {
+        let _ = self.tx.send(Request::Discard(old));
     }
 
     /// Every outcome that has arrived, oldest first, without waiting.

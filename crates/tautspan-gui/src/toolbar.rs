@@ -111,6 +111,21 @@ pub fn ui(ui: &mut Ui, input: ToolbarInput<'_>, out: &mut Vec<Command>) {
             out.push(Command::FitView);
         }
         ui.checkbox(&mut input.view.snap, "Snap to grid");
+        ui.separator();
+        ui.checkbox(&mut input.view.deflected, "Deflected shape")
+            .on_hover_text("Draw the solved positions of the shown case, displacements magnified");
+        let l = ui.label("Magnification");
+        ui.add_enabled_ui(input.view.deflected, |ui| {
+            egui::ComboBox::from_id_salt("magnification")
+                .selected_text(format!("×{}", input.view.magnification))
+                .show_ui(ui, |ui| {
+                    for m in crate::deflected::MAGNIFICATIONS {
+                        ui.selectable_value(&mut input.view.magnification, m, format!("×{m}"));
+                    }
+                })
+                .response
+                .labelled_by(l.id);
+        });
     });
     ui.label(RichText::new(format!("Caution: {}", tautspan_core::CAUTION)).color(Color32::from_rgb(0xe8, 0xb0, 0x3a)));
 }

@@ -21,6 +21,10 @@ pub struct View {
     pub fit_pending: bool,
     /// Snap placed and dragged nodes to the grid.
     pub snap: bool,
+    /// Draw the solved (deflected) shape of the shown case.
+    pub deflected: bool,
+    /// How many times the displacements are magnified in the deflected shape.
+    pub magnification: u32,
 }
 
 impl Default for View {
@@ -31,6 +35,8 @@ impl Default for View {
             rect: Rect::from_min_size(Pos2::ZERO, Vec2::new(800.0, 600.0)),
             fit_pending: true,
             snap: true,
+            deflected: false,
+            magnification: 100,
         }
     }
 }

@@ -9,6 +9,9 @@ use crate::qty_field::ERROR;
 use crate::selection::Selection;
 use egui::{RichText, Ui};
 
+/// Warnings listed before the rest are offered behind a button.
+const SHOWN_FIRST: usize = 40;
+
 fn subject_selection(doc: &Document, subject: &str) -> Selection {
     let d = &doc.dto;
     if d.members.iter().any(|m| m.id == subject) {
@@ -57,33 +60,38 @@ pub fn ui(ui: &mut Ui, doc: &Document, derived: &Derived, out: &mut Vec<Command>
         return;
     }
     let Some(solved) = derived.solved.as_ref() else { return };
-    let mut any = false;
-    let mut item = |ui: &mut Ui, case: Option<&str>, subject: Option<&str>, message: &str| {
-        any = true;
+    let all = solved.analysis.warnings.iter().map(|w| (None, w)).chain(
+        solved.analysis.cases.iter().flat_map(|c| c.warning_items.iter().map(move |w| (Some(c.id.as_str()), w))),
+    );
+    let total =
+        solved.analysis.warnings.len() + solved.analysis.cases.iter().map(|c| c.warning_items.len()).sum::<usize>();
+    if total == 0 {
+        ui.label(RichText::new("None.").weak());
+        return;
+    }
+    // a large rig can carry a warning per member: list the first ones and
+    // offer the rest, so the panel is not laid out a thousand lines a frame
+    let show_all_id = ui.scope_id().with("show-all-warnings");
+    let show_all = ui.data(|d| d.get_temp::<bool>(show_all_id)).unwrap_or(false);
+    let shown = if show_all { total } else { total.min(SHOWN_FIRST) };
+    for (case, w) in all.take(shown) {
         let text = match case {
-            Some(c) => format!("[{c}] {message}"),
-            None => message.to_string(),
+            Some(c) => format!("[{c}] {}", w.message),
+            None => w.message.clone(),
         };
-        let sel = subject.map_or(Selection::None, |s| subject_selection(doc, s));
-        let r = ui.link(text);
-        if r.clicked() {
-            if sel != Selection::None {
+        if ui.link(text).clicked() {
+            // looked up on the click only: the lists are long on a large rig
+            if let Some(sel) = w.subject.as_deref().map(|s| subject_selection(doc, s))
+                && sel != Selection::None
+            {
                 out.push(Command::Select(sel));
             }
             if let Some(c) = case {
                 out.push(Command::ShowCase(c.to_string()));
             }
         }
-    };
-    for w in &solved.analysis.warnings {
-        item(ui, None, w.subject.as_deref(), &w.message);
     }
-    for c in &solved.analysis.cases {
-        for w in &c.warning_items {
-            item(ui, Some(&c.id), w.subject.as_deref(), &w.message);
-        }
-    }
-    if !any {
-        ui.label(RichText::new("None.").weak());
+    if total > shown && ui.button(format!("Show all {total} warnings ({} more)", total - shown)).clicked() {
+        ui.data_mut(|d| d.insert_temp(show_all_id, true));
     }
 }

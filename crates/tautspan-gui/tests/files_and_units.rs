@@ -93,7 +93,7 @@ fn save_then_open_round_trips_and_unsaved_changes_are_guarded() {
     // the file reads back through the core exactly as it was in the app
     let text = std::fs::read_to_string(&path).unwrap_or_else(|e| panic!("{e}"));
     let loaded = tautspan_core::model::load_scenario(&text).unwrap_or_else(|e| panic!("{e}"));
-    assert_eq!(loaded.dto, saved);
+    assert_eq!(loaded.dto, *saved);
     assert!(text.contains("\"0.5 t\""), "the unit typed is kept in the file");
 
     // start a new scenario, change it, then open the saved file: the app asks first
