@@ -39,6 +39,11 @@ fn msg(args: std::fmt::Arguments<'_>) -> String {
 /// spring picture is plainly wrong).
 pub const STEEL_STRAIN_LIMIT: f64 = 0.02;
 
+/// Below this angle from horizontal a tension member is reported as a
+/// level tie rather than with a load-angle factor (1 / sin 0.5° ≈ 115, past
+/// any sling rating table; practice).
+pub const HORIZONTAL_DEG: f64 = 0.5;
+
 /// Parabolic sag is good to sag/span ≈ 1/8 (Irvine, Cable Structures, 1981).
 pub const SAG_RATIO_LIMIT: f64 = 0.125;
 
@@ -80,16 +85,30 @@ pub fn case_warnings(s: &Scenario, case: &Case, r: &CaseResult, static_r: Option
             _ => {}
         }
         if member.kind.carries() == Carries::TensionOnly && m.force_n > 0.0 && m.sling_angle_deg < 30.0 {
-            let factor = 1.0 / m.sling_angle_deg.to_radians().sin().max(1e-9);
-            push(
-                &m.id,
-                msg(format_args!(
-                    "member {}: sling angle {} deg from horizontal is below 30 deg (load-angle factor {}); ASME B30.9 allows it only with a qualified person's approval",
-                    m.id,
-                    Sig(m.sling_angle_deg, 3),
-                    Sig(factor, 3)
-                )),
-            );
+            if m.sling_angle_deg < HORIZONTAL_DEG {
+                // 1 / sin β grows without bound: a level member takes no
+                // share of the weight, so it is a tie, not a sling leg
+                push(
+                    &m.id,
+                    msg(format_args!(
+                        "member {}: runs level (sling angle {} deg) and carries {} as a tie; a sling leg this flat takes no share of the weight, so if it is meant as one the rig geometry is wrong (ASME B30.9 wants 30 deg or more)",
+                        m.id,
+                        Sig(m.sling_angle_deg, 2),
+                        Kn(m.force_n)
+                    )),
+                );
+            } else {
+                let factor = 1.0 / m.sling_angle_deg.to_radians().sin();
+                push(
+                    &m.id,
+                    msg(format_args!(
+                        "member {}: sling angle {} deg from horizontal is below 30 deg (load-angle factor {}); ASME B30.9 allows it only with a qualified person's approval",
+                        m.id,
+                        Sig(m.sling_angle_deg, 3),
+                        Sig(factor, 3)
+                    )),
+                );
+            }
         }
         if member.kind == MemberKind::Rod && m.force_n < 0.0 {
             push(
