@@ -6,10 +6,12 @@ use crate::command::Command;
 use crate::derived::Derived;
 use crate::document::Document;
 use crate::edits::fresh_id;
+use crate::id_field;
 use crate::qty_field::{FieldBuffers, QtyField};
+use crate::rename::IdKind;
 use crate::units_display::{Shown, UnitSystem};
 use egui::{RichText, Ui};
-use tautspan_core::file::{CaseDto, Qty};
+use tautspan_core::file::{CaseDto, Qty, ScenarioDto};
 use tautspan_core::units::{Dimension, Sign, parse_quantity};
 
 fn kind_of(c: &CaseDto) -> &'static str {
@@ -60,7 +62,7 @@ pub fn ui(
                     out.push(Command::edit(move |d| d.cases.retain(|c| c.id() != id)));
                 }
             });
-            case_fields(ui, i, c, &masses, units, derived, bufs, out);
+            case_fields(ui, &doc.dto, shown, i, c, &masses, units, derived, bufs, out);
         });
     }
     ui.horizontal_wrapped(|ui| {
@@ -96,6 +98,8 @@ pub fn ui(
 #[allow(clippy::too_many_arguments)]
 fn case_fields(
     ui: &mut Ui,
+    dto: &ScenarioDto,
+    shown: Option<&str>,
     i: usize,
     c: &CaseDto,
     masses: &[String],
@@ -104,11 +108,17 @@ fn case_fields(
     bufs: &mut FieldBuffers,
     out: &mut Vec<Command>,
 ) {
-    let mass_now = match c {
-        CaseDto::Static { .. } => return,
-        CaseDto::Swing { mass, .. } | CaseDto::Drop { mass, .. } | CaseDto::Sudden { mass, .. } => mass.clone(),
-    };
     egui::Grid::new(("case-fields", i)).num_columns(2).show(ui, |ui| {
+        let renamed = id_field::show(ui, "Case id", bufs, dto, IdKind::Case, c.id(), out);
+        if let Some(new) = renamed
+            && shown == Some(c.id())
+        {
+            out.push(Command::ShowCase(new));
+        }
+        let mass_now = match c {
+            CaseDto::Static { .. } => return,
+            CaseDto::Swing { mass, .. } | CaseDto::Drop { mass, .. } | CaseDto::Sudden { mass, .. } => mass.clone(),
+        };
         let l = ui.label("Mass");
         let mut chosen = mass_now.clone();
         egui::ComboBox::from_id_salt(("case-mass", i))

@@ -7,6 +7,7 @@ use crate::command::Command;
 use crate::derived::Derived;
 use crate::document::Document;
 use crate::qty_field::{ERROR, FieldBuffers, QtyField};
+use crate::rename::IdKind;
 use crate::selection::Selection;
 use crate::units_display::{Shown, UnitSystem};
 use egui::{RichText, Ui};
@@ -95,6 +96,7 @@ fn node(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, bufs: &mut FieldBuffe
     ui.label(RichText::new(format!("{kind} {}", n.id)).strong());
     item_problems(ui, input.derived, &format!("nodes[{i}]"));
     egui::Grid::new("node-fields").num_columns(2).show(ui, |ui| {
+        crate::id_field::show(ui, "Id", bufs, &input.doc.dto, IdKind::Node, &n.id, out);
         let p = format!("nodes[{i}].at");
         let hint = input.units.unit(Shown::Length);
         QtyField {
@@ -208,6 +210,7 @@ fn mass(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, bufs: &mut FieldBuffe
     let m = &input.doc.dto.masses[i];
     ui.label(RichText::new(format!("Mass {} at {}", m.id, m.at)).strong());
     egui::Grid::new("mass-fields").num_columns(2).show(ui, |ui| {
+        crate::id_field::show(ui, "Id", bufs, &input.doc.dto, IdKind::Mass, &m.id, out);
         QtyField {
             label: "Mass",
             path: format!("masses[{i}].mass"),
@@ -243,6 +246,7 @@ fn floor(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, bufs: &mut FieldBuff
     item_problems(ui, input.derived, &format!("floors[{i}]"));
     let p = |s: &str| format!("floors[{i}].{s}");
     egui::Grid::new("floor-fields").num_columns(2).show(ui, |ui| {
+        crate::id_field::show(ui, "Id", bufs, &input.doc.dto, IdKind::Floor, &f.id, out);
         let hint = u.unit(Shown::Length);
         QtyField {
             label: "Span x",

@@ -45,6 +45,7 @@ pub fn ui(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, bufs: &mut FieldBuf
     item_problems(ui, input.derived, &format!("members[{i}].ends"));
     let p = |s: &str| format!("members[{i}].{s}");
     egui::Grid::new("member-fields").num_columns(2).show(ui, |ui| {
+        crate::id_field::show(ui, "Id", bufs, &input.doc.dto, crate::rename::IdKind::Member, &m.id, out);
         let l = ui.label("Kind");
         let mut kind = m.kind;
         egui::ComboBox::from_id_salt("kind")

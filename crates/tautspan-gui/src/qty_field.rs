@@ -25,6 +25,16 @@ impl FieldBuffers {
     pub fn get(&self, path: &str) -> Option<&str> {
         self.0.get(path).map(String::as_str)
     }
+
+    /// Keep unfinished text at a path.
+    pub fn put(&mut self, path: &str, text: &str) {
+        self.0.insert(path.to_string(), text.to_string());
+    }
+
+    /// Forget the unfinished text at a path.
+    pub fn remove(&mut self, path: &str) {
+        self.0.remove(path);
+    }
 }
 
 /// The colour of inline errors.
