@@ -55,6 +55,28 @@ fn failed_case(case: &Case, message: String) -> CaseResult {
     }
 }
 
+/// A slot filled in later (the static case's place, before the base solve
+/// is moved into it).
+fn empty_case() -> CaseResult {
+    CaseResult {
+        id: String::new(),
+        kind: String::new(),
+        converged: false,
+        iterations: 0,
+        residual_n: 0.0,
+        error: None,
+        dynamic: None,
+        members: Vec::new(),
+        floors: Vec::new(),
+        nodes: Vec::new(),
+        supports: Vec::new(),
+        load_path: Vec::new(),
+        limits: Limits::default(),
+        warnings: Vec::new(),
+        warning_items: Vec::new(),
+    }
+}
+
 struct Solved {
     result: CaseResult,
     eq: Equilibrium,
@@ -249,28 +271,51 @@ pub fn analyse_from(s: &Scenario, prior: Option<Prior<'_>>) -> Analysis {
         }
     }
 
+    // the first static case takes the base solve itself (no copy of a
+    // large rig's results); any further static case is a copy of it
+    let static_at = s.cases.iter().position(|c| matches!(c, Case::Static { .. }));
     let mut results: Vec<CaseResult> = Vec::with_capacity(s.cases.len());
-    for c in &s.cases {
-        let r = run_case(s, &net, &allow, &mut solver, &loads, c, &base, &mass_limits, &searches);
+    for (i, c) in s.cases.iter().enumerate() {
+        let r = if Some(i) == static_at {
+            empty_case()
+        } else {
+            run_case(s, &net, &allow, &mut solver, &loads, c, &base, &mass_limits, &searches)
+        };
         results.push(r);
     }
-    let static_result = s
-        .cases
-        .iter()
-        .position(|c| matches!(c, Case::Static { .. }))
-        .map(|i| results[i].clone())
-        .unwrap_or_else(|| base.result.clone());
-    for (c, r) in s.cases.iter().zip(results.iter_mut()) {
-        if r.error.is_some() {
-            continue;
+    let fallback_static = match static_at {
+        Some(i) => {
+            let mut r = base.result;
+            r.id = s.cases[i].id().to_string();
+            results[i] = r;
+            None
         }
-        let mut items = case_warnings(s, c, r, Some(&static_result));
-        items.extend(dynamic_warnings(s, c, r, &mass_limits, &loads));
-        r.warnings = items.iter().map(|w| w.message.clone()).collect();
-        r.warning_items = items;
+        None => Some(base.result),
+    };
+    let items: Vec<Option<Vec<Warning>>> = {
+        let static_result = static_at.map(|i| &results[i]).or(fallback_static.as_ref());
+        s.cases
+            .iter()
+            .zip(&results)
+            .map(|(c, r)| {
+                r.error.is_none().then(|| {
+                    let mut items = case_warnings(s, c, r, static_result);
+                    items.extend(dynamic_warnings(s, c, r, &mass_limits, &loads));
+                    items
+                })
+            })
+            .collect()
+    };
+    for (r, items) in results.iter_mut().zip(items) {
+        if let Some(items) = items {
+            r.warnings = items.iter().map(|w| w.message.clone()).collect();
+            r.warning_items = items;
+        }
     }
-
-    let comparison = comparison(s, &allow, &results, &static_result, &searches, &mass_limits);
+    let comparison = match static_at.map(|i| &results[i]).or(fallback_static.as_ref()) {
+        Some(st) => comparison(s, &allow, &results, st, &searches, &mass_limits),
+        None => Vec::new(),
+    };
     warnings.extend(
         results.iter().filter_map(|r| {
             r.error.as_ref().map(|e| Warning { subject: None, message: format!("case {}: {e}", r.id) })

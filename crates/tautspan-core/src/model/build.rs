@@ -30,16 +30,32 @@ pub struct Problem {
     pub message: String,
 }
 
+/// A field's path (`members[3].diameter`), written out only when a problem
+/// needs it: validation of a large rig looks up many fields and finds few
+/// problems.
+#[derive(Debug, Clone, Copy)]
+struct Field {
+    section: &'static str,
+    index: usize,
+    name: &'static str,
+}
+
+impl std::fmt::Display for Field {
+    fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
+        write!(f, "{}[{}].{}", self.section, self.index, self.name)
+    }
+}
+
 struct Ctx {
     problems: Vec<Problem>,
 }
 
 impl Ctx {
-    fn err(&mut self, path: impl Into<String>, message: impl Into<String>) {
-        self.problems.push(Problem { path: path.into(), message: message.into() });
+    fn err(&mut self, path: impl std::fmt::Display, message: impl Into<String>) {
+        self.problems.push(Problem { path: path.to_string(), message: message.into() });
     }
 
-    fn qty(&mut self, q: &Qty, path: &str, dim: Dimension, sign: Sign) -> Option<f64> {
+    fn qty(&mut self, q: &Qty, path: impl std::fmt::Display + Copy, dim: Dimension, sign: Sign) -> Option<f64> {
         match parse_quantity(&q.0, dim, sign) {
             Ok(v) => Some(v),
             Err(e) => {
@@ -49,11 +65,17 @@ impl Ctx {
         }
     }
 
-    fn opt_qty(&mut self, q: &Option<Qty>, path: &str, dim: Dimension, sign: Sign) -> Option<f64> {
+    fn opt_qty(
+        &mut self,
+        q: &Option<Qty>,
+        path: impl std::fmt::Display + Copy,
+        dim: Dimension,
+        sign: Sign,
+    ) -> Option<f64> {
         q.as_ref().and_then(|q| self.qty(q, path, dim, sign))
     }
 
-    fn number(&mut self, v: f64, path: &str, lo: f64, hi: f64, what: &str) -> Option<f64> {
+    fn number(&mut self, v: f64, path: impl std::fmt::Display + Copy, lo: f64, hi: f64, what: &str) -> Option<f64> {
         if v.is_finite() && v >= lo && v <= hi {
             Some(v)
         } else {
@@ -301,7 +323,7 @@ pub fn build(dto: &ScenarioDto) -> Result<Scenario, Vec<Problem>> {
     })
 }
 
-fn material_of(ctx: &mut Ctx, name: &Option<String>, path: &str) -> Option<Material> {
+fn material_of(ctx: &mut Ctx, name: &Option<String>, path: impl std::fmt::Display + Copy) -> Option<Material> {
     let name = name.as_ref()?;
     match Material::from_name(name) {
         Some(m) => Some(m),
@@ -313,7 +335,7 @@ fn material_of(ctx: &mut Ctx, name: &Option<String>, path: &str) -> Option<Mater
 }
 
 fn build_floor(ctx: &mut Ctx, i: usize, f: &FloorDto) -> Option<Floor> {
-    let p = |s: &str| format!("floors[{i}].{s}");
+    let p = |s: &'static str| Field { section: "floors", index: i, name: s };
     let sx = ctx.qty(&f.span.0, &p("span.0"), Dimension::Length, Sign::Positive);
     let sz = ctx.qty(&f.span.1, &p("span.1"), Dimension::Length, Sign::Positive);
     let t = ctx.qty(&f.thickness, &p("thickness"), Dimension::Length, Sign::Positive);
@@ -375,7 +397,7 @@ fn build_floor(ctx: &mut Ctx, i: usize, f: &FloorDto) -> Option<Floor> {
     })
 }
 
-fn fraction(ctx: &mut Ctx, v: Option<f64>, path: &str, what: &str) -> f64 {
+fn fraction(ctx: &mut Ctx, v: Option<f64>, path: impl std::fmt::Display + Copy, what: &str) -> f64 {
     match v {
         Some(v) => ctx.number(v, path, 0.01, 1.0, &format!("{what} is a fraction between 0.01 and 1")).unwrap_or(1.0),
         None => 1.0,
@@ -383,7 +405,7 @@ fn fraction(ctx: &mut Ctx, v: Option<f64>, path: &str, what: &str) -> f64 {
 }
 
 fn build_member(ctx: &mut Ctx, i: usize, m: &MemberDto) -> Option<Member> {
-    let p = |s: &str| format!("members[{i}].{s}");
+    let p = |s: &'static str| Field { section: "members", index: i, name: s };
     let kind = m.kind;
     let material = material_of(ctx, &m.material, &p("material"));
     let diameter = ctx.opt_qty(&m.diameter, &p("diameter"), Dimension::Length, Sign::Positive);
