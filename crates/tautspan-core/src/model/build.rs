@@ -336,12 +336,12 @@ fn material_of(ctx: &mut Ctx, name: &Option<String>, path: impl std::fmt::Displa
 
 fn build_floor(ctx: &mut Ctx, i: usize, f: &FloorDto) -> Option<Floor> {
     let p = |s: &'static str| Field { section: "floors", index: i, name: s };
-    let sx = ctx.qty(&f.span.0, &p("span.0"), Dimension::Length, Sign::Positive);
-    let sz = ctx.qty(&f.span.1, &p("span.1"), Dimension::Length, Sign::Positive);
-    let t = ctx.qty(&f.thickness, &p("thickness"), Dimension::Length, Sign::Positive);
-    let material = material_of(ctx, &f.material, &p("material"));
+    let sx = ctx.qty(&f.span.0, p("span.0"), Dimension::Length, Sign::Positive);
+    let sz = ctx.qty(&f.span.1, p("span.1"), Dimension::Length, Sign::Positive);
+    let t = ctx.qty(&f.thickness, p("thickness"), Dimension::Length, Sign::Positive);
+    let material = material_of(ctx, &f.material, p("material"));
     let modulus = match (&f.modulus, material) {
-        (Some(q), _) => ctx.qty(q, &p("modulus"), Dimension::Pressure, Sign::Positive),
+        (Some(q), _) => ctx.qty(q, p("modulus"), Dimension::Pressure, Sign::Positive),
         (None, Some(m)) => Some(m.data().modulus_pa),
         (None, None) => {
             ctx.err(
@@ -352,15 +352,15 @@ fn build_floor(ctx: &mut Ctx, i: usize, f: &FloorDto) -> Option<Floor> {
         }
     };
     let poisson = match (f.poisson, material) {
-        (Some(v), _) => ctx.number(v, &p("poisson"), 0.0, 0.499, "Poisson's ratio is between 0 and 0.5"),
+        (Some(v), _) => ctx.number(v, p("poisson"), 0.0, 0.499, "Poisson's ratio is between 0 and 0.5"),
         (None, Some(m)) => Some(m.data().poisson),
         (None, None) => {
             ctx.err(p("poisson"), "missing: give `poisson` (0.2 for concrete) or a `material`");
             None
         }
     };
-    let rated_uniform = ctx.opt_qty(&f.rated_uniform, &p("rated_uniform"), Dimension::Pressure, Sign::Positive);
-    let rated_point = ctx.opt_qty(&f.rated_point, &p("rated_point"), Dimension::Force, Sign::Positive);
+    let rated_uniform = ctx.opt_qty(&f.rated_uniform, p("rated_uniform"), Dimension::Pressure, Sign::Positive);
+    let rated_point = ctx.opt_qty(&f.rated_point, p("rated_point"), Dimension::Force, Sign::Positive);
     if f.rated_uniform.is_none() && f.rated_point.is_none() {
         ctx.err(
             p("rated_point"),
@@ -369,15 +369,15 @@ fn build_floor(ctx: &mut Ctx, i: usize, f: &FloorDto) -> Option<Floor> {
     }
     let pad = match &f.pad {
         Some((a, b)) => {
-            let a = ctx.qty(a, &p("pad.0"), Dimension::Length, Sign::Positive);
-            let b = ctx.qty(b, &p("pad.1"), Dimension::Length, Sign::Positive);
+            let a = ctx.qty(a, p("pad.0"), Dimension::Length, Sign::Positive);
+            let b = ctx.qty(b, p("pad.1"), Dimension::Length, Sign::Positive);
             Some([a?, b?])
         }
         None => None,
     };
     let deflection_limit = match f.deflection_limit {
         Some(v) => {
-            ctx.number(v, &p("deflection_limit"), 1.0, 1e6, "deflection_limit is span / N with N ≥ 1 (360 is usual)")?
+            ctx.number(v, p("deflection_limit"), 1.0, 1e6, "deflection_limit is span / N with N ≥ 1 (360 is usual)")?
         }
         None => 360.0,
     };
@@ -407,12 +407,12 @@ fn fraction(ctx: &mut Ctx, v: Option<f64>, path: impl std::fmt::Display + Copy, 
 fn build_member(ctx: &mut Ctx, i: usize, m: &MemberDto) -> Option<Member> {
     let p = |s: &'static str| Field { section: "members", index: i, name: s };
     let kind = m.kind;
-    let material = material_of(ctx, &m.material, &p("material"));
-    let diameter = ctx.opt_qty(&m.diameter, &p("diameter"), Dimension::Length, Sign::Positive);
-    let area_given = ctx.opt_qty(&m.area, &p("area"), Dimension::Area, Sign::Positive);
-    let modulus_given = ctx.opt_qty(&m.modulus, &p("modulus"), Dimension::Pressure, Sign::Positive);
-    let slack = ctx.opt_qty(&m.slack, &p("slack"), Dimension::Length, Sign::Any).unwrap_or(0.0);
-    let linear_mass_given = ctx.opt_qty(&m.linear_mass, &p("linear_mass"), Dimension::LinearDensity, Sign::NonNegative);
+    let material = material_of(ctx, &m.material, p("material"));
+    let diameter = ctx.opt_qty(&m.diameter, p("diameter"), Dimension::Length, Sign::Positive);
+    let area_given = ctx.opt_qty(&m.area, p("area"), Dimension::Area, Sign::Positive);
+    let modulus_given = ctx.opt_qty(&m.modulus, p("modulus"), Dimension::Pressure, Sign::Positive);
+    let slack = ctx.opt_qty(&m.slack, p("slack"), Dimension::Length, Sign::Any).unwrap_or(0.0);
+    let linear_mass_given = ctx.opt_qty(&m.linear_mass, p("linear_mass"), Dimension::LinearDensity, Sign::NonNegative);
 
     let construction = match &m.construction {
         Some(c) => match Construction::from_name(c) {
@@ -470,13 +470,13 @@ fn build_member(ctx: &mut Ctx, i: usize, m: &MemberDto) -> Option<Member> {
 
     let rating_given = match &m.rating {
         Some(RatingDto::BreakingStrength(q)) => ctx
-            .qty(q, &p("rating"), Dimension::Force, Sign::Positive)
+            .qty(q, p("rating"), Dimension::Force, Sign::Positive)
             .map(|v| (Rating::BreakingStrength(Force::new::<newton>(v)), "given in the file".to_string())),
-        Some(RatingDto::WorkingLoadLimit(q)) => ctx.qty(q, &p("rating"), Dimension::Force, Sign::Positive).map(|v| {
+        Some(RatingDto::WorkingLoadLimit(q)) => ctx.qty(q, p("rating"), Dimension::Force, Sign::Positive).map(|v| {
             (Rating::WorkingLoadLimit(Force::new::<newton>(v)), "working load limit given in the file".to_string())
         }),
         Some(RatingDto::Yield(q)) => ctx
-            .qty(q, &p("rating"), Dimension::Pressure, Sign::Positive)
+            .qty(q, p("rating"), Dimension::Pressure, Sign::Positive)
             .map(|v| (Rating::Yield(Pressure::new::<pascal>(v)), "yield stress given in the file".to_string())),
         None => None,
     };
@@ -571,12 +571,12 @@ fn build_member(ctx: &mut Ctx, i: usize, m: &MemberDto) -> Option<Member> {
     let (ea, stiffness_note) = match kind {
         MemberKind::FibreRope => {
             let at = match m.elongation_at_pct {
-                Some(v) => ctx.number(v, &p("elongation_at_pct"), 1.0, 100.0, "percent of break, 1 to 100")? / 100.0,
+                Some(v) => ctx.number(v, p("elongation_at_pct"), 1.0, 100.0, "percent of break, 1 to 100")? / 100.0,
                 None => 0.2,
             };
             let elong = match (m.elongation_pct, material) {
                 (Some(e), _) => Some((
-                    ctx.number(e, &p("elongation_pct"), 0.01, 100.0, "elastic elongation in percent, 0.01 to 100")?
+                    ctx.number(e, p("elongation_pct"), 0.01, 100.0, "elastic elongation in percent, 0.01 to 100")?
                         / 100.0,
                     "given".to_string(),
                 )),
@@ -653,14 +653,14 @@ fn build_member(ctx: &mut Ctx, i: usize, m: &MemberDto) -> Option<Member> {
     let default = kind.default_design_factor();
     let design_factor = match m.design_factor {
         Some(v) => DesignFactor {
-            value: ctx.number(v, &p("design_factor"), 1.0, 100.0, "a design factor is between 1 and 100")?,
+            value: ctx.number(v, p("design_factor"), 1.0, 100.0, "a design factor is between 1 and 100")?,
             from_file: true,
             default,
         },
         None => DesignFactor { value: default.value, from_file: false, default },
     };
-    let te = fraction(ctx, m.termination_efficiency, &p("termination_efficiency"), "termination efficiency");
-    let ke = fraction(ctx, m.knot_efficiency, &p("knot_efficiency"), "knot efficiency");
+    let te = fraction(ctx, m.termination_efficiency, p("termination_efficiency"), "termination efficiency");
+    let ke = fraction(ctx, m.knot_efficiency, p("knot_efficiency"), "knot efficiency");
     if m.knot_efficiency.is_some() && kind != MemberKind::FibreRope {
         ctx.err(p("knot_efficiency"), "a knot or hitch efficiency applies to fibre rope only");
     }
