@@ -416,20 +416,22 @@ pub struct Deflection<'a> {
 /// The deflected view's caption over the canvas's top left corner, naming
 /// the case and the magnification (a widget, so it can be read out).
 pub fn deflection_caption(ui: &mut egui::Ui, view: &View, caption: &str) {
-    let at = Rect::from_min_size(view.rect.left_top() + vec2(12.0, 10.0), vec2(view.rect.width() * 0.6, 60.0));
+    let at = Rect::from_min_max(view.rect.left_top() + vec2(12.0, 10.0), view.rect.right_bottom());
     ui.scope_builder(egui::UiBuilder::new().max_rect(at), |ui| {
+        ui.set_clip_rect(view.rect);
+        let line = |text: egui::RichText| egui::Label::new(text).wrap_mode(egui::TextWrapMode::Extend);
         egui::Frame::new()
             .fill(Color32::from_rgba_unmultiplied(0xff, 0xff, 0xfb, 0xee))
             .stroke(Stroke::new(1.5, PICK))
             .corner_radius(3.0)
             .inner_margin(6.0)
             .show(ui, |ui| {
-                ui.label(egui::RichText::new(caption).size(14.0).color(INK).strong());
-                ui.label(
+                ui.add(line(egui::RichText::new(caption).size(14.0).color(INK).strong()));
+                ui.add(line(
                     egui::RichText::new("grey dashes: as drawn · nodes move in the drawn view")
                         .size(11.0)
                         .color(CASING),
-                );
+                ));
             });
     });
 }

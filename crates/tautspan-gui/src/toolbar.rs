@@ -83,7 +83,8 @@ pub fn ui(ui: &mut Ui, input: ToolbarInput<'_>, out: &mut Vec<Command>) {
         ui.separator();
         ui.checkbox(&mut input.prefs.hide_labels, "Hide force labels");
     });
-    ui.horizontal(|ui| {
+    // wraps in a narrow window, so the caution below keeps the full width
+    ui.horizontal_wrapped(|ui| {
         for t in
             [Tool::Select, Tool::Anchor, Tool::Joint, Tool::Member(*input.member_kind), Tool::Mass, Tool::FloorNode]
         {
@@ -127,5 +128,10 @@ pub fn ui(ui: &mut Ui, input: ToolbarInput<'_>, out: &mut Vec<Command>) {
                 .labelled_by(l.id);
         });
     });
-    ui.label(RichText::new(format!("Caution: {}", tautspan_core::CAUTION)).color(Color32::from_rgb(0xe8, 0xb0, 0x3a)));
+    ui.add(
+        egui::Label::new(
+            RichText::new(format!("Caution: {}", tautspan_core::CAUTION)).color(Color32::from_rgb(0xe8, 0xb0, 0x3a)),
+        )
+        .wrap(),
+    );
 }
