@@ -24,13 +24,17 @@ use super::error::SolveError;
 
 /// A reusable Cholesky factorisation for one sparsity pattern.
 pub(crate) struct Factor {
-    symbolic: SymbolicCholesky<usize>,
-    l_values: Vec<f64>,
-    mem: MemBuffer,
-    /// The envelope method, when it is the cheaper one.
-    envelope: Option<Envelope>,
-    /// Whether `l_values` (or the envelope) holds a valid factor.
+    method: Method,
+    /// Whether the method holds a valid factor.
     valid: bool,
+}
+
+/// The two ways of factorising, each with its reusable buffers.
+enum Method {
+    /// faer's sparse Cholesky after AMD.
+    Sparse { symbolic: SymbolicCholesky<usize>, l_values: Vec<f64>, mem: MemBuffer },
+    /// The envelope method after reverse Cuthill–McKee.
+    Envelope(Envelope),
 }
 
 /// Instructions per multiply-add of each method, measured on this
@@ -38,6 +42,12 @@ pub(crate) struct Factor {
 /// envelope: contiguous dot products). Only their ratio matters.
 const SPARSE_COST: f64 = 3.0;
 const ENVELOPE_COST: f64 = 1.0;
+
+/// Envelope multiply-adds per dof up to which the envelope is taken
+/// without analysing the sparse alternative (a band of about twenty: there
+/// the general method's per-entry overhead outweighs any fill it saves;
+/// measured on this project's benchmarks).
+const NARROW_OPS_PER_DOF: f64 = 256.0;
 
 /// Multiply-adds of a simplicial factorisation with these column counts.
 fn sparse_operation_count(symbolic: &SymbolicCholesky<usize>) -> Option<f64> {
@@ -51,11 +61,11 @@ fn sparse_operation_count(symbolic: &SymbolicCholesky<usize>) -> Option<f64> {
 
 impl std::fmt::Debug for Factor {
     fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
-        f.debug_struct("Factor")
-            .field("n", &self.symbolic.nrows())
-            .field("factor_values", &self.l_values.len())
-            .field("valid", &self.valid)
-            .finish()
+        let method = match &self.method {
+            Method::Sparse { symbolic, .. } => format!("sparse, {} dofs", symbolic.nrows()),
+            Method::Envelope(_) => "envelope".to_string(),
+        };
+        f.debug_struct("Factor").field("method", &method).field("valid", &self.valid).finish()
     }
 }
 
@@ -63,6 +73,12 @@ impl Factor {
     /// Symbolic analysis of the lower-triangle pattern `pattern`.
     pub(crate) fn new(pattern: SymbolicSparseColMatRef<'_, usize>) -> Result<Self, SolveError> {
         let fail = |e: &dyn std::fmt::Debug| SolveError::Factorisation { reason: format!("{e:?}") };
+        let n = pattern.nrows();
+        let envelope = Envelope::new(n, pattern.col_ptr(), pattern.row_idx());
+        let envelope_ops = envelope.operation_count();
+        if envelope_ops <= NARROW_OPS_PER_DOF * n as f64 {
+            return Ok(Self { method: Method::Envelope(envelope), valid: false });
+        }
         let symbolic = factorize_symbolic_cholesky(
             pattern,
             Side::Lower,
@@ -70,44 +86,42 @@ impl Factor {
             CholeskySymbolicParams::default(),
         )
         .map_err(|e| fail(&e))?;
+        // a supernodal choice means a large, wide pattern: keep faer's
+        if sparse_operation_count(&symbolic).is_some_and(|sparse| ENVELOPE_COST * envelope_ops < SPARSE_COST * sparse) {
+            return Ok(Self { method: Method::Envelope(envelope), valid: false });
+        }
         let req = StackReq::any_of(&[
             symbolic.factorize_numeric_llt_scratch::<f64>(Par::Seq, Default::default()),
             symbolic.solve_in_place_scratch::<f64>(1, Par::Seq),
         ]);
         let mem = MemBuffer::try_new(req).map_err(|e| fail(&e))?;
         let l_values = vec![0.0; symbolic.len_val()];
-        let n = pattern.nrows();
-        let envelope = Envelope::new(n, pattern.col_ptr(), pattern.row_idx());
-        // a supernodal choice means a large, wide pattern: keep faer's
-        let use_envelope = sparse_operation_count(&symbolic)
-            .is_some_and(|sparse| ENVELOPE_COST * envelope.operation_count() < SPARSE_COST * sparse);
-        Ok(Self { symbolic, l_values, mem, envelope: use_envelope.then_some(envelope), valid: false })
+        Ok(Self { method: Method::Sparse { symbolic, l_values, mem }, valid: false })
     }
 
     /// Numeric factorisation of `a` (lower triangle, same pattern as given
     /// to [`Factor::new`]). Returns false when `a` is not numerically
     /// positive definite.
     pub(crate) fn factorize(&mut self, a: SparseColMatRef<'_, usize, f64>) -> bool {
-        if let Some(env) = self.envelope.as_mut() {
-            self.valid = env.factorize(a.val());
-            return self.valid;
-        }
-        let stack = MemStack::new(&mut self.mem);
-        let ok = self
-            .symbolic
-            .factorize_numeric_llt(
-                &mut self.l_values,
-                a,
-                Side::Lower,
-                LltRegularization::default(),
-                Par::Seq,
-                stack,
-                Default::default(),
-            )
-            .is_ok();
-        let finite = ok && self.l_values.iter().all(|v| v.is_finite());
-        self.valid = finite;
-        finite
+        self.valid = match &mut self.method {
+            Method::Envelope(env) => env.factorize(a.val()),
+            Method::Sparse { symbolic, l_values, mem } => {
+                let stack = MemStack::new(mem);
+                let ok = symbolic
+                    .factorize_numeric_llt(
+                        l_values,
+                        a,
+                        Side::Lower,
+                        LltRegularization::default(),
+                        Par::Seq,
+                        stack,
+                        Default::default(),
+                    )
+                    .is_ok();
+                ok && l_values.iter().all(|v| v.is_finite())
+            }
+        };
+        self.valid
     }
 
     /// Solves `A x = rhs` in place with the last successful factorisation.
@@ -116,13 +130,14 @@ impl Factor {
         if !self.valid || rhs.is_empty() {
             return;
         }
-        if let Some(env) = self.envelope.as_mut() {
-            env.solve_in_place(rhs);
-            return;
+        match &mut self.method {
+            Method::Envelope(env) => env.solve_in_place(rhs),
+            Method::Sparse { symbolic, l_values, mem } => {
+                let n = rhs.len();
+                let llt = LltRef::<'_, usize, f64>::new(symbolic, l_values);
+                let stack = MemStack::new(mem);
+                llt.solve_in_place_with_conj(Conj::No, MatMut::from_column_major_slice_mut(rhs, n, 1), Par::Seq, stack);
+            }
         }
-        let n = rhs.len();
-        let llt = LltRef::<'_, usize, f64>::new(&self.symbolic, &self.l_values);
-        let stack = MemStack::new(&mut self.mem);
-        llt.solve_in_place_with_conj(Conj::No, MatMut::from_column_major_slice_mut(rhs, n, 1), Par::Seq, stack);
     }
 }
