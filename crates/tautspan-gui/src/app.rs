@@ -147,6 +147,9 @@ impl TautspanApp {
 
     /// Queue a command as if a panel had returned it (used by tests and the bench).
     pub fn apply(&mut self, ctx: &egui::Context, commands: Vec<Command>) {
+        if !commands.is_empty() {
+            self.derived.before_edit();
+        }
         for c in commands {
             self.apply_one(ctx, c);
         }
@@ -182,14 +185,14 @@ impl TautspanApp {
                     self.member_kind = k;
                 }
             }
-            Command::Undo => {
-                if self.doc.undo() {
+            Command::Undo | Command::Redo => {
+                let stepped = if matches!(c, Command::Undo) { self.doc.undo() } else { self.doc.redo() };
+                if stepped {
                     self.fields.clear();
-                }
-            }
-            Command::Redo => {
-                if self.doc.redo() {
-                    self.fields.clear();
+                    // an undone placement or rename leaves nothing behind the selection
+                    if !self.selection.is_in(&self.doc.dto) {
+                        self.selection = Selection::None;
+                    }
                 }
             }
             Command::DeleteSelection => {

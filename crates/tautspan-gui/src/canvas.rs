@@ -49,15 +49,19 @@ pub struct CanvasInput<'a> {
 
 impl CanvasState {
     /// The document's geometry, read again only when its revision changed.
+    /// The canvas holds its copy only for the frame, so following an edit
+    /// in place does not copy it.
     fn geometry(&mut self, doc: &Document) -> Arc<Geometry> {
-        match &self.geometry {
-            Some((rev, g)) if *rev == doc.revision => g.clone(),
-            _ => {
-                let g = Arc::new(Geometry::of(&doc.dto));
-                self.geometry = Some((doc.revision, g.clone()));
-                g
+        if let Some((rev, g)) = &mut self.geometry {
+            // a drag moves one node a frame: follow it in place when the items are the same
+            if *rev == doc.revision || Arc::make_mut(g).follow(&doc.dto) {
+                *rev = doc.revision;
+                return g.clone();
             }
         }
+        let g = Arc::new(Geometry::of(&doc.dto));
+        self.geometry = Some((doc.revision, g.clone()));
+        g
     }
 }
 

@@ -101,6 +101,28 @@ fn len(text: &str) -> Option<f64> {
     parse_quantity(text, Dimension::Length, Sign::Any).ok()
 }
 
+fn mass_kg(text: &str) -> Option<f64> {
+    parse_quantity(text, Dimension::Mass, Sign::Positive).ok()
+}
+
+/// The slabs under the floor nodes.
+fn floors_of(nodes: &[GeoNode], dto: &ScenarioDto) -> Vec<GeoFloor> {
+    nodes
+        .iter()
+        .filter_map(|n| {
+            let SupportDto::Floor(fid) = &n.support else { return None };
+            let f = dto.floors.iter().find(|f| &f.id == fid)?;
+            Some(GeoFloor {
+                floor_id: fid.clone(),
+                node_id: n.id.clone(),
+                at_m: n.pos_m,
+                span_m: len(&f.span.0.0).unwrap_or(1.0).abs(),
+                thickness_m: len(&f.thickness.0).unwrap_or(0.15).abs(),
+            })
+        })
+        .collect()
+}
+
 impl Geometry {
     /// Read the geometry of a document (items that do not parse are left out).
     pub fn of(dto: &ScenarioDto) -> Geometry {
@@ -115,20 +137,7 @@ impl Geometry {
                 })
             })
             .collect();
-        let floors = nodes
-            .iter()
-            .filter_map(|n| {
-                let SupportDto::Floor(fid) = &n.support else { return None };
-                let f = dto.floors.iter().find(|f| &f.id == fid)?;
-                Some(GeoFloor {
-                    floor_id: fid.clone(),
-                    node_id: n.id.clone(),
-                    at_m: n.pos_m,
-                    span_m: len(&f.span.0.0).unwrap_or(1.0).abs(),
-                    thickness_m: len(&f.thickness.0).unwrap_or(0.15).abs(),
-                })
-            })
-            .collect();
+        let floors = floors_of(&nodes, dto);
         let index = nodes.iter().enumerate().map(|(i, n)| (n.id.clone(), i)).collect();
         Geometry {
             index,
@@ -136,15 +145,38 @@ impl Geometry {
             masses: dto
                 .masses
                 .iter()
-                .map(|m| GeoMass {
-                    id: m.id.clone(),
-                    at: m.at.clone(),
-                    kg: parse_quantity(&m.mass.0, Dimension::Mass, Sign::Positive).ok(),
-                })
+                .map(|m| GeoMass { id: m.id.clone(), at: m.at.clone(), kg: mass_kg(&m.mass.0) })
                 .collect(),
             nodes,
             floors,
         }
+    }
+
+    /// Bring the geometry up to an edit of `dto` that moved things but kept
+    /// the same nodes, members and masses (a drag, a typed coordinate or
+    /// mass): positions are read again, nothing else is rebuilt. False, with
+    /// nothing changed, when the items themselves changed.
+    pub fn follow(&mut self, dto: &ScenarioDto) -> bool {
+        let same = self.nodes.len() == dto.nodes.len()
+            && self.nodes.iter().zip(&dto.nodes).all(|(g, n)| g.id == n.id && g.support == n.support)
+            && self.members.len() == dto.members.len()
+            && self.members.iter().zip(&dto.members).all(|(g, m)| g.id == m.id && g.ends == m.ends)
+            && self.masses.len() == dto.masses.len()
+            && self.masses.iter().zip(&dto.masses).all(|(g, m)| g.id == m.id && g.at == m.at);
+        let Some(positions) = same
+            .then(|| dto.nodes.iter().map(|n| Some([len(&n.at.x.0)?, len(&n.at.y.0)?])).collect::<Option<Vec<_>>>())
+            .flatten()
+        else {
+            return false;
+        };
+        for (g, p) in self.nodes.iter_mut().zip(positions) {
+            g.pos_m = p;
+        }
+        for (g, m) in self.masses.iter_mut().zip(&dto.masses) {
+            g.kg = mass_kg(&m.mass.0);
+        }
+        self.floors = floors_of(&self.nodes, dto);
+        true
     }
 
     /// A node by id.
@@ -504,5 +536,19 @@ mod tests {
         let g = Geometry::of(&dto);
         assert!(g.nodes.len() >= 2);
         assert!(g.bounds().is_some());
+    }
+
+    #[test]
+    fn following_a_move_matches_reading_afresh() {
+        let mut dto: ScenarioDto =
+            tautspan_core::file::parse_scenario_text(crate::DEMO_SCENARIO).map(|(d, _)| d).unwrap_or_default();
+        let mut g = Geometry::of(&dto);
+        crate::edits::move_node(&mut dto, &g.nodes[1].id.clone(), 0.25, 1.75, crate::UnitSystem::Si);
+        assert!(g.follow(&dto), "same items: followed in place");
+        let fresh = Geometry::of(&dto);
+        let pos = |g: &Geometry| g.nodes.iter().map(|n| n.pos_m).collect::<Vec<_>>();
+        assert_eq!(pos(&g), pos(&fresh));
+        dto.nodes.pop();
+        assert!(!g.follow(&dto), "a node removed: read afresh instead");
     }
 }

@@ -93,11 +93,20 @@ impl Derived {
         {
             self.worker = SolveWorker::spawn(ctx.clone()).ok();
         }
-        let sent = self.worker.as_ref().is_some_and(|w| w.request(doc.revision, doc.dto.clone()));
-        if !sent {
-            self.worker = None;
+        if let Some(w) = &self.worker {
+            w.request(doc.revision, doc.dto.clone());
+        } else {
             let o = solve_revision(doc.revision, doc.dto.clone(), self.solved.as_deref());
             self.install(o);
+        }
+    }
+
+    /// Before the document is edited: take back the request the worker has
+    /// not started, so the scenario it shares with the document is edited
+    /// in place rather than copied; the next refresh sends the newest.
+    pub fn before_edit(&mut self) {
+        if self.worker.as_ref().is_some_and(SolveWorker::withdraw) {
+            self.requested = self.revision;
         }
     }
 

@@ -19,6 +19,19 @@ pub enum Selection {
     Floor(String),
 }
 
+impl Selection {
+    /// Whether the selected item is in the scenario (nothing selected counts as there).
+    pub fn is_in(&self, dto: &tautspan_core::file::ScenarioDto) -> bool {
+        match self {
+            Selection::None => true,
+            Selection::Node(id) => dto.nodes.iter().any(|n| &n.id == id),
+            Selection::Member(id) => dto.members.iter().any(|m| &m.id == id),
+            Selection::Mass(id) => dto.masses.iter().any(|m| &m.id == id),
+            Selection::Floor(id) => dto.floors.iter().any(|f| &f.id == id),
+        }
+    }
+}
+
 /// The canvas tool.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Default)]
 pub enum Tool {

@@ -6,23 +6,38 @@
 
 use crate::core_bridge::{Solved, analyse_model, validate};
 use std::sync::Arc;
-use std::sync::mpsc::{Receiver, RecvTimeoutError, Sender, channel};
+use std::sync::mpsc::{Receiver, RecvTimeoutError, channel};
+use std::sync::{Condvar, Mutex};
 use std::time::{Duration, Instant};
 use tautspan_core::file::ScenarioDto;
 use tautspan_core::model::Problem;
 
-/// What the worker is asked to do.
-enum Request {
-    /// Solve the scenario of one document revision.
-    Solve {
-        /// The revision.
-        revision: u64,
-        /// Its scenario, shared with the document.
-        dto: Arc<ScenarioDto>,
-    },
-    /// Drop results the UI no longer shows (freeing a large analysis takes
-    /// time better spent off the UI thread).
-    Discard(Arc<Solved>),
+/// What waits for the worker: the newest revision to solve (one slot, so
+/// a newer request replaces an older one not yet started) and results the
+/// UI no longer shows, to be freed here (freeing a large analysis takes
+/// time better spent off the UI thread).
+#[derive(Default)]
+struct Inbox {
+    solve: Option<(u64, Arc<ScenarioDto>)>,
+    trash: Vec<Arc<Solved>>,
+    closed: bool,
+}
+
+/// The inbox and the signal that something is in it.
+#[derive(Default)]
+struct Shared {
+    inbox: Mutex<Inbox>,
+    ready: Condvar,
+}
+
+impl Shared {
+    fn with<R>(&self, f: impl FnOnce(&mut Inbox) -> R) -> R {
+        // a poisoned lock only means a panic elsewhere mid-update; the inbox stays usable
+        let mut inbox = self.inbox.lock().unwrap_or_else(std::sync::PoisonError::into_inner);
+        let r = f(&mut inbox);
+        self.ready.notify_one();
+        r
+    }
 }
 
 /// What the worker found for one revision.
@@ -66,11 +81,16 @@ pub fn solve_revision(revision: u64, dto: Arc<ScenarioDto>, prior: Option<&Solve
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
 pub struct Stopped;
 
-/// The worker thread and its two channels.
-#[derive(Debug)]
+/// The worker thread, its inbox and the channel of its answers.
 pub struct SolveWorker {
-    tx: Sender<Request>,
+    shared: Arc<Shared>,
     rx: Receiver<Outcome>,
+}
+
+impl std::fmt::Debug for SolveWorker {
+    fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
+        f.debug_struct("SolveWorker").finish_non_exhaustive()
+    }
 }
 
 impl SolveWorker {
@@ -79,52 +99,52 @@ impl SolveWorker {
     /// # Errors
     /// When the system refuses a new thread.
     pub fn spawn(ctx: egui::Context) -> std::io::Result<SolveWorker> {
-        let (tx, requests) = channel::<Request>();
+        let shared = Arc::new(Shared::default());
         let (done, rx) = channel::<Outcome>();
+        let inbox = shared.clone();
         std::thread::Builder::new().name("tautspan-solve".to_string()).spawn(move || {
             let mut prior: Option<Arc<Solved>> = None;
-            let mut waiting: Option<(u64, Arc<ScenarioDto>)> = None;
             loop {
-                if waiting.is_none() {
-                    match requests.recv() {
-                        Ok(Request::Solve { revision, dto }) => waiting = Some((revision, dto)),
-                        Ok(Request::Discard(old)) => {
-                            drop(old);
-                            continue;
-                        }
-                        Err(_) => break,
+                let (job, trash) = {
+                    let mut guard = inbox.inbox.lock().unwrap_or_else(std::sync::PoisonError::into_inner);
+                    while guard.solve.is_none() && guard.trash.is_empty() && !guard.closed {
+                        guard = inbox.ready.wait(guard).unwrap_or_else(std::sync::PoisonError::into_inner);
                     }
-                }
-                // latest revision wins: skip every request already overtaken
-                while let Ok(r) = requests.try_recv() {
-                    match r {
-                        Request::Solve { revision, dto } => waiting = Some((revision, dto)),
-                        Request::Discard(old) => drop(old),
+                    if guard.closed {
+                        return;
                     }
-                }
-                let Some((revision, dto)) = waiting.take() else { continue };
+                    (guard.solve.take(), std::mem::take(&mut guard.trash))
+                };
+                drop(trash);
+                let Some((revision, dto)) = job else { continue };
                 let outcome = solve_revision(revision, dto, prior.as_deref());
                 if let Ok(s) = &outcome.result {
                     prior = Some(s.clone());
                 }
                 if done.send(outcome).is_err() {
-                    break;
+                    return;
                 }
                 ctx.request_repaint();
             }
         })?;
-        Ok(SolveWorker { tx, rx })
+        Ok(SolveWorker { shared, rx })
     }
 
-    /// Ask for a revision to be solved. False when the worker has stopped.
-    pub fn request(&self, revision: u64, dto: Arc<ScenarioDto>) -> bool {
-        self.tx.send(Request::Solve { revision, dto }).is_ok()
+    /// Ask for a revision to be solved, replacing a request not yet started.
+    pub fn request(&self, revision: u64, dto: Arc<ScenarioDto>) {
+        self.shared.with(|i| i.solve = Some((revision, dto)));
     }
 
-    /// Hand back results no longer shown, to be freed on the worker. When
-    /// the worker has stopped they are returned to be freed here.
+    /// Take back the request not yet started, if there is one, so that the
+    /// document it shares can be edited without a copy. Returns whether
+    /// there was one.
+    pub fn withdraw(&self) -> bool {
+        self.shared.with(|i| i.solve.take()).is_some()
+    }
+
+    /// Hand back results no longer shown, to be freed on the worker.
     pub fn discard(&self, old: Arc<Solved>) {
-        let _ = self.tx.send(Request::Discard(old));
+        self.shared.with(|i| i.trash.push(old));
     }
 
     /// Every outcome that has arrived, oldest first, without waiting.
@@ -150,5 +170,12 @@ impl SolveWorker {
             Err(RecvTimeoutError::Timeout) => Ok(None),
             Err(RecvTimeoutError::Disconnected) => Err(Stopped),
         }
+    }
+}
+
+impl Drop for SolveWorker {
+    fn drop(&mut self) {
+        // the thread finishes the solve in hand, if any, and ends
+        self.shared.with(|i| i.closed = true);
     }
 }

@@ -10,7 +10,7 @@ use crate::selection::Selection;
 use egui::{RichText, Ui};
 
 /// Warnings listed before the rest are offered behind a button.
-const SHOWN_FIRST: usize = 40;
+const SHOWN_FIRST: usize = 20;
 
 fn subject_selection(doc: &Document, subject: &str) -> Selection {
     let d = &doc.dto;

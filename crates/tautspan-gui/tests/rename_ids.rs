@@ -48,6 +48,7 @@ fn renaming_a_node_carries_its_members_and_is_one_undo_step() {
     let d = &h.state().doc.dto;
     assert!(d.nodes.iter().any(|n| n.id == "J1"), "one undo brings the old id back");
     assert!(d.members.iter().all(|m| m.ends.0 != "master-link" && m.ends.1 != "master-link"), "and every reference");
+    assert_eq!(h.state().selection, Selection::None, "nothing left selected under the undone id");
 }
 
 #[test]
