@@ -254,6 +254,7 @@ impl TautspanApp {
         self.fields.clear();
         self.canvas = CanvasState::default();
         self.view.fit_pending = true;
+        self.derived.forget(&self.doc);
     }
 
     fn shortcuts(&mut self, ui: &Ui, out: &mut Vec<Command>) {
@@ -406,6 +407,7 @@ impl TautspanApp {
                     let text = format!("solved in {:.1} ms · {ok} of {n} cases converged", self.derived.solve_ms);
                     ui.label(if ok == n { RichText::new(text) } else { RichText::new(text).color(ERROR) });
                 }
+                None if self.derived.problems.is_empty() => {}
                 None => {
                     ui.label(
                         RichText::new(format!(

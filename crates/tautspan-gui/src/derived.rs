@@ -31,6 +31,8 @@ pub struct Derived {
     worker: Option<SolveWorker>,
     /// The context the worker wakes when an answer is ready.
     ctx: Option<egui::Context>,
+    /// Answers for revisions before this one belong to a document no longer open.
+    first_revision: u64,
 }
 
 impl Derived {
@@ -101,6 +103,16 @@ impl Derived {
         }
     }
 
+    /// A new or opened document replaced the old one: its results go at
+    /// once, and answers still coming for it are discarded.
+    pub fn forget(&mut self, doc: &Document) {
+        self.first_revision = doc.revision;
+        self.problems.clear();
+        if let (Some(old), Some(w)) = (self.solved.take(), &self.worker) {
+            w.discard(old);
+        }
+    }
+
     /// Before the document is edited: take back the request the worker has
     /// not started, so the scenario it shares with the document is edited
     /// in place rather than copied; the next refresh sends the newest.
@@ -127,7 +139,7 @@ impl Derived {
 
     /// Show an outcome unless it is older than what is shown.
     fn install(&mut self, o: Outcome) -> bool {
-        if o.revision <= self.revision {
+        if o.revision <= self.revision || o.revision < self.first_revision {
             return false;
         }
         self.revision = o.revision;
@@ -186,6 +198,17 @@ mod tests {
         assert!(!d.install(outcome(2)), "older than shown");
         assert!(!d.install(outcome(3)), "already shown");
         assert_eq!(d.revision, 3);
+    }
+
+    #[test]
+    fn answers_for_a_replaced_document_are_discarded() {
+        let mut doc = Document::new(crate::document::blank_scenario(), None);
+        let mut d = Derived::default();
+        assert!(d.install(outcome(1)));
+        doc.replace(crate::document::blank_scenario(), None);
+        d.forget(&doc);
+        assert!(!d.install(outcome(1)), "of the old document");
+        assert!(d.install(outcome(doc.revision)));
     }
 
     #[test]
