@@ -94,3 +94,44 @@ pub fn draw(
     }
     total - placed.len()
 }
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use egui::pos2;
+
+    fn candidate(member: usize, a: Pos2, b: Pos2, utilisation: f64) -> Candidate {
+        Candidate { member, ends: [a, b], utilisation, picked: false }
+    }
+
+    #[test]
+    fn short_or_crowded_members_get_no_label() {
+        let ctx = egui::Context::default();
+        let mut left_out = Vec::new();
+        let mut output = ctx.run_ui(egui::RawInput::default(), |ui| {
+            let painter = ui.painter().clone();
+            let view = Rect::from_min_size(Pos2::ZERO, vec2(800.0, 600.0));
+            let centre = pos2(400.0, 300.0);
+            let text = |k: usize| format!("M{k} 1.234 kN");
+            // ten members 20 points long: too short to carry a label
+            let short = (0..10)
+                .map(|k| {
+                    let x = 20.0 + 60.0 * k as f32;
+                    candidate(k, pos2(x, 100.0), pos2(x, 120.0), 0.5)
+                })
+                .collect();
+            left_out.push(draw(&painter, view, centre, short, Color32::BLACK, text));
+            // two long members drawn over each other: one label, the more utilised
+            let twins = vec![
+                candidate(0, pos2(100.0, 400.0), pos2(300.0, 400.0), 0.2),
+                candidate(1, pos2(100.0, 400.0), pos2(300.0, 400.0), 0.9),
+            ];
+            left_out.push(draw(&painter, view, centre, twins, Color32::BLACK, text));
+            // the selected member is labelled however short
+            let picked = vec![Candidate { picked: true, ..candidate(0, pos2(50.0, 50.0), pos2(50.0, 60.0), 0.1) }];
+            left_out.push(draw(&painter, view, centre, picked, Color32::BLACK, text));
+        });
+        output.textures_delta.clear();
+        assert_eq!(left_out, [10, 1, 0]);
+    }
+}
