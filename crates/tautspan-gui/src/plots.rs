@@ -13,7 +13,7 @@ use egui::{Color32, RichText, Ui};
 use egui_plot::{HLine, Legend, Line, LineStyle, Plot, VLine};
 use std::sync::Arc;
 use std::sync::atomic::{AtomicBool, AtomicU32, Ordering};
-use std::sync::mpsc::{Receiver, channel};
+use std::sync::mpsc::{Receiver, TryRecvError, channel};
 use tautspan_core::analysis::CaseSimulation;
 use tautspan_core::file::CaseDto;
 
@@ -105,15 +105,22 @@ impl Plots {
         // keyed by the revision of the results, not the document: while they
         // update, the curve belongs to the scenario they were found for
         let key: CurveKey = (derived.revision, case.id().to_string(), member.to_string());
-        if let Some((k, rx)) = &self.curve_job
-            && let Ok(points) = rx.try_recv()
+        let done = self.curve_job.as_ref().and_then(|(_, rx)| match rx.try_recv() {
+            Ok(points) => Some(points),
+            Err(TryRecvError::Empty) => None,
+            Err(TryRecvError::Disconnected) => Some(Err("the curve's worker stopped without an answer".to_string())),
+        });
+        if let Some(points) = done
+            && let Some((k, _)) = self.curve_job.take()
         {
-            self.curve = Some((k.clone(), points));
-            self.curve_job = None;
+            self.curve = Some((k, points));
         }
         let fresh = self.curve.as_ref().is_some_and(|(k, _)| *k == key);
         let running = self.curve_job.as_ref().is_some_and(|(k, _)| *k == key);
-        if !fresh && !running {
+        // one curve job at a time: while a node is dragged the results change
+        // every few frames, and the newest key is started when the job in
+        // hand is done, not beside it
+        if !fresh && self.curve_job.is_none() {
             let (tx, rx) = channel();
             let Some(solved) = derived.solved.clone() else { return };
             let (c, m) = (key.1.clone(), key.2.clone());
