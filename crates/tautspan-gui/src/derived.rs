@@ -212,6 +212,24 @@ mod tests {
     }
 
     #[test]
+    fn the_last_results_stay_until_the_new_ones_arrive() {
+        let ctx = egui::Context::default();
+        let mut doc = Document::new(crate::document::blank_scenario(), None);
+        let mut d = Derived::default();
+        d.refresh(&doc, &ctx);
+        assert!(d.wait_for(&doc, Duration::from_secs(60)));
+        let before = d.solved.clone().map(|s| s.analysis.title.clone());
+        doc.edit(None, |s| s.title = "moved".to_string());
+        d.request(&doc);
+        // nothing taken in yet: the old results are shown, marked as updating
+        assert!(d.is_updating() && !d.is_current(&doc));
+        assert_eq!(d.solved.as_ref().map(|s| s.analysis.title.clone()), before);
+        assert!(d.wait_for(&doc, Duration::from_secs(60)));
+        assert!(!d.is_updating());
+        assert_eq!(d.solved.as_ref().map(|s| s.analysis.title.as_str()), Some("moved"));
+    }
+
+    #[test]
     fn the_newest_revision_wins() {
         let ctx = egui::Context::default();
         let mut doc = Document::new(crate::document::blank_scenario(), None);

@@ -38,6 +38,11 @@ fn the_built_in_demo_opens_and_solves() {
     let solved = h.state().derived.solved.as_ref().map(|s| s.analysis.cases.iter().all(|c| c.converged));
     assert_eq!(solved, Some(true), "every case of the demo converges");
     assert!(h.query_by_label_contains("Planning aid only").is_some(), "the caution is shown");
+    let n = h.state().doc.dto.cases.len();
+    let status = format!("of {n} cases converged");
+    assert!(h.query_by_label_contains(&status).is_some(), "the status bar shows convergence: {status}");
+    assert!(h.query_by_label_contains("solved in").is_some(), "and the solve time");
+    assert!(h.query_by_label_contains("updating results").is_none(), "the results are current");
 }
 
 #[test]
