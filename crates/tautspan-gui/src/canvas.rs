@@ -3,12 +3,13 @@
 //! commands; it never edits the document itself. Drawing is in
 //! `canvas_draw`.
 
-use crate::canvas_draw::{self, Deflection, Geometry};
+use crate::canvas_draw::{self, Deflection};
 use crate::command::Command;
 use crate::deflected;
 use crate::derived::Derived;
 use crate::document::Document;
 use crate::edits;
+use crate::geometry::Geometry;
 use crate::selection::{Selection, Tool};
 use crate::units_display::UnitSystem;
 use crate::view::View;

@@ -4,8 +4,8 @@
 //! magnification so small stretches can be seen. The app only scales the
 //! core's displacements for display; it computes none.
 
-use crate::canvas_draw::Geometry;
 use crate::core_bridge::Solved;
+use crate::geometry::Geometry;
 use std::collections::HashMap;
 use tautspan_core::analysis::CaseResult;
 

@@ -17,6 +17,7 @@ mod document;
 mod edits;
 mod explain;
 mod files;
+mod geometry;
 mod id_field;
 mod inspector;
 mod inspector_member;
