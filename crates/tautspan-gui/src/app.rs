@@ -1,7 +1,8 @@
 //! The app: one struct holding the document, the derived results and the
 //! UI state. Each frame draws the panels, which return commands; the
-//! commands are applied after the frame, and the results are recomputed
-//! only when the document changed. File handling is in `app_files`.
+//! commands are applied after the frame. A changed document goes to the
+//! solve worker (`derived`, `solve_worker`); the frame never waits for it.
+//! File handling is in `app_files`.
 
 use crate::canvas::{self, CanvasInput, CanvasState};
 use crate::command::Command;
