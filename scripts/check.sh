@@ -13,6 +13,9 @@ cargo clippy --workspace --all-targets --locked -- -D warnings
 echo "== tests (the README's test command)"
 cargo test --workspace --locked
 
+echo "== the rendered snapshot (wgpu; lavapipe on a headless machine)"
+cargo test -p tautspan-gui --features snapshot --test snapshot --locked
+
 echo "== core has no GUI dependency"
 if cargo tree -p tautspan-core --edges normal --prefix none --locked | grep -E '^(egui|eframe|winit|wgpu|rfd) ' ; then
   echo "tautspan-core must not depend on a GUI crate" >&2
