@@ -259,8 +259,13 @@ pub fn draw(
         }
         painter.text(p + vec2(9.0, 9.0), Align2::LEFT_TOP, &n.id, FontId::proportional(11.0), CASING);
     }
-    legend(painter, view, input.derived.solved.as_ref().map(|s| s.scenario.near_limit).unwrap_or(0.8));
+    // in the deflected view the caption holds the top left; the legend goes below it
+    let legend_top = if deflection.is_some() { CAPTION_HEIGHT + 16.0 } else { 12.0 };
+    legend(painter, view, input.derived.solved.as_ref().map(|s| s.scenario.near_limit).unwrap_or(0.8), legend_top);
 }
+
+/// Height the deflected view's caption takes at the top of the canvas, pt.
+const CAPTION_HEIGHT: f32 = 48.0;
 
 /// The deflected view: the geometry as drawn, shown faint under the
 /// deflected one.
@@ -269,8 +274,9 @@ pub struct Deflection<'a> {
     pub drawn: &'a Geometry,
 }
 
-/// The deflected view's caption over the canvas's top left corner, naming
-/// the case and the magnification (a widget, so it can be read out).
+/// The deflected view's caption over the canvas's top left corner (the
+/// legend moves down below it), naming the case and the magnification (a
+/// widget, so it can be read out).
 pub fn deflection_caption(ui: &mut egui::Ui, view: &View, caption: &str) {
     let at = Rect::from_min_max(view.rect.left_top() + vec2(12.0, 10.0), view.rect.right_bottom());
     ui.scope_builder(egui::UiBuilder::new().max_rect(at), |ui| {
@@ -282,6 +288,7 @@ pub fn deflection_caption(ui: &mut egui::Ui, view: &View, caption: &str) {
             .corner_radius(3.0)
             .inner_margin(6.0)
             .show(ui, |ui| {
+                // the key words come first, so a narrow canvas cuts only the case name
                 ui.add(line(egui::RichText::new(caption).size(14.0).color(INK).strong()));
                 ui.add(line(
                     egui::RichText::new("grey dashes: as drawn · nodes move in the drawn view")
@@ -305,9 +312,9 @@ fn draw_ghost(painter: &Painter, view: &View, geo: &Geometry) {
     }
 }
 
-fn legend(painter: &Painter, view: &View, near: f64) {
+fn legend(painter: &Painter, view: &View, near: f64, top: f32) {
     let w = 190.0;
-    let origin = view.rect.right_top() + vec2(-w - 14.0, 12.0);
+    let origin = view.rect.right_top() + vec2(-w - 14.0, top);
     let frame = Rect::from_min_size(origin, vec2(w, 112.0));
     painter.rect_filled(frame, 4.0, Color32::from_rgba_unmultiplied(0xff, 0xff, 0xfb, 0xe8));
     painter.rect_stroke(frame, 4.0, Stroke::new(1.0, GRID_AXIS), egui::StrokeKind::Inside);

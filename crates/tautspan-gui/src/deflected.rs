@@ -47,9 +47,9 @@ pub fn displaced(geo: &Geometry, by: &HashMap<String, [f64; 2]>, magnification: 
 /// The caption the canvas carries in the deflected view.
 pub fn caption(case_id: &str, magnification: u32) -> String {
     if magnification > 1 {
-        format!("Deflected shape, case {case_id}: displacements exaggerated ×{magnification}")
+        format!("Deflected shape ×{magnification}, exaggerated · case {case_id}")
     } else {
-        format!("Deflected shape, case {case_id}: true scale (×1)")
+        format!("Deflected shape, true scale (×1) · case {case_id}")
     }
 }
 
@@ -59,7 +59,7 @@ mod tests {
 
     #[test]
     fn the_caption_says_when_it_is_exaggerated() {
-        assert!(caption("hanging", 100).contains("exaggerated ×100"));
+        assert!(caption("hanging", 100).starts_with("Deflected shape ×100, exaggerated"));
         assert!(!caption("hanging", 1).contains("exaggerated"));
     }
 }

@@ -29,7 +29,7 @@ fn the_deflected_shape_draws_the_solved_positions_magnified() {
     click(&mut h, "Deflected shape");
     assert!(h.state().view.deflected);
     assert!(
-        h.query_by_label_contains("Deflected shape, case hanging: displacements exaggerated ×100").is_some(),
+        h.query_by_label_contains("Deflected shape ×100, exaggerated · case hanging").is_some(),
         "the canvas says the shape is exaggerated and by how much"
     );
     click_world(&mut h, deflected[0], deflected[1]);
@@ -45,7 +45,7 @@ fn the_deflected_shape_draws_the_solved_positions_magnified() {
 
     // back to the drawn view: no caption, and the point below J2 is no longer J2
     click(&mut h, "Deflected shape");
-    assert!(h.query_by_label_contains("Deflected shape, case").is_none(), "caption gone");
+    assert!(h.query_by_label_contains("· case hanging").is_none(), "caption gone");
     h.state_mut().selection = Selection::None;
     click_world(&mut h, deflected[0], deflected[1]);
     assert_ne!(h.state().selection, Selection::Node("J2".to_string()), "J2 is back where it is drawn");
