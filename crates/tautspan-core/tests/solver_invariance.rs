@@ -16,6 +16,21 @@ fn tight() -> SolveOptions {
     SolveOptions { relative_tolerance: 1e-13, ..SolveOptions::default() }
 }
 
+/// Members (end, end, EA, slack, law) between the nodes of `net`, each at
+/// its drawn length plus its slack, named `prefix` and a number.
+fn connect(net: &mut Network, members: &[(usize, usize, f64, f64, AxialLaw)], prefix: &str) {
+    for (i, &(a, b, ea, slack, law)) in members.iter().enumerate() {
+        let rest = dist(net.nodes[a].position_m, net.nodes[b].position_m) + slack;
+        net.members.push(NetMember {
+            name: format!("{prefix}{i}"),
+            ends: [a, b],
+            axial_stiffness_n: ea,
+            rest_length_m: rest,
+            law,
+        });
+    }
+}
+
 /// A 3-D rig: three anchors, two joints with loads, a rod strut, a slack
 /// rope and a floor node tied to a joint.
 fn rig() -> Network {
@@ -37,16 +52,7 @@ fn rig() -> Network {
         (2, 4, 5e6, -0.005, AxialLaw::TensionOnly),
         (0, 4, 5e6, 0.8, AxialLaw::TensionOnly),
     ];
-    for (i, (a, b, ea, slack, law)) in members.into_iter().enumerate() {
-        let rest = dist(net.nodes[a].position_m, net.nodes[b].position_m) + slack;
-        net.members.push(NetMember {
-            name: format!("m{i}"),
-            ends: [a, b],
-            axial_stiffness_n: ea,
-            rest_length_m: rest,
-            law,
-        });
-    }
+    connect(&mut net, &members, "m");
     net
 }
 
@@ -292,16 +298,7 @@ fn flat_rig() -> Network {
         (3, 4, 2e7, 0.0, AxialLaw::TensionAndCompression),
         (2, 4, 5e6, -0.003, AxialLaw::TensionOnly),
     ];
-    for (i, (a, b, ea, slack, law)) in members.into_iter().enumerate() {
-        let rest = dist(net.nodes[a].position_m, net.nodes[b].position_m) + slack;
-        net.members.push(NetMember {
-            name: format!("f{i}"),
-            ends: [a, b],
-            axial_stiffness_n: ea,
-            rest_length_m: rest,
-            law,
-        });
-    }
+    connect(&mut net, &members, "f");
     net
 }
 

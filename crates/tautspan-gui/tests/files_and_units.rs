@@ -10,6 +10,15 @@ use common::{click, demo_app, harness, type_into};
 use egui_kittest::kittest::Queryable;
 use tautspan_gui::{Shown, UnitSystem};
 
+/// The member forces of the first case the app shows.
+fn first_case_forces(app: &tautspan_gui::TautspanApp) -> Vec<f64> {
+    app.derived
+        .solved
+        .as_ref()
+        .map(|s| s.analysis.cases[0].members.iter().map(|m| m.force_n).collect())
+        .unwrap_or_default()
+}
+
 fn temp_dir(name: &str) -> std::path::PathBuf {
     let d = std::env::temp_dir().join(format!("tautspan-gui-{name}-{}", std::process::id()));
     let _ = std::fs::remove_dir_all(&d);
@@ -87,13 +96,7 @@ fn save_then_open_round_trips_and_unsaved_changes_are_guarded() {
     assert!(!h.state().doc.dirty, "clean after saving");
     assert_eq!(h.state().doc.path.as_deref(), Some(path.as_path()));
     let saved = h.state().doc.dto.clone();
-    let forces: Vec<f64> = h
-        .state()
-        .derived
-        .solved
-        .as_ref()
-        .map(|s| s.analysis.cases[0].members.iter().map(|m| m.force_n).collect())
-        .unwrap_or_default();
+    let forces = first_case_forces(h.state());
 
     // the file reads back through the core exactly as it was in the app
     let text = std::fs::read_to_string(&path).unwrap_or_else(|e| panic!("{e}"));
@@ -115,13 +118,7 @@ fn save_then_open_round_trips_and_unsaved_changes_are_guarded() {
     click(&mut h, "Open");
     assert_eq!(h.state().doc.dto, saved, "the saved scenario is back");
     h.run();
-    let again: Vec<f64> = h
-        .state()
-        .derived
-        .solved
-        .as_ref()
-        .map(|s| s.analysis.cases[0].members.iter().map(|m| m.force_n).collect())
-        .unwrap_or_default();
+    let again = first_case_forces(h.state());
     // the earlier numbers were warm-started from the edit before them, these
     // are solved afresh: the same equilibrium to the solver's tolerance
     // (residual 1e-9 of the forces), so 1e-7 relative

@@ -39,19 +39,10 @@ fn failed_case(case: &Case, message: String) -> CaseResult {
     CaseResult {
         id: case.id().to_string(),
         kind: case.kind_name().to_string(),
-        converged: false,
-        iterations: 0,
-        residual_n: 0.0,
         error: Some(message.clone()),
-        dynamic: None,
-        members: Vec::new(),
-        floors: Vec::new(),
-        nodes: Vec::new(),
-        supports: Vec::new(),
-        load_path: Vec::new(),
-        limits: Limits::default(),
         warnings: vec![message.clone()],
         warning_items: vec![Warning { subject: None, message }],
+        ..empty_case()
     }
 }
 

@@ -107,7 +107,19 @@ pub(crate) struct Envelope {
     inv_diag: Vec<f64>,
 }
 
-impl Envelope {
+/// The ordering and the envelope's shape, without its storage: enough to
+/// count the work and decide, before the (possibly large) arrays exist.
+#[derive(Debug, Clone)]
+pub(crate) struct EnvelopePlan {
+    /// `perm[new] = old`.
+    perm: Vec<usize>,
+    /// `inv[old] = new`.
+    inv: Vec<usize>,
+    /// First stored column of each (new) row.
+    first: Vec<usize>,
+}
+
+impl EnvelopePlan {
     /// Ordering and envelope of the lower-triangle CSC pattern
     /// (`col_ptr`, `row_idx`, every diagonal present).
     pub(crate) fn new(n: usize, col_ptr: &[usize], row_idx: &[usize]) -> Self {
@@ -132,6 +144,33 @@ impl Envelope {
                 first[i] = first[i].min(j);
             }
         }
+        Self { perm, inv, first }
+    }
+
+    /// Multiply-adds of one factorisation: Σ over rows of the dot products.
+    pub(crate) fn operation_count(&self) -> f64 {
+        let mut ops = 0.0;
+        for i in 0..self.first.len() {
+            for j in self.first[i]..=i {
+                ops += (j - self.first[i].max(self.first[j])) as f64;
+            }
+        }
+        ops
+    }
+}
+
+impl Envelope {
+    /// Ordering, envelope and storage for the lower-triangle CSC pattern
+    /// (`col_ptr`, `row_idx`, every diagonal present).
+    #[cfg(test)]
+    pub(crate) fn new(n: usize, col_ptr: &[usize], row_idx: &[usize]) -> Self {
+        Self::from_plan(EnvelopePlan::new(n, col_ptr, row_idx), col_ptr, row_idx)
+    }
+
+    /// The storage of a planned envelope for the pattern it was planned on.
+    pub(crate) fn from_plan(plan: EnvelopePlan, col_ptr: &[usize], row_idx: &[usize]) -> Self {
+        let EnvelopePlan { perm, inv, first } = plan;
+        let n = first.len();
         let mut start = Vec::with_capacity(n + 1);
         let mut total = 0;
         for i in 0..n {
@@ -149,19 +188,8 @@ impl Envelope {
         Self { perm, first, start, values: vec![0.0; total], slot_to_env, work: vec![0.0; n], inv_diag: vec![0.0; n] }
     }
 
-    /// Multiply-adds of one factorisation: Σ over rows of the dot products.
-    pub(crate) fn operation_count(&self) -> f64 {
-        let mut ops = 0.0;
-        for i in 0..self.first.len() {
-            for j in self.first[i]..=i {
-                ops += (j - self.first[i].max(self.first[j])) as f64;
-            }
-        }
-        ops
-    }
-
     /// Factorises the matrix whose lower-triangle values are `a_values`
-    /// (same pattern as given to [`Envelope::new`]). False when it is not
+    /// (same pattern as planned). False when it is not
     /// numerically positive definite.
     pub(crate) fn factorize(&mut self, a_values: &[f64]) -> bool {
         self.values.fill(0.0);

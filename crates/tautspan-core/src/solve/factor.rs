@@ -19,7 +19,7 @@ use faer::sparse::linalg::cholesky::{
 };
 use faer::{Conj, MatMut, Par, Side};
 
-use super::envelope::Envelope;
+use super::envelope::{Envelope, EnvelopePlan};
 use super::error::SolveError;
 
 /// A reusable Cholesky factorisation for one sparsity pattern.
@@ -74,10 +74,13 @@ impl Factor {
     pub(crate) fn new(pattern: SymbolicSparseColMatRef<'_, usize>) -> Result<Self, SolveError> {
         let fail = |e: &dyn std::fmt::Debug| SolveError::Factorisation { reason: format!("{e:?}") };
         let n = pattern.nrows();
-        let envelope = Envelope::new(n, pattern.col_ptr(), pattern.row_idx());
-        let envelope_ops = envelope.operation_count();
+        // the envelope's storage is made only once it is chosen (on a wide
+        // net it would be far larger than the sparse factor)
+        let plan = EnvelopePlan::new(n, pattern.col_ptr(), pattern.row_idx());
+        let envelope_ops = plan.operation_count();
+        let envelope = |plan| Method::Envelope(Envelope::from_plan(plan, pattern.col_ptr(), pattern.row_idx()));
         if envelope_ops <= NARROW_OPS_PER_DOF * n as f64 {
-            return Ok(Self { method: Method::Envelope(envelope), valid: false });
+            return Ok(Self { method: envelope(plan), valid: false });
         }
         let symbolic = factorize_symbolic_cholesky(
             pattern,
@@ -88,7 +91,7 @@ impl Factor {
         .map_err(|e| fail(&e))?;
         // a supernodal choice means a large, wide pattern: keep faer's
         if sparse_operation_count(&symbolic).is_some_and(|sparse| ENVELOPE_COST * envelope_ops < SPARSE_COST * sparse) {
-            return Ok(Self { method: Method::Envelope(envelope), valid: false });
+            return Ok(Self { method: envelope(plan), valid: false });
         }
         let req = StackReq::any_of(&[
             symbolic.factorize_numeric_llt_scratch::<f64>(Par::Seq, Default::default()),
