@@ -196,6 +196,7 @@ fn renders_without_any_results() {
         comparison: vec![],
         warnings: vec![],
         assumptions: vec![],
+        scope: Default::default(),
     };
     let doc = html(&scenario, &empty, "");
     assert_well_formed(&doc);

@@ -48,7 +48,8 @@ const COLUMNS: [(&str, Column, f32); 6] = [
 
 fn state_rank(s: State) -> u8 {
     match s {
-        State::Over => 3,
+        State::Over => 4,
+        State::Unchecked => 3,
         State::Near => 2,
         State::Slack => 1,
         State::Ok => 0,
@@ -121,7 +122,11 @@ pub fn ui(
                 ui.add_sized([COLUMNS[3].2, row_h], egui::Label::new(units.fmt(r.allowable_n, Shown::Force)));
                 ui.add_sized([COLUMNS[4].2, row_h], egui::Label::new(fmt_utilisation(r.utilisation)));
                 let st = RichText::new(r.state.as_str());
-                let st = if r.state == State::Over { st.strong().color(crate::qty_field::ERROR) } else { st };
+                let st = if matches!(r.state, State::Over | State::Unchecked) {
+                    st.strong().color(crate::qty_field::ERROR)
+                } else {
+                    st
+                };
                 ui.add_sized([COLUMNS[5].2, row_h], egui::Label::new(st));
                 let limits = a.comparison.iter().find(|row| row.id == r.id).map(|row| &row.limits);
                 let text = limits

@@ -6,6 +6,7 @@ use super::evaluate::{Allowables, evaluate};
 use super::formulas::{arrest_time_s, drop_factor, height_for_factor, release_for_factor, swing_factor};
 use super::limits::{LimitSearch, predict_start, search_limits};
 use super::results::{Analysis, CaseResult, ComparisonRow, DynamicLoad, Limits, Warning};
+use super::scope::scope;
 use super::warnings::case_warnings;
 use crate::CAUTION;
 use crate::library::MemberKind;
@@ -221,6 +222,7 @@ pub fn analyse_from(s: &Scenario, prior: Option<Prior<'_>>) -> Analysis {
                 comparison: Vec::new(),
                 warnings,
                 assumptions: assumptions(s),
+                scope: scope(s),
             };
         }
     };
@@ -242,6 +244,7 @@ pub fn analyse_from(s: &Scenario, prior: Option<Prior<'_>>) -> Analysis {
                 comparison: Vec::new(),
                 warnings,
                 assumptions: assumptions(s),
+                scope: scope(s),
             };
         }
     };
@@ -319,6 +322,7 @@ pub fn analyse_from(s: &Scenario, prior: Option<Prior<'_>>) -> Analysis {
         comparison,
         warnings,
         assumptions: assumptions(s),
+        scope: scope(s),
     }
 }
 

@@ -113,6 +113,7 @@ pub fn evaluate(s: &Scenario, net: &Network, a: &Allowables, loads: &[[f64; 3]],
                 sling_angle_deg: angle,
                 sag_m,
                 wave_transit_s: m.wave_speed_m_s.map(|c| length / c),
+                reason: None,
             }
         })
         .collect();
@@ -134,6 +135,7 @@ pub fn evaluate(s: &Scenario, net: &Network, a: &Allowables, loads: &[[f64; 3]],
                 } else {
                     state_of(utilisation, s.near_limit)
                 },
+                reason: None,
             }
         })
         .collect();

@@ -8,6 +8,7 @@ mod evaluate;
 pub mod formulas;
 mod limits;
 pub mod results;
+mod scope;
 mod simulate_case;
 mod warnings;
 
@@ -16,4 +17,5 @@ pub use analyse::{Prior, analyse, analyse_from, assumptions};
 pub use curves::{ReleaseCurve, release_curve, single_line_swing};
 pub use evaluate::Allowables;
 pub use results::*;
+pub use scope::{Scope, scope};
 pub use simulate_case::{CaseSimulation, SimulateRequest, simulate_case};

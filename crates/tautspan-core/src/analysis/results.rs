@@ -2,6 +2,7 @@
 //! floor normal forces, node positions, support reactions, the load path,
 //! limits and warnings. Plain `f64` in SI units, names carry the unit.
 
+use super::scope::Scope;
 use serde::Serialize;
 
 /// A member's or floor's state in a case.
@@ -16,6 +17,9 @@ pub enum State {
     Over,
     /// Carrying nothing: a slack rope, or a floor contact that has lifted off.
     Slack,
+    /// A check the inputs cannot support (a strut without a section, a floor
+    /// foot without a point rating): never counted as within.
+    Unchecked,
 }
 
 impl State {
@@ -26,6 +30,7 @@ impl State {
             State::Near => "near",
             State::Over => "over",
             State::Slack => "slack",
+            State::Unchecked => "unchecked",
         }
     }
 }
@@ -56,6 +61,9 @@ pub struct MemberResult {
     /// weight is known.
     #[serde(skip_serializing_if = "Option::is_none")]
     pub wave_transit_s: Option<f64>,
+    /// Why the member is `unchecked`, when it is.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub reason: Option<String>,
 }
 
 /// One floor in one case.
@@ -75,6 +83,9 @@ pub struct FloorResult {
     pub utilisation: f64,
     /// State.
     pub state: State,
+    /// Why the floor is `unchecked`, when it is.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub reason: Option<String>,
 }
 
 /// A node's solved position.
@@ -217,13 +228,67 @@ pub struct Analysis {
     pub warnings: Vec<Warning>,
     /// The assumptions, formulas and sources used.
     pub assumptions: Vec<String>,
+    /// What this analysis checks and, by name, what it does not.
+    pub scope: Scope,
+}
+
+/// The verdict of a whole scenario.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Serialize)]
+#[serde(rename_all = "snake_case")]
+pub enum Verdict {
+    /// Every item within its allowable in every case, as far as this tool checks.
+    Within,
+    /// Something over its allowable, slack where it must carry, or a case not solved.
+    NotWithin,
+    /// Nothing over, but something the inputs cannot check.
+    Unchecked,
+}
+
+impl Verdict {
+    /// The contract's word.
+    pub fn as_str(self) -> &'static str {
+        match self {
+            Verdict::Within => "within",
+            Verdict::NotWithin => "not_within",
+            Verdict::Unchecked => "unchecked",
+        }
+    }
+
+    /// In words for people.
+    pub fn words(self) -> &'static str {
+        match self {
+            Verdict::Within => "within what this tool checks",
+            Verdict::NotWithin => "NOT within the allowables",
+            Verdict::Unchecked => "UNCHECKED: parts of the load path cannot be checked from the inputs",
+        }
+    }
 }
 
 impl Analysis {
     /// True when every member and floor is within allowable in every case
     /// and nothing meant to carry went slack; false otherwise (exit code 1).
     pub fn all_within(&self) -> bool {
-        self.cases.iter().all(|c| c.converged && c.error.is_none()) && !self.any_fault()
+        self.verdict() == Verdict::Within
+    }
+
+    /// The scenario's verdict: not within when anything is over, slack
+    /// where it must carry or not solved; else unchecked when any item could
+    /// not be checked; else within.
+    pub fn verdict(&self) -> Verdict {
+        if !self.cases.iter().all(|c| c.converged && c.error.is_none()) || self.any_fault() {
+            Verdict::NotWithin
+        } else if self.any_unchecked() {
+            Verdict::Unchecked
+        } else {
+            Verdict::Within
+        }
+    }
+
+    fn any_unchecked(&self) -> bool {
+        self.cases.iter().any(|c| {
+            c.members.iter().any(|m| m.state == State::Unchecked)
+                || c.floors.iter().any(|f| f.state == State::Unchecked)
+        })
     }
 
     fn any_fault(&self) -> bool {

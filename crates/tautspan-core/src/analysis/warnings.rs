@@ -82,6 +82,15 @@ pub fn case_warnings(s: &Scenario, case: &Case, r: &CaseResult, static_r: Option
                     m.id, r.id
                 )),
             ),
+            State::Unchecked => push(
+                &m.id,
+                msg(format_args!(
+                    "member {}: UNCHECKED in case {}: {}",
+                    m.id,
+                    r.id,
+                    m.reason.as_deref().unwrap_or("the inputs cannot support the check")
+                )),
+            ),
             _ => {}
         }
         if member.kind.carries() == Carries::TensionOnly && m.force_n > 0.0 && m.sling_angle_deg < 30.0 {
@@ -192,6 +201,15 @@ pub fn case_warnings(s: &Scenario, case: &Case, r: &CaseResult, static_r: Option
                     f.id,
                     Pct(f.utilisation),
                     Pct(s.near_limit)
+                )),
+            ),
+            State::Unchecked => push(
+                &f.id,
+                msg(format_args!(
+                    "floor {}: UNCHECKED in case {}: {}",
+                    f.id,
+                    r.id,
+                    f.reason.as_deref().unwrap_or("the inputs cannot support the check")
                 )),
             ),
             State::Ok => {}

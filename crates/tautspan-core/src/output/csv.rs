@@ -25,9 +25,21 @@ pub fn caution_line() -> String {
     format!("# {CAUTION}")
 }
 
-/// The rows of one file (no header).
+/// The verdict and scope of one file as `#` comment lines.
+pub fn scope_lines(file: &str, a: &Analysis) -> String {
+    let mut out = format!("# {file}: verdict {}\n", a.verdict().words());
+    for c in &a.scope.checked {
+        out.push_str(&format!("# {file}: checked: {c}\n"));
+    }
+    for c in &a.scope.not_checked {
+        out.push_str(&format!("# {file}: not checked: {c}\n"));
+    }
+    out
+}
+
+/// The rows of one file (no header), after its verdict and scope lines.
 pub fn check_csv_rows(file: &str, a: &Analysis) -> String {
-    let mut out = String::new();
+    let mut out = scope_lines(file, a);
     for (ci, c) in a.cases.iter().enumerate() {
         let lim = (opt(c.limits.release_deg), opt(c.limits.drop_height_m));
         for (k, m) in c.members.iter().enumerate() {

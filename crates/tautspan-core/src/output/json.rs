@@ -34,7 +34,7 @@ fn case_json(c: &CaseResult) -> Value {
                 json!({ "id": m.id, "force_n": num(m.force_n), "allowable_n": num(m.allowable_n),
                         "utilisation": num(m.utilisation), "state": m.state.as_str(), "stretch_m": num(m.stretch_m),
                         "length_m": num(m.length_m), "sling_angle_deg": num(m.sling_angle_deg),
-                        "sag_m": num(m.sag_m), "wave_transit_s": m.wave_transit_s.map(num) })
+                        "sag_m": num(m.sag_m), "wave_transit_s": m.wave_transit_s.map(num), "reason": m.reason })
             })
             .collect(),
     );
@@ -44,7 +44,7 @@ fn case_json(c: &CaseResult) -> Value {
             .iter()
             .map(|f| {
                 json!({ "id": f.id, "normal_force_n": num(f.normal_force_n), "deflection_m": num(f.deflection_m),
-                        "allowable_n": num(f.allowable_n), "utilisation": num(f.utilisation), "state": f.state.as_str() })
+                        "allowable_n": num(f.allowable_n), "utilisation": num(f.utilisation), "state": f.state.as_str(), "reason": f.reason })
             })
             .collect(),
     );
@@ -89,6 +89,8 @@ pub fn check_json(file: &str, a: &Analysis) -> Value {
         "file": file,
         "title": a.title,
         "caution": a.caution,
+        "verdict": a.verdict().as_str(),
+        "scope": { "checked": a.scope.checked, "not_checked": a.scope.not_checked },
         "cases": a.cases.iter().map(case_json).collect::<Vec<_>>(),
         "comparison": comparison,
         "warnings": a.warnings.iter().map(|w| w.message.clone()).collect::<Vec<_>>(),

@@ -186,6 +186,22 @@ pub fn check_text(file: &str, a: &Analysis) -> String {
             let _ = writeln!(out, "warning: {}", w.message);
         }
     }
+    out.push_str(&scope_text(a));
     let _ = writeln!(out, "\nCAUTION: {CAUTION}");
+    out
+}
+
+/// The verdict and the scope: what was checked and what was not.
+pub fn scope_text(a: &Analysis) -> String {
+    let mut out = String::new();
+    let _ = writeln!(out, "\nVerdict: {}", a.verdict().words());
+    let _ = writeln!(out, "Checked:");
+    for c in &a.scope.checked {
+        let _ = writeln!(out, "  - {c}");
+    }
+    let _ = writeln!(out, "Not checked (a competent person must):");
+    for c in &a.scope.not_checked {
+        let _ = writeln!(out, "  - {c}");
+    }
     out
 }

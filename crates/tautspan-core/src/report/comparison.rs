@@ -86,6 +86,7 @@ pub fn state_word(state: State) -> String {
         State::Near => ("state-near", "near limit"),
         State::Over => ("state-over", "OVER"),
         State::Slack => ("state-slack", "slack"),
+        State::Unchecked => ("state-unchecked", "UNCHECKED"),
     };
     format!("<span class=\"{class}\">{word}</span>")
 }

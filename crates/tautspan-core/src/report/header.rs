@@ -4,7 +4,7 @@
 use super::escape::escape;
 use super::marks::state_in;
 use super::unit_system::{UnitSystem, percent};
-use crate::analysis::{Analysis, State};
+use crate::analysis::{Analysis, State, Verdict};
 use crate::model::Scenario;
 
 /// The caution box (used at the top and at the bottom).
@@ -41,13 +41,53 @@ fn case_list(scenario: &Scenario) -> String {
 
 /// The overall verdict and where the highest utilisation is.
 pub fn verdict(analysis: &Analysis) -> String {
-    let ok = analysis.all_within();
-    let (class, head) = if ok {
-        ("verdict", "Every member and floor is within its allowable in every case.".to_string())
-    } else {
-        ("verdict fail", format!("<span class=\"tag\">NOT WITHIN ALLOWABLE</span> {}", faults(analysis)))
+    let (class, head) = match analysis.verdict() {
+        Verdict::Within => (
+            "verdict",
+            "Every item this tool checks is within its allowable in every case (see the scope below for what it does not check).".to_string(),
+        ),
+        Verdict::NotWithin => {
+            ("verdict fail", format!("<span class=\"tag\">NOT WITHIN ALLOWABLE</span> {}", faults(analysis)))
+        }
+        Verdict::Unchecked => {
+            ("verdict fail", format!("<span class=\"tag\">UNCHECKED</span> {}", unchecked(analysis)))
+        }
     };
-    format!("<div class=\"{class}\"><strong>{head}</strong>{}</div>", highest(analysis))
+    format!("<div class=\"{class}\"><strong>{head}</strong>{}</div>{}", highest(analysis), scope(analysis))
+}
+
+/// What the inputs cannot check, by name, with the reason.
+fn unchecked(analysis: &Analysis) -> String {
+    let mut seen: Vec<String> = Vec::new();
+    for c in &analysis.cases {
+        let items = c
+            .members
+            .iter()
+            .filter(|m| m.state == State::Unchecked)
+            .map(|m| (&m.id, &m.reason))
+            .chain(c.floors.iter().filter(|f| f.state == State::Unchecked).map(|f| (&f.id, &f.reason)));
+        for (id, reason) in items {
+            let line = match reason {
+                Some(r) => format!("{} ({})", escape(id), escape(r)),
+                None => escape(id),
+            };
+            if !seen.contains(&line) {
+                seen.push(line);
+            }
+        }
+    }
+    format!("cannot be checked from the inputs: {}.", seen.join("; "))
+}
+
+/// What is checked and, by name, what is not.
+pub fn scope(analysis: &Analysis) -> String {
+    let list = |v: &[String]| v.iter().map(|t| format!("<li>{}</li>", escape(t))).collect::<String>();
+    format!(
+        "<section id=\"scope\"><h2>Scope</h2><p>Checked:</p><ul>{}</ul>\
+         <p>Not checked (a competent person must):</p><ul>{}</ul></section>",
+        list(&analysis.scope.checked),
+        list(&analysis.scope.not_checked)
+    )
 }
 
 /// What keeps the rig from being within allowable, by name.

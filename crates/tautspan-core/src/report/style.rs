@@ -50,6 +50,7 @@ td.num, th.num { text-align: right; font-variant-numeric: tabular-nums; }
 .none { color: var(--muted); }
 .state-over { font-weight: bold; text-decoration: underline; }
 .state-near { font-style: italic; }
+.state-unchecked { font-weight: bold; font-style: italic; }
 .state-slack { font-style: italic; color: var(--muted); }
 .swatch { display: inline-block; width: 2.6mm; height: 2.6mm; border: 0.5pt solid var(--ink);
   vertical-align: -0.3mm; margin-right: 1mm; }
