@@ -51,6 +51,10 @@ fn json_for_every_example_follows_the_contract() {
     for f in arr {
         assert!(f["caution"].as_str().expect("caution").contains(CAUTION_WORDS));
         assert!(f["title"].is_string() && f["file"].is_string());
+        // the verdict, and the scope: what is checked and, by name, what is not
+        assert!(["within", "not_within", "unchecked"].contains(&f["verdict"].as_str().expect("verdict")));
+        assert!(f["scope"]["checked"].as_array().is_some_and(|v| !v.is_empty()));
+        assert!(f["scope"]["not_checked"].as_array().is_some_and(|v| !v.is_empty()));
         let cases = f["cases"].as_array().expect("cases");
         assert!(cases.len() >= 2, "static and dynamic cases in every example");
         assert!(cases.iter().any(|c| c["kind"] == "static"));
@@ -61,7 +65,13 @@ fn json_for_every_example_follows_the_contract() {
                 for key in ["force_n", "allowable_n", "utilisation", "stretch_m"] {
                     assert!(m[key].as_f64().is_some_and(f64::is_finite), "{key} in {m}");
                 }
-                assert!(["ok", "near", "over", "slack"].contains(&m["state"].as_str().expect("state")));
+                assert!(["ok", "near", "over", "slack", "unchecked"].contains(&m["state"].as_str().expect("state")));
+                if c["kind"] == "swing" {
+                    assert!(m["peak_at_deg"].is_number(), "swing members say where on the arc they peak: {m}");
+                }
+            }
+            if c["kind"] == "swing" {
+                assert!(c["arc"]["angles_deg"].as_array().is_some_and(|a| a.len() >= 9));
             }
             assert!(c["nodes"].as_array().is_some_and(|n| !n.is_empty()));
             assert!(c["supports"].as_array().is_some_and(|n| !n.is_empty()));
@@ -104,12 +114,17 @@ fn csv_and_text_carry_the_caution() {
     let header = lines.next().expect("header");
     assert!(header.starts_with("file,case,kind,item"));
     let cols = header.split(',').count();
-    for l in lines {
+    // each file's verdict and scope come first, as comment lines
+    let (notes, rows): (Vec<&str>, Vec<&str>) = lines.partition(|l| l.starts_with('#'));
+    assert!(notes.iter().any(|l| l.contains("verdict")), "{notes:?}");
+    assert!(notes.iter().any(|l| l.contains(": checked: ")) && notes.iter().any(|l| l.contains(": not checked: ")));
+    for l in rows {
         assert_eq!(l.split(',').count(), cols, "{l}");
     }
     let out = run(&["check", &f]);
     let text = String::from_utf8_lossy(&out.stdout);
     assert!(text.starts_with(&f) && text.matches(CAUTION_WORDS).count() >= 2);
+    assert!(text.contains("Verdict: ") && text.contains("Not checked (a competent person must):"));
 }
 
 #[test]

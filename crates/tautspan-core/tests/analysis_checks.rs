@@ -150,23 +150,34 @@ fn dynamic_cases_on_a_single_line() {
 fn limits_land_on_the_allowable() {
     let src = example("bridle-unequal.ron");
     let l = load_scenario(&src).expect("load");
-    let a = analyse(&l.scenario);
-    let lim = &case(&a, "sudden").limits;
-    let (release, height) = (lim.release_deg.expect("release"), lim.drop_height_m.expect("height"));
     let mut dto = l.dto.clone();
+    dto.cases.push(CaseDto::Swing {
+        id: "probe".into(),
+        mass: "truss-section".into(),
+        release: Qty("10 deg".into()),
+        pivot: None,
+        azimuth: None,
+    });
+    let a = analyse(&build(&dto).expect("valid"));
+    let release = case(&a, "probe").limits.release_deg.expect("release");
+    let height = case(&a, "sudden").limits.drop_height_m.expect("height");
     dto.cases = vec![
         CaseDto::Swing {
             id: "at-limit".into(),
             mass: "truss-section".into(),
             release: Qty(format!("{release} deg")),
             pivot: None,
+            azimuth: None,
         },
         CaseDto::Drop { id: "drop-limit".into(), mass: "truss-section".into(), height: Qty(format!("{height} m")) },
     ];
     let b = analyse(&build(&dto).expect("valid"));
-    for c in &b.cases {
+    // drop: the root search closes to 1e-7 on the factor; swing: the release
+    // limit is closed to 1e-6 rad, and the arc's sampled peak is within its
+    // 0.05 % refinement tolerance of the true one, so 1e-3 for the swing
+    for (c, tol) in b.cases.iter().zip([1e-3, 1e-4]) {
         let max = c.members.iter().map(|m| m.utilisation).fold(0.0, f64::max);
-        assert!((max - 1.0).abs() < 1e-4, "{}: {max}", c.id);
+        assert!((max - 1.0).abs() < tol, "{}: {max}", c.id);
     }
 }
 
@@ -275,13 +286,16 @@ fn each_state_and_warning_is_raised() {
     // the tie then carries the box's weight alone (the node hangs from it)
     assert!(rel(a.cases[0].members[0].force_n, 50.0 * G) < 1e-6);
 
-    // swing beyond 90°
-    let a = analysed(&single_line(
+    // a release above the pivot's horizontal is refused, pointing to a drop case
+    let e = load_scenario(&single_line(
         STEEL_LINE,
         "100 kg",
-        r#"Static(id: "s"), Swing(id: "w", mass: "load", release: "120 deg")"#,
-    ));
-    assert!(has_warning(&a, "beyond 90 deg"));
+        r#"Static(id: "s"), Swing(id: "w", mass: "load", release: "120 deg", pivot: "A")"#,
+    ))
+    .expect_err("120 deg is not a swing");
+    let text = e.to_string();
+    // 2 L |cos θ0| = 2 x 4 m x 0.5 = 4 m (REFERENCES.md, swing over the arc)
+    assert!(text.contains("cases[1].release") && text.contains("Drop case") && text.contains("= 4 m"), "{text}");
 
     // strain beyond the steel model's validity: a very thin steel line
     let a = analysed(&single_line(
@@ -345,7 +359,8 @@ fn release_limit_inverts_the_swing_formula() {
 }
 
 // The release curve of a single plumb line is the rigid-line peak
-// m g (3 − 2 cos θ0) at every angle (1e-9: the plumb line's force does not
+// m g (3 − 2 cos θ0) at every angle (its peak over the arc is at the lowest
+// point, which the sweep always solves) (1e-9: the plumb line's force does not
 // depend on its stretch); the single-line swing ends at m g cos θ0 at the
 // turning points and peaks at the lowest point.
 #[test]
@@ -353,7 +368,7 @@ fn release_curve_follows_the_swing_formula() {
     use tautspan_core::analysis::{release_curve, single_line_swing};
     let l = load_scenario(&single_line(STEEL_LINE, "300 kg", r#"Static(id: "s")"#)).expect("load");
     let angles = [0.0, 30.0, 45.0, 60.0, 90.0];
-    let c = release_curve(&l.scenario, 0, &angles).expect("curve");
+    let c = release_curve(&l.scenario, 0, 0.0, &angles).expect("curve");
     assert_eq!(c.release_deg.len(), angles.len());
     for (deg, f) in c.release_deg.iter().zip(&c.member_force_n) {
         let expected = 300.0 * G * (3.0 - 2.0 * deg.to_radians().cos());

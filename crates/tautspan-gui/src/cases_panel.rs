@@ -79,7 +79,7 @@ pub fn ui(
             let id = fresh_id("swing", taken());
             let mass = mass.clone();
             out.push(Command::edit(move |d| {
-                d.cases.push(CaseDto::Swing { id, mass, release: Qty::from("30 deg"), pivot: None })
+                d.cases.push(CaseDto::Swing { id, mass, release: Qty::from("30 deg"), pivot: None, azimuth: None })
             }));
         }
         if ui.button("+ Drop").clicked() {

@@ -55,11 +55,11 @@ pub fn allowable_explanation(scenario: &Scenario, member: usize) -> String {
 pub struct CurvePoint {
     /// Release angle from the vertical, degrees.
     pub release_deg: f64,
-    /// Member force at the lowest point of the swing, N.
+    /// Member force at its peak over the swing's arc, N.
     pub force_n: f64,
 }
 
-/// Force in `member_id` at the lowest point of the swing against release
+/// Force in `member_id` at its peak over the swing's arc against release
 /// angle, for the mass of swing case `case_id`: the core's release curve.
 pub fn swing_curve(
     scenario: &Scenario,
@@ -69,9 +69,13 @@ pub fn swing_curve(
 ) -> Result<Vec<CurvePoint>, String> {
     let case = scenario.cases.iter().find(|c| c.id() == case_id).ok_or_else(|| format!("no case {case_id}"))?;
     let mass = case.mass().ok_or_else(|| format!("case {case_id} has no mass"))?;
+    let azimuth_rad = match case {
+        tautspan_core::model::Case::Swing { azimuth, .. } => azimuth.value,
+        _ => 0.0,
+    };
     let member =
         scenario.members.iter().position(|m| m.id == member_id).ok_or_else(|| format!("no member {member_id}"))?;
-    let curve = release_curve(scenario, mass, angles_deg)?;
+    let curve = release_curve(scenario, mass, azimuth_rad, angles_deg)?;
     Ok(curve
         .release_deg
         .iter()

@@ -140,7 +140,13 @@ mod tests {
         let j = add_node(&mut d, 0.0, 1.0, SupportDto::Joint, UnitSystem::Si);
         add_member(&mut d, &a, &j, MemberKind::WireRope, UnitSystem::Si);
         let m = add_mass(&mut d, &j, UnitSystem::Si);
-        d.cases.push(CaseDto::Swing { id: "swing".into(), mass: m, release: "20 deg".into(), pivot: Some(a) });
+        d.cases.push(CaseDto::Swing {
+            id: "swing".into(),
+            mass: m,
+            release: "20 deg".into(),
+            pivot: Some(a),
+            azimuth: None,
+        });
         d
     }
 

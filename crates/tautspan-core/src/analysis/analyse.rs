@@ -2,11 +2,12 @@
 //! case as a quasi-static solve under its peak load, the limits, the
 //! warnings, and the inspector's comparison table.
 
-use super::evaluate::{Allowables, evaluate};
-use super::formulas::{arrest_time_s, drop_factor, height_for_factor, release_for_factor, swing_factor};
+use super::evaluate::{Allowables, Evaluated, evaluate};
+use super::formulas::{arrest_time_s, drop_factor, height_for_factor, swing_factor};
 use super::limits::{LimitSearch, predict_start, search_limits};
-use super::results::{Analysis, CaseResult, ComparisonRow, DynamicLoad, Limits, Warning};
+use super::results::{Analysis, ArcSummary, CaseResult, ComparisonRow, DynamicLoad, Limits, Warning};
 use super::scope::scope;
+use super::swing_arc::{Arc, ReleaseLimits, SwingSetup, arc_loads, release_limits, sweep};
 use super::warnings::case_warnings;
 use crate::CAUTION;
 use crate::library::MemberKind;
@@ -26,9 +27,11 @@ struct MassLimits {
     stiffness_n_per_m: Option<f64>,
 }
 
+/// The drop-height limit of a mass (its release-angle limit comes from the
+/// swing's own sweep over the arc, never from the vertical load factor).
 fn limits_from(m: &MassLimits, weight_n: f64) -> Limits {
     Limits {
-        release_deg: m.factor.and_then(release_for_factor).map(|r| r.to_degrees().min(90.0)).or(m.factor.map(|_| 0.0)),
+        release_deg: None,
         drop_height_m: match (m.factor, m.stiffness_n_per_m) {
             (Some(f), Some(k)) => Some(height_for_factor(weight_n, k, f).unwrap_or(0.0)),
             _ => None,
@@ -58,6 +61,7 @@ fn empty_case() -> CaseResult {
         residual_n: 0.0,
         error: None,
         dynamic: None,
+        arc: None,
         members: Vec::new(),
         floors: Vec::new(),
         nodes: Vec::new(),
@@ -112,6 +116,7 @@ fn solved_case(
             residual_n: eq.residual_n,
             error: None,
             dynamic,
+            arc: None,
             members: ev.members,
             floors: ev.floors,
             nodes: ev.nodes,
@@ -160,10 +165,10 @@ pub fn assumptions(s: &Scenario) -> Vec<String> {
         "Members are axial springs k = E A / L0; rope, chain and cable carry tension only, rods carry both; large-displacement equilibrium by damped Newton on the tangent stiffness.".to_string(),
         "Members' own weight is lumped half at each end node.".to_string(),
         "A node on a floor is held sideways (friction or fixing assumed) and carried vertically by a compression-only spring from plate bending at the slab centre: w = alpha P a^2 / D, D = E t^3 / 12(1 - nu^2) (Timoshenko & Woinowsky-Krieger).".to_string(),
-        "Swing: lowest-point load m g (3 - 2 cos theta0) on the swinging mass (rigid line, energy and centripetal balance), network solved quasi-statically; limited to 90 deg, beyond which a rope goes slack.".to_string(),
+        format!("Swing: at every angle theta of the arc the line pulls with T = m g (3 cos theta - 2 cos theta0) along its direction (rigid line, energy and centripetal balance; e.g. Meriam & Kraige, Dynamics, normal-tangential coordinates); the network is solved quasi-statically for theta from -theta0 to +theta0 in the swing's plane (azimuth about y from +x; 90 deg swings towards +z), on a grid of at most {} deg refined until each item's peak is found to 0.1 %; each item is reported at its own peak and the angle where it occurs. Releases above 90 deg are refused: the line goes slack and the mass falls, which is a drop.", format_number(super::swing_arc::GRID_STEP_DEG, 2)),
         "Drop: F = W (1 + sqrt(1 + 2 k h / W)) with k the static path stiffness at the mass (Timoshenko & Gere, impact); sudden load: factor 2. Member mass, damping and hysteresis ignored (fibre ropes peak lower).".to_string(),
         "Allowable = rated strength x efficiency / design factor, or a working load limit as given; rods on yield x area.".to_string(),
-        "Limits: the case's largest release angle and drop height come from a root search on the full network to 1e-7 on the load factor; each member's own limit is interpolated between solved load factors, or extrapolated linearly beyond them (an estimate for members far from their allowable).".to_string(),
+        "Limits: the largest drop height comes from a root search on the full network to 1e-7 on the load factor; the largest release angle (at most 90 deg) from a root search on the release angle, each step a full sweep of the arc, to 1e-6 rad; each item's own limit is interpolated between the solved load factors or release angles, or extrapolated linearly beyond them (an estimate for items far from their allowable).".to_string(),
         format!("Near limit from utilisation {}; dynamic/static ratio warning above {}.", format_number(s.near_limit, 3), format_number(s.dynamic_ratio_warning, 3)),
     ]
 }
@@ -253,9 +258,10 @@ pub fn analyse_from(s: &Scenario, prior: Option<Prior<'_>>) -> Analysis {
     let mut mass_limits: Vec<Option<MassLimits>> = vec![None; s.masses.len()];
     let mut searches: Vec<Option<LimitSearch>> = vec![None; s.masses.len()];
     for c in &s.cases {
-        if let Some(m) = c.mass()
-            && mass_limits[m].is_none()
+        if let Case::Drop { mass: m, .. } | Case::Sudden { mass: m, .. } = c
+            && mass_limits[*m].is_none()
         {
+            let m = *m;
             let node = s.masses[m].node;
             let k =
                 solver.effective_stiffness(&base.eq, node, [0.0, -1.0, 0.0]).ok().filter(|k| k.is_finite() && *k > 0.0);
@@ -269,9 +275,15 @@ pub fn analyse_from(s: &Scenario, prior: Option<Prior<'_>>) -> Analysis {
     // large rig's results); any further static case is a copy of it
     let static_at = s.cases.iter().position(|c| matches!(c, Case::Static { .. }));
     let mut results: Vec<CaseResult> = Vec::with_capacity(s.cases.len());
+    let mut swing_limits: Vec<(usize, f64, f64, Option<ReleaseLimits>)> = Vec::new();
+    let mut extra: Vec<Vec<Warning>> = vec![Vec::new(); s.cases.len()];
     for (i, c) in s.cases.iter().enumerate() {
         let r = if Some(i) == static_at {
             empty_case()
+        } else if let Case::Swing { .. } = c {
+            let (r, w) = run_swing(s, &net, &allow, &mut solver, &loads, c, &base, &mut swing_limits);
+            extra[i] = w;
+            r
         } else {
             run_case(s, &net, &allow, &mut solver, &loads, c, &base, &mass_limits, &searches)
         };
@@ -291,10 +303,12 @@ pub fn analyse_from(s: &Scenario, prior: Option<Prior<'_>>) -> Analysis {
         s.cases
             .iter()
             .zip(&results)
-            .map(|(c, r)| {
+            .zip(extra)
+            .map(|((c, r), more)| {
                 r.error.is_none().then(|| {
                     let mut items = case_warnings(s, c, r, static_result);
                     items.extend(dynamic_warnings(s, c, r, &mass_limits, &loads));
+                    items.extend(more);
                     items
                 })
             })
@@ -307,7 +321,7 @@ pub fn analyse_from(s: &Scenario, prior: Option<Prior<'_>>) -> Analysis {
         }
     }
     let comparison = match static_at.map(|i| &results[i]).or(fallback_static.as_ref()) {
-        Some(st) => comparison(s, &allow, &results, st, &searches, &mass_limits),
+        Some(st) => comparison(s, &allow, &results, st, &searches, &mass_limits, &swing_limits),
         None => Vec::new(),
     };
     warnings.extend(
@@ -348,16 +362,9 @@ fn run_case(
             r.id = c.id().to_string();
             return r;
         }
-        Case::Swing { release, .. } => {
-            let f = swing_factor(release.value.min(std::f64::consts::PI));
-            (
-                f,
-                format!(
-                    "m g (3 - 2 cos {} deg) at the lowest point (rigid line)",
-                    format_number(release.value.to_degrees(), 4)
-                ),
-                None,
-            )
+        Case::Swing { .. } => {
+            let mut cache = Vec::new();
+            return run_swing(s, net, allow, solver, loads, c, base, &mut cache).0;
         }
         Case::Drop { mass, height, .. } => {
             let w = s.masses[*mass].mass.value * g;
@@ -490,15 +497,22 @@ fn comparison(
     static_result: &CaseResult,
     searches: &[Option<LimitSearch>],
     mass_limits: &[Option<MassLimits>],
+    swing_limits: &[(usize, f64, f64, Option<ReleaseLimits>)],
 ) -> Vec<ComparisonRow> {
     let g = s.gravity_m_s2();
     // per-item limits for the first swing and the first drop/sudden mass
-    let swing_mass = s.cases.iter().find_map(|c| if let Case::Swing { mass, .. } = c { Some(*mass) } else { None });
     let drop_mass = s.cases.iter().find_map(|c| match c {
         Case::Drop { mass, .. } | Case::Sudden { mass, .. } => Some(*mass),
         _ => None,
     });
-    let swing_items = swing_mass.and_then(|m| searches[m].as_ref()).map(|x| x.items.clone());
+    let swing_items: Option<&Vec<Option<f64>>> = s.cases.iter().find_map(|c| match c {
+        Case::Swing { mass, release, azimuth, .. } => swing_limits
+            .iter()
+            .find(|x| x.0 == *mass && x.1 == azimuth.value && x.2 == release.value)
+            .and_then(|x| x.3.as_ref())
+            .map(|l| &l.items_deg),
+        _ => None,
+    });
     let drop_items = drop_mass.and_then(|m| searches[m].as_ref()).map(|x| x.items.clone());
 
     let n_members = s.members.len();
@@ -530,10 +544,8 @@ fn comparison(
             .max_by(|a, b| a.1.total_cmp(&b.1))
             .map(|(i, _)| results[i].id.clone());
         let mut limits = Limits::default();
-        if let (Some(m), Some(items)) = (swing_mass, &swing_items) {
-            let ml = MassLimits { factor: items.get(k).copied().flatten(), stiffness_n_per_m: None };
-            limits.release_deg = limits_from(&ml, 1.0).release_deg;
-            let _ = m;
+        if let Some(items) = swing_items {
+            limits.release_deg = items.get(k).copied().flatten();
         }
         if let (Some(m), Some(items)) = (drop_mass, &drop_items) {
             let w = s.masses[m].mass.value * g;
@@ -556,4 +568,172 @@ fn comparison(
         });
     }
     rows
+}
+
+/// The shared evaluation of arc samples, each evaluated once.
+struct ArcEvaluations<'a> {
+    s: &'a Scenario,
+    net: &'a Network,
+    allow: &'a Allowables,
+    loads: &'a NetworkLoads,
+    setup: SwingSetup,
+    arc: &'a Arc,
+    done: Vec<Option<Evaluated>>,
+}
+
+impl ArcEvaluations<'_> {
+    fn at(&mut self, j: usize) -> &Evaluated {
+        let (s, net, allow, loads, setup, arc) = (self.s, self.net, self.allow, self.loads, self.setup, self.arc);
+        self.done[j].get_or_insert_with(|| {
+            let x = &arc.samples[j];
+            let l = arc_loads(s, loads, setup.mass, setup.release_rad, setup.azimuth_rad, x.theta_rad);
+            evaluate(s, net, allow, &l, &x.eq)
+        })
+    }
+}
+
+/// A swing case: the arc swept, every item at its own peak, the rig's shape
+/// at the governing angle, and the release-angle limits from the same sweep.
+#[expect(
+    clippy::too_many_arguments,
+    reason = "the scenario, its network, allowables and solver travel together through one call"
+)]
+fn run_swing(
+    s: &Scenario,
+    net: &Network,
+    allow: &Allowables,
+    solver: &mut StaticSolver,
+    loads: &NetworkLoads,
+    c: &Case,
+    base: &Solved,
+    limits_cache: &mut Vec<(usize, f64, f64, Option<ReleaseLimits>)>,
+) -> (CaseResult, Vec<Warning>) {
+    let Case::Swing { mass, release, azimuth, .. } = c else {
+        return (failed_case(c, format!("case {}: not a swing", c.id())), Vec::new());
+    };
+    let setup = SwingSetup { mass: *mass, release_rad: release.value, azimuth_rad: azimuth.value };
+    let arc = match sweep(solver, s, allow, loads, setup, &base.eq) {
+        Ok(a) => a,
+        Err(e) => return (failed_case(c, format!("case {}: {e}", c.id())), Vec::new()),
+    };
+    let limits = match limits_cache.iter().find(|x| x.0 == *mass && x.1 == azimuth.value && x.2 == release.value) {
+        Some(x) => x.3.clone(),
+        None => {
+            let l = release_limits(solver, s, allow, loads, setup, &base.eq, &arc).ok();
+            limits_cache.push((*mass, azimuth.value, release.value, l.clone()));
+            l
+        }
+    };
+    let w = s.masses[*mass].mass.value * s.gravity_m_s2();
+    let factor = swing_factor(release.value);
+    let deg = |r: f64| r.to_degrees();
+    let dynamic = DynamicLoad {
+        mass: s.masses[*mass].id.clone(),
+        factor,
+        load_n: factor * w,
+        formula: format!(
+            "T = m g (3 cos theta - 2 cos theta0) along the line (rigid line), theta0 = {} deg, swept from -{} to +{} deg in the plane at azimuth {} deg over {} angles; {} x weight at the lowest point",
+            format_number(deg(release.value), 4),
+            format_number(deg(release.value), 4),
+            format_number(deg(release.value), 4),
+            format_number(deg(azimuth.value), 4),
+            arc.samples.len(),
+            format_number(factor, 4)
+        ),
+        path_stiffness_n_per_m: None,
+    };
+    let gov = arc.governing();
+    let mut ev =
+        ArcEvaluations { s, net, allow, loads, setup, arc: &arc, done: (0..arc.samples.len()).map(|_| None).collect() };
+    let g = ev.at(gov);
+    let mut r = CaseResult {
+        id: c.id().to_string(),
+        kind: c.kind_name().to_string(),
+        converged: true,
+        iterations: arc.samples.iter().map(|x| x.eq.iterations).sum(),
+        residual_n: arc.samples.iter().map(|x| x.eq.residual_n).fold(0.0, f64::max),
+        error: None,
+        dynamic: Some(dynamic),
+        arc: Some(ArcSummary {
+            release_deg: deg(release.value),
+            azimuth_deg: deg(azimuth.value),
+            angles_deg: arc.samples.iter().map(|x| deg(x.theta_rad)).collect(),
+            governing_deg: deg(arc.samples[gov].theta_rad),
+        }),
+        members: g.members.clone(),
+        floors: g.floors.clone(),
+        nodes: g.nodes.clone(),
+        supports: g.supports.clone(),
+        load_path: Vec::new(),
+        limits: Limits::default(),
+        warnings: Vec::new(),
+        warning_items: Vec::new(),
+    };
+    let n_members = s.members.len();
+    for k in 0..n_members {
+        let j = arc.peak_of(s, k);
+        let mut m = ev.at(j).members[k].clone();
+        m.peak_at_deg = Some(deg(arc.samples[j].theta_rad));
+        r.members[k] = m;
+    }
+    for k in 0..s.floors.len() {
+        let j = arc.peak_of(s, n_members + k);
+        let mut f = ev.at(j).floors[k].clone();
+        f.peak_at_deg = Some(deg(arc.samples[j].theta_rad));
+        r.floors[k] = f;
+    }
+    for (i, sup) in r.supports.iter_mut().enumerate() {
+        let node = s.nodes.iter().position(|n| n.id == sup.node);
+        let Some(node) = node else { continue };
+        let size = |x: &super::swing_arc::ArcSample| {
+            let v = x.eq.reaction_n[node];
+            (v[0] * v[0] + v[1] * v[1] + v[2] * v[2]).sqrt()
+        };
+        let mut j = 0;
+        for (q, x) in arc.samples.iter().enumerate() {
+            if size(x) > size(&arc.samples[j]) {
+                j = q;
+            }
+        }
+        let mut best = ev.at(j).supports[i].clone();
+        best.peak_at_deg = Some(deg(arc.samples[j].theta_rad));
+        *sup = best;
+    }
+    let low = arc.lowest();
+    r.load_path = ev.at(low).load_path.clone();
+    if let Some(l) = &limits {
+        r.limits.release_deg = l.critical_deg;
+    }
+    (r, slack_over_arc(s, c, &arc))
+}
+
+/// Tension members meant to carry that go slack over part of the swing
+/// (a leg that unloads and snatches again).
+fn slack_over_arc(s: &Scenario, c: &Case, arc: &Arc) -> Vec<Warning> {
+    let mut out = Vec::new();
+    for (k, m) in s.members.iter().enumerate() {
+        if m.may_go_slack || m.kind.carries() != crate::library::Carries::TensionOnly {
+            continue;
+        }
+        let slack: Vec<f64> =
+            arc.samples.iter().filter(|x| x.eq.member_force_n[k] <= 0.0).map(|x| x.theta_rad.to_degrees()).collect();
+        let carries = arc.samples.iter().any(|x| x.eq.member_force_n[k] > 0.0);
+        if carries && !slack.is_empty() {
+            let lo = slack.iter().copied().fold(f64::INFINITY, f64::min);
+            let hi = slack.iter().copied().fold(f64::NEG_INFINITY, f64::max);
+            out.push(Warning {
+                subject: Some(m.id.clone()),
+                message: format!(
+                    "member {}: goes slack over part of the swing in case {} (at {} of {} angles solved, between {} and {} deg), where it was meant to carry; it snatches when it takes up again (set may_go_slack if that is intended)",
+                    m.id,
+                    c.id(),
+                    slack.len(),
+                    arc.samples.len(),
+                    format_number(lo, 3),
+                    format_number(hi, 3)
+                ),
+            });
+        }
+    }
+    out
 }

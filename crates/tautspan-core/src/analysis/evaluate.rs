@@ -114,6 +114,7 @@ pub fn evaluate(s: &Scenario, net: &Network, a: &Allowables, loads: &[[f64; 3]],
                 sag_m,
                 wave_transit_s: m.wave_speed_m_s.map(|c| length / c),
                 reason: None,
+                peak_at_deg: None,
             }
         })
         .collect();
@@ -136,6 +137,7 @@ pub fn evaluate(s: &Scenario, net: &Network, a: &Allowables, loads: &[[f64; 3]],
                     state_of(utilisation, s.near_limit)
                 },
                 reason: None,
+                peak_at_deg: None,
             }
         })
         .collect();
@@ -150,7 +152,7 @@ pub fn evaluate(s: &Scenario, net: &Network, a: &Allowables, loads: &[[f64; 3]],
         .iter()
         .enumerate()
         .filter(|(_, n)| n.support != Support::Joint)
-        .map(|(i, n)| SupportResult { node: n.id.clone(), reaction_n: eq.reaction_n[i] })
+        .map(|(i, n)| SupportResult { node: n.id.clone(), reaction_n: eq.reaction_n[i], peak_at_deg: None })
         .collect();
     // walks only from the masses' nodes (those with a load): the paths shown
     let mut starts: Vec<usize> = s

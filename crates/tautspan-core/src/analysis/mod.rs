@@ -10,6 +10,7 @@ mod limits;
 pub mod results;
 mod scope;
 mod simulate_case;
+mod swing_arc;
 mod warnings;
 
 pub use allowable::{Allowable, floor_allowable, member_allowable, member_allowable_n};
@@ -19,3 +20,4 @@ pub use evaluate::Allowables;
 pub use results::*;
 pub use scope::{Scope, scope};
 pub use simulate_case::{CaseSimulation, SimulateRequest, simulate_case};
+pub use swing_arc::{GRID_STEP_DEG, PEAK_TOLERANCE, arc_loads};

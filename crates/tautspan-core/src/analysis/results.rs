@@ -64,6 +64,9 @@ pub struct MemberResult {
     /// Why the member is `unchecked`, when it is.
     #[serde(skip_serializing_if = "Option::is_none")]
     pub reason: Option<String>,
+    /// Swing cases: the angle of the arc where this member peaks, degrees.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub peak_at_deg: Option<f64>,
 }
 
 /// One floor in one case.
@@ -86,6 +89,9 @@ pub struct FloorResult {
     /// Why the floor is `unchecked`, when it is.
     #[serde(skip_serializing_if = "Option::is_none")]
     pub reason: Option<String>,
+    /// Swing cases: the angle of the arc where this floor peaks, degrees.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub peak_at_deg: Option<f64>,
 }
 
 /// A node's solved position.
@@ -104,6 +110,9 @@ pub struct SupportResult {
     pub node: String,
     /// Reaction, N.
     pub reaction_n: [f64; 3],
+    /// Swing cases: the angle of the arc where the reaction is largest, degrees.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub peak_at_deg: Option<f64>,
 }
 
 /// The members and supports that carry one mass.
@@ -154,6 +163,20 @@ pub struct DynamicLoad {
     pub path_stiffness_n_per_m: Option<f64>,
 }
 
+/// How a swing's arc was swept.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct ArcSummary {
+    /// Release angle, degrees.
+    pub release_deg: f64,
+    /// Azimuth of the swing plane, degrees.
+    pub azimuth_deg: f64,
+    /// The angles solved, degrees, increasing.
+    pub angles_deg: Vec<f64>,
+    /// The angle of the case's highest utilisation, degrees; the nodes shown
+    /// are the rig's shape there.
+    pub governing_deg: f64,
+}
+
 /// One case's answer.
 #[derive(Debug, Clone, PartialEq, Serialize)]
 pub struct CaseResult {
@@ -173,6 +196,9 @@ pub struct CaseResult {
     /// The dynamic load, for dynamic cases.
     #[serde(skip_serializing_if = "Option::is_none")]
     pub dynamic: Option<DynamicLoad>,
+    /// Swing cases: how the arc was swept.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub arc: Option<ArcSummary>,
     /// Members.
     pub members: Vec<MemberResult>,
     /// Floors.

@@ -4,7 +4,7 @@
 //!
 //! Start states: a swing starts at rest with the swinging part of the rig
 //! (the free nodes reached from the mass without passing the pivot or a
-//! support) turned about the pivot by the release angle in the x–y plane,
+//! support) turned about the pivot by the release angle in the swing's plane,
 //! from the static equilibrium; a drop starts from the equilibrium without
 //! the mass's weight, the mass moving down at `√(2 g h)` (the speed of a
 //! free fall of h onto the unloaded path); a sudden load starts there at
@@ -47,10 +47,19 @@ impl Default for SimulateRequest {
     }
 }
 
-fn rotate_about(p: [f64; 3], c: [f64; 3], angle: f64) -> [f64; 3] {
-    let (dx, dy) = (p[0] - c[0], p[1] - c[1]);
+/// Turn `p` about `c` by `angle` in the vertical plane whose horizontal
+/// direction is `(cos ψ, 0, sin ψ)`, ψ = `azimuth`: a positive angle moves a
+/// point below `c` towards −that direction (the release side θ = −θ0).
+fn rotate_about(p: [f64; 3], c: [f64; 3], angle: f64, azimuth: f64) -> [f64; 3] {
+    let snap = |v: f64| if v.abs() < 1e-14 { 0.0 } else { v };
+    let (hx, hz) = (snap(azimuth.cos()), snap(azimuth.sin()));
+    let d = [p[0] - c[0], p[1] - c[1], p[2] - c[2]];
+    // components along the plane's horizontal, up, and across the plane
+    let (h, y) = (d[0] * hx + d[2] * hz, d[1]);
+    let across = [d[0] - h * hx, 0.0, d[2] - h * hz];
     let (sn, cs) = angle.sin_cos();
-    [c[0] + cs * dx - sn * dy, c[1] + sn * dx + cs * dy, p[2]]
+    let (h2, y2) = (cs * h - sn * y, sn * h + cs * y);
+    [c[0] + across[0] + h2 * hx, c[1] + y2, c[2] + across[2] + h2 * hz]
 }
 
 /// The free nodes that swing with the mass: reached from the mass's node
@@ -157,7 +166,7 @@ pub fn simulate_case(
     let mass_node = case.mass().map(|m| s.masses[m].node);
     let start = match case {
         Case::Static { .. } => SimulationStart { positions_m: Some(eq.positions_m.clone()), velocities_m_per_s: None },
-        Case::Swing { mass, release, pivot, .. } => {
+        Case::Swing { mass, release, pivot, azimuth, .. } => {
             let node = s.masses[*mass].node;
             let pivot = pivot
                 .or_else(|| default_pivot(s, node))
@@ -165,7 +174,7 @@ pub fn simulate_case(
             let centre = eq.positions_m[pivot];
             let mut pos = eq.positions_m.clone();
             for n in swinging_nodes(s, node, pivot) {
-                pos[n] = rotate_about(eq.positions_m[n], centre, -release.value);
+                pos[n] = rotate_about(eq.positions_m[n], centre, -release.value, azimuth.value);
             }
             // At release the line carries only m g cos θ0: shorten the
             // mass's radius by that much of its static stretch, hold the
@@ -209,9 +218,11 @@ pub fn simulate_case(
     };
     let run = simulate(&net, &start, &sim_opts, progress).map_err(|e| e.to_string())?;
     let period_s = match (case, mass_node) {
-        (Case::Swing { .. }, Some(n)) => {
-            let x: Vec<f64> = run.positions_m.iter().map(|p| p[n][0]).collect();
-            measured_period(&run.time_s, &x, eq.positions_m[n][0])
+        (Case::Swing { azimuth, .. }, Some(n)) => {
+            let (hx, hz) = (azimuth.value.cos(), azimuth.value.sin());
+            let along = |p: &[f64; 3]| p[0] * hx + p[2] * hz;
+            let x: Vec<f64> = run.positions_m.iter().map(|p| along(&p[n])).collect();
+            measured_period(&run.time_s, &x, along(&eq.positions_m[n]))
         }
         _ => None,
     };

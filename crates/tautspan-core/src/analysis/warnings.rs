@@ -215,17 +215,5 @@ pub fn case_warnings(s: &Scenario, case: &Case, r: &CaseResult, static_r: Option
             State::Ok => {}
         }
     }
-    if let Case::Swing { release, mass, .. } = case
-        && release.value > std::f64::consts::FRAC_PI_2 + 1e-9
-    {
-        push(
-            &s.masses[*mass].id,
-            msg(format_args!(
-                "case {}: release {} deg is beyond 90 deg: a rope goes slack on release, the mass falls and then snatches the line; check it as a drop case",
-                r.id,
-                Sig(release.value.to_degrees(), 3)
-            )),
-        );
-    }
     w
 }

@@ -290,6 +290,10 @@ pub enum CaseDto {
         /// Node it swings about; omitted = the anchor of its path.
         #[serde(default, skip_serializing_if = "Option::is_none")]
         pivot: Option<String>,
+        /// Direction of the swing's plane in plan, about y from +x (90 deg
+        /// swings towards +z); omitted = 0, the elevation x–y.
+        #[serde(default, skip_serializing_if = "Option::is_none")]
+        azimuth: Option<Qty>,
     },
     /// Free fall of a height before the path takes the load.
     Drop {

@@ -264,28 +264,52 @@ pub fn build(dto: &ScenarioDto) -> Result<Scenario, Vec<Problem>> {
     for (i, c) in dto.cases.iter().enumerate() {
         let case = match c {
             CaseDto::Static { id } => Some(Case::Static { id: id.clone() }),
-            CaseDto::Swing { id, mass, release, pivot } => {
+            CaseDto::Swing { id, mass, release, pivot, azimuth } => {
                 let m = mass_ref(&mut ctx, mass, format!("cases[{i}].mass"));
                 let r = ctx.qty(release, &format!("cases[{i}].release"), Dimension::Angle, Sign::NonNegative);
+                let pv = match pivot {
+                    Some(p) => node_ref(&mut ctx, p, format!("cases[{i}].pivot"), "swing pivot").map(Some),
+                    None => Some(None),
+                };
+                let az = match azimuth {
+                    Some(a) => ctx.qty(a, &format!("cases[{i}].azimuth"), Dimension::Angle, Sign::Any),
+                    None => Some(0.0),
+                };
                 let r = r.and_then(|r| {
-                    if r > std::f64::consts::PI + 1e-12 {
+                    if r > std::f64::consts::FRAC_PI_2 + 1e-12 {
+                        let fall = match (m, pv) {
+                            (Some(m), Some(Some(p))) if m < masses.len() => {
+                                let (a, b) = (&nodes[p].position, &nodes[masses[m].node].position);
+                                let l = (0..3).map(|k| (a[k].value - b[k].value).powi(2)).sum::<f64>().sqrt();
+                                format!(
+                                    " (here 2 x {} m x |cos {} deg| = {} m)",
+                                    crate::units::format_number(l, 4),
+                                    crate::units::format_number(r.to_degrees(), 4),
+                                    crate::units::format_number(2.0 * l * r.cos().abs(), 4)
+                                )
+                            }
+                            _ => String::new(),
+                        };
                         ctx.err(
                             format!("cases[{i}].release"),
-                            "a release angle is between 0 and 180 deg from the vertical",
+                            format!(
+                                "a release of {} deg is above the pivot's horizontal: the line goes slack at release and the mass falls 2 L |cos theta0|{fall} before it snatches the line, so it is not a swing; check it as a Drop case of that height (the swing that follows is at most a 90 deg swing), or give a release of 90 deg or less",
+                                crate::units::format_number(r.to_degrees(), 4)
+                            ),
                         );
                         None
                     } else {
                         Some(r)
                     }
                 });
-                let pv = match pivot {
-                    Some(p) => node_ref(&mut ctx, p, format!("cases[{i}].pivot"), "swing pivot").map(Some),
-                    None => Some(None),
-                };
-                match (m, r, pv) {
-                    (Some(mass), Some(r), Some(pivot)) => {
-                        Some(Case::Swing { id: id.clone(), mass, release: Angle::new::<radian>(r), pivot })
-                    }
+                match (m, r, pv, az) {
+                    (Some(mass), Some(r), Some(pivot), Some(az)) => Some(Case::Swing {
+                        id: id.clone(),
+                        mass,
+                        release: Angle::new::<radian>(r),
+                        pivot,
+                        azimuth: Angle::new::<radian>(az),
+                    }),
                     _ => None,
                 }
             }

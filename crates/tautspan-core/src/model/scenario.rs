@@ -140,7 +140,8 @@ pub enum Case {
         /// Id.
         id: String,
     },
-    /// Released from rest at an angle; checked at the lowest point.
+    /// Released from rest at an angle (at most 90 deg from the vertical);
+    /// checked over the whole arc from −release to +release.
     Swing {
         /// Id.
         id: String,
@@ -150,6 +151,10 @@ pub enum Case {
         release: Angle,
         /// Pivot node index, if given.
         pivot: Option<usize>,
+        /// Direction of the swing's plane in plan, about y from +x: at a
+        /// positive swing angle θ the line points along
+        /// `(sin θ cos ψ, −cos θ, sin θ sin ψ)` from the pivot.
+        azimuth: Angle,
     },
     /// Free fall `height` before the path takes the load.
     Drop {

@@ -26,6 +26,13 @@ fn case_json(c: &CaseResult) -> Value {
         }
         o.insert("dynamic".into(), dj);
     }
+    if let Some(a) = &c.arc {
+        o.insert(
+            "arc".into(),
+            json!({ "release_deg": num(a.release_deg), "azimuth_deg": num(a.azimuth_deg),
+                    "governing_deg": num(a.governing_deg), "angles_deg": a.angles_deg.iter().map(|x| num(*x)).collect::<Vec<_>>() }),
+        );
+    }
     o.insert(
         "members".into(),
         c.members
@@ -34,7 +41,8 @@ fn case_json(c: &CaseResult) -> Value {
                 json!({ "id": m.id, "force_n": num(m.force_n), "allowable_n": num(m.allowable_n),
                         "utilisation": num(m.utilisation), "state": m.state.as_str(), "stretch_m": num(m.stretch_m),
                         "length_m": num(m.length_m), "sling_angle_deg": num(m.sling_angle_deg),
-                        "sag_m": num(m.sag_m), "wave_transit_s": m.wave_transit_s.map(num), "reason": m.reason })
+                        "sag_m": num(m.sag_m), "wave_transit_s": m.wave_transit_s.map(num), "reason": m.reason,
+                        "peak_at_deg": m.peak_at_deg.map(num) })
             })
             .collect(),
     );
@@ -44,7 +52,8 @@ fn case_json(c: &CaseResult) -> Value {
             .iter()
             .map(|f| {
                 json!({ "id": f.id, "normal_force_n": num(f.normal_force_n), "deflection_m": num(f.deflection_m),
-                        "allowable_n": num(f.allowable_n), "utilisation": num(f.utilisation), "state": f.state.as_str(), "reason": f.reason })
+                        "allowable_n": num(f.allowable_n), "utilisation": num(f.utilisation), "state": f.state.as_str(), "reason": f.reason,
+                        "peak_at_deg": f.peak_at_deg.map(num) })
             })
             .collect(),
     );
@@ -54,7 +63,10 @@ fn case_json(c: &CaseResult) -> Value {
     );
     o.insert(
         "supports".into(),
-        c.supports.iter().map(|s| json!({ "node": s.node, "reaction_n": s.reaction_n.map(num) })).collect(),
+        c.supports
+            .iter()
+            .map(|s| json!({ "node": s.node, "reaction_n": s.reaction_n.map(num), "peak_at_deg": s.peak_at_deg.map(num) }))
+            .collect(),
     );
     o.insert(
         "load_path".into(),

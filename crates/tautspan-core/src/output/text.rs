@@ -69,6 +69,18 @@ fn case_text(c: &CaseResult, out: &mut String) {
     }
     let _ = writeln!(out, "  converged in {} iterations, out-of-balance {:.2e} N", c.iterations, c.residual_n);
     let waves = matches!(c.kind.as_str(), "drop" | "sudden");
+    let swing = c.arc.is_some();
+    if let Some(a) = &c.arc {
+        let _ = writeln!(
+            out,
+            "  swept over the arc: {} angles from -{} to +{} deg (azimuth {} deg); each member at its own peak (\"peak at deg\"); shape shown at {} deg",
+            a.angles_deg.len(),
+            format_number(a.release_deg, 4),
+            format_number(a.release_deg, 4),
+            format_number(a.azimuth_deg, 4),
+            format_number(a.governing_deg, 4)
+        );
+    }
     let rows: Vec<Vec<String>> = c
         .members
         .iter()
@@ -86,6 +98,9 @@ fn case_text(c: &CaseResult, out: &mut String) {
             if waves {
                 row.push(m.wave_transit_s.map_or("-".into(), |t| format_number(t * 1e3, 3)));
             }
+            if swing {
+                row.push(m.peak_at_deg.map_or("-".into(), |t| format_number(t, 3)));
+            }
             row
         })
         .collect();
@@ -93,6 +108,10 @@ fn case_text(c: &CaseResult, out: &mut String) {
     let mut right = vec![false, true, true, true, false, true, true, true];
     if waves {
         header.push("wave transit ms");
+        right.push(true);
+    }
+    if swing {
+        header.push("peak at deg");
         right.push(true);
     }
     out.push_str(&indent(&table(&header, &rows, &right)));
