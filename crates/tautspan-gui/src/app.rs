@@ -311,6 +311,7 @@ impl TautspanApp {
             toolbar::ui(ui, input, &mut out);
             self.message_ui(ui);
         });
+        egui::Panel::top("verdict").show(ui, |ui| crate::verdict_bar::ui(ui, &self.derived, &mut out));
         egui::Panel::bottom("status").show(ui, |ui| self.status_ui(ui));
         egui::Panel::bottom("lower").resizable(true).default_size(250.0).show(ui, |ui| {
             ui.horizontal(|ui| {

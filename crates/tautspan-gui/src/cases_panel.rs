@@ -158,6 +158,30 @@ fn case_fields(
                     out.push(Command::SealUndo);
                 }
                 ui.end_row();
+                let azimuth = match c {
+                    CaseDto::Swing { azimuth, .. } => azimuth.as_ref(),
+                    _ => None,
+                };
+                QtyField {
+                    label: "Swing azimuth",
+                    path: format!("cases[{i}].azimuth"),
+                    current: azimuth,
+                    dimension: Dimension::Angle,
+                    sign: Sign::Any,
+                    optional: true,
+                    hint: "0 deg = elevation",
+                }
+                .show(
+                    ui,
+                    bufs,
+                    derived,
+                    out,
+                    Box::new(move |d, q| {
+                        if let Some(CaseDto::Swing { azimuth, .. }) = d.cases.get_mut(i) {
+                            *azimuth = q;
+                        }
+                    }),
+                );
             }
             CaseDto::Drop { height, .. } => {
                 QtyField {

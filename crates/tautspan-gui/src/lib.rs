@@ -33,6 +33,7 @@ mod solve_worker;
 mod toolbar;
 mod undo;
 mod units_display;
+mod verdict_bar;
 mod view;
 mod warnings_panel;
 
