@@ -211,3 +211,17 @@ fn renders_without_any_results() {
 fn same_input_same_report() {
     assert_eq!(report(BRIDLE), report(BRIDLE));
 }
+
+// The verdict's words and the scope (what is and is not checked) are in the
+// report; a swing case says it was checked over the whole arc and gives
+// each member's peak angle.
+#[test]
+fn carries_the_scope_and_the_arc() {
+    let doc = report(BRIDLE);
+    assert!(doc.contains("<section id=\"scope\">") && doc.contains("Not checked (a competent person must):"));
+    for line in tautspan_core::analysis::scope(&load(BRIDLE)).not_checked {
+        assert!(doc.contains(&escape(&line)), "{line}");
+    }
+    assert!(load(BRIDLE).cases.iter().any(|c| c.kind_name() == "swing"));
+    assert!(doc.contains("checked over the whole arc") && doc.contains("Peak at (arc angle)"));
+}

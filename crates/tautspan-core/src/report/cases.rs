@@ -48,11 +48,13 @@ fn describe(scenario: &Scenario, id: &str, units: UnitSystem) -> String {
     let node = |i: usize| scenario.nodes.get(i).map_or_else(String::new, |n| escape(&n.id));
     match scenario.cases.iter().find(|c| c.id() == id) {
         Some(Case::Static { .. }) => "Hanging still under gravity.".to_string(),
-        Some(Case::Swing { mass: m, release, pivot, .. }) => format!(
-            "Mass {} released from rest at {} from the vertical{}; checked at the lowest point of the swing.",
+        Some(Case::Swing { mass: m, release, pivot, azimuth, .. }) => format!(
+            "Mass {} released from rest at {} from the vertical{}; checked over the whole arc from -{r} to +{r} in the plane at azimuth {}, each member, floor and support at its own peak (the angle is in the table).",
             mass(*m),
             degrees(release.value.to_degrees()),
-            pivot.map_or_else(String::new, |p| format!(" about node {}", node(p)))
+            pivot.map_or_else(String::new, |p| format!(" about node {}", node(p))),
+            degrees(azimuth.value.to_degrees()),
+            r = degrees(release.value.to_degrees()),
         ),
         Some(Case::Drop { mass: m, height, .. }) => {
             format!("Mass {} falls freely {} before the path takes it.", mass(*m), units.length(height.value))
@@ -95,7 +97,7 @@ fn members(c: &CaseResult, units: UnitSystem) -> String {
         .members
         .iter()
         .map(|m| {
-            vec![
+            let mut row = vec![
                 format!("<b>{}</b>", escape(&m.id)),
                 units.force(m.force_n),
                 units.force(m.allowable_n),
@@ -104,10 +106,17 @@ fn members(c: &CaseResult, units: UnitSystem) -> String {
                 units.small_length(m.stretch_m),
                 units.length(m.length_m),
                 degrees(m.sling_angle_deg),
-            ]
+            ];
+            if c.arc.is_some() {
+                row.push(m.peak_at_deg.map_or_else(|| NONE.to_string(), degrees));
+            }
+            row
         })
         .collect();
-    let head = ["Member", "Force", "Allowable", "Utilisation", "State", "Stretch", "Length", "Sling angle"];
+    let mut head = vec!["Member", "Force", "Allowable", "Utilisation", "State", "Stretch", "Length", "Sling angle"];
+    if c.arc.is_some() {
+        head.push("Peak at (arc angle)");
+    }
     table("case-members", &head, &rows)
 }
 
