@@ -1,4 +1,4 @@
-//! Plots: the selected member's force at the lowest point of the swing
+//! Plots: the selected member's peak force over the swing's arc
 //! against release angle, with its allowable and the largest release angle
 //! inside it marked; and its time history from the core's simulation. Both
 //! run on worker threads (progress shown, the simulation can be cancelled),
@@ -99,7 +99,7 @@ impl Plots {
             return;
         };
         ui.label(
-            RichText::new(format!("{member}: force at the lowest point against release angle (case {})", case.id()))
+            RichText::new(format!("{member}: peak force over the arc against release angle (case {})", case.id()))
                 .strong(),
         );
         // keyed by the revision of the results, not the document: while they
@@ -158,7 +158,7 @@ impl Plots {
             .y_axis_label(format!("force ({unit})"))
             .height(ui.available_height().max(120.0))
             .show(ui, |p| {
-                p.line(Line::new("force at lowest point", pts).color(Color32::from_rgb(0x2a, 0x7a, 0xd8)).width(2.0));
+                p.line(Line::new("peak over the arc", pts).color(Color32::from_rgb(0x2a, 0x7a, 0xd8)).width(2.0));
                 if let Some(a) = allowable {
                     p.hline(
                         HLine::new("allowable", units.value(a, Shown::Force))
