@@ -215,6 +215,7 @@ fn simulate_json_summary() {
     assert_eq!(out.status.code(), Some(0), "{}", String::from_utf8_lossy(&out.stderr));
     let v: serde_json::Value = serde_json::from_slice(&out.stdout).expect("json");
     assert!(v["caution"].as_str().expect("caution").contains(CAUTION_WORDS));
+    assert!(v["scope"]["not_checked"].as_array().is_some_and(|a| !a.is_empty()), "simulate carries the scope");
     let members = v["members"].as_array().expect("members");
     assert_eq!(members.len(), 3);
     assert!(members.iter().all(|m| m["peak_force_n"].as_f64().is_some_and(|f| f > 0.0)));

@@ -79,10 +79,15 @@ pub fn run(
         }
     );
     let run = &sim.run;
+    let scope = tautspan_core::analysis::scope(&loaded.scenario);
     match format {
         SimulateFormat::Csv => {
             let mut out = String::new();
             out.push_str(&format!("# {CAUTION}\n"));
+            out.push_str("# a time history of one case, not a verdict: `tautspan check` checks the allowables\n");
+            for c in &scope.not_checked {
+                out.push_str(&format!("# not checked: {c}\n"));
+            }
             let mut header = vec!["time_s".to_string()];
             header.extend(sim.member_ids.iter().map(|m| csv_field(&format!("{m}_force_n"))));
             for n in &sim.node_ids {
@@ -138,6 +143,8 @@ pub fn run(
                 "file": file.display().to_string(),
                 "case": sim.case_id,
                 "caution": CAUTION,
+                "scope": { "checked": ["the time history of one case: member forces, positions and energy; not a verdict (run `tautspan check`)"],
+                           "not_checked": scope.not_checked },
                 "duration_s": run.time_s.last().copied().unwrap_or(0.0),
                 "time_step_s": run.time_step_s,
                 "steps": run.steps,
