@@ -224,7 +224,9 @@ fn simulate_json_summary() {
         run(&["simulate", gantry.to_str().expect("p"), "--case", "swing-25", "--duration", "0.2 s", "--format", "csv"]);
     let text = String::from_utf8_lossy(&out.stdout);
     assert!(text.lines().next().expect("caution").contains(CAUTION_WORDS));
-    assert!(text.lines().nth(1).expect("header").starts_with("time_s,hoist-west_force_n"));
+    assert!(text.lines().any(|l| l.starts_with("# not checked: ")), "the scope as comment lines");
+    let header = text.lines().find(|l| !l.starts_with('#')).expect("header");
+    assert!(header.starts_with("time_s,hoist-west_force_n"), "{header}");
     let out = run(&["simulate", gantry.to_str().expect("p"), "--case", "nope"]);
     assert_eq!(out.status.code(), Some(2));
 }
