@@ -501,6 +501,24 @@ fn comparison(
     let swing_items = swing_mass.and_then(|m| searches[m].as_ref()).map(|x| x.items.clone());
     let drop_items = drop_mass.and_then(|m| searches[m].as_ref()).map(|x| x.items.clone());
 
+    let item_limits = |k: usize| {
+        let mut limits = Limits::default();
+        if let (Some(m), Some(items)) = (swing_mass, &swing_items) {
+            let ml = MassLimits { factor: items.get(k).copied().flatten(), stiffness_n_per_m: None };
+            limits.release_deg = limits_from(&ml, 1.0).release_deg;
+            let _ = m;
+        }
+        if let (Some(m), Some(items)) = (drop_mass, &drop_items) {
+            let w = s.masses[m].mass.value * g;
+            let ml = MassLimits {
+                factor: items.get(k).copied().flatten(),
+                stiffness_n_per_m: mass_limits[m].and_then(|l| l.stiffness_n_per_m),
+            };
+            limits.drop_height_m = limits_from(&ml, w).drop_height_m;
+        }
+        limits
+    };
+
     let n_members = s.members.len();
     let mut rows = Vec::new();
     for k in 0..n_members + s.floors.len() {
@@ -529,20 +547,7 @@ fn comparison(
             .filter_map(|(i, u)| u.map(|u| (i, u)))
             .max_by(|a, b| a.1.total_cmp(&b.1))
             .map(|(i, _)| results[i].id.clone());
-        let mut limits = Limits::default();
-        if let (Some(m), Some(items)) = (swing_mass, &swing_items) {
-            let ml = MassLimits { factor: items.get(k).copied().flatten(), stiffness_n_per_m: None };
-            limits.release_deg = limits_from(&ml, 1.0).release_deg;
-            let _ = m;
-        }
-        if let (Some(m), Some(items)) = (drop_mass, &drop_items) {
-            let w = s.masses[m].mass.value * g;
-            let ml = MassLimits {
-                factor: items.get(k).copied().flatten(),
-                stiffness_n_per_m: mass_limits[m].and_then(|l| l.stiffness_n_per_m),
-            };
-            limits.drop_height_m = limits_from(&ml, w).drop_height_m;
-        }
+        let limits = item_limits(k);
         let allowable_n = if is_member { allow.member_n[k] } else { allow.floor_n[fi] };
         rows.push(ComparisonRow {
             id,
@@ -553,6 +558,36 @@ fn comparison(
             utilisation,
             governing_case,
             limits,
+        });
+    }
+    // rated parts after the floors, as in the limit search's items
+    for (j, id) in static_result.part_ids().into_iter().enumerate() {
+        let part = |r: &CaseResult| r.parts().nth(j).map(|p| (p.force_n, p.utilisation));
+        let force_n: Vec<Option<f64>> = results.iter().map(|r| part(r).map(|p| p.0)).collect();
+        let static_force = part(static_result).map(|p| p.0);
+        let ratio_to_static = force_n
+            .iter()
+            .map(|f| match (f, static_force) {
+                (Some(f), Some(s0)) if s0.abs() > 1e-9 => Some(f / s0),
+                _ => None,
+            })
+            .collect();
+        let utilisation: Vec<Option<f64>> = results.iter().map(|r| part(r).map(|p| p.1)).collect();
+        let governing_case = utilisation
+            .iter()
+            .enumerate()
+            .filter_map(|(i, u)| u.map(|u| (i, u)))
+            .max_by(|a, b| a.1.total_cmp(&b.1))
+            .map(|(i, _)| results[i].id.clone());
+        rows.push(ComparisonRow {
+            id,
+            static_force_n: static_force,
+            force_n,
+            ratio_to_static,
+            allowable_n: static_result.parts().nth(j).map_or(f64::NAN, |p| p.wll_n),
+            utilisation,
+            governing_case,
+            limits: item_limits(n_members + s.floors.len() + j),
         });
     }
     rows
