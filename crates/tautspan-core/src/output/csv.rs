@@ -1,4 +1,4 @@
-//! `check --format csv`: one row per case and item (member or floor), with
+//! `check --format csv`: one row per case and item (member, floor or rated part), with
 //! the case's limits; the caution on a leading `#` line.
 
 use crate::CAUTION;
@@ -28,6 +28,11 @@ pub fn caution_line() -> String {
 /// The verdict and scope of one file as `#` comment lines.
 pub fn scope_lines(file: &str, a: &Analysis) -> String {
     let mut out = format!("# {file}: verdict {}\n", a.verdict().words());
+    if a.cases.iter().any(|c| c.parts().next().is_some()) {
+        out.push_str(&format!(
+            "# {file}: rows of item_type part: item is owner/part (leg-1/shackle, A1/anchor), force_n the force the part carries, allowable_n its WLL used (an eye bolt's derated by its angle from the axis)\n"
+        ));
+    }
     for c in &a.scope.checked {
         out.push_str(&format!("# {file}: checked: {c}\n"));
     }
@@ -81,6 +86,32 @@ pub fn check_csv_rows(file: &str, a: &Analysis) -> String {
                     f.state.as_str().into(),
                     String::new(),
                     num(f.deflection_m),
+                    opt(row.and_then(|r| r.ratio_to_static.get(ci).copied().flatten())),
+                    field(row.and_then(|r| r.governing_case.as_deref()).unwrap_or("")),
+                    lim.0.clone(),
+                    lim.1.clone(),
+                ]
+                .join(","),
+            );
+            out.push('\n');
+        }
+        // rated parts after the floors, as in the comparison
+        let first = c.members.len() + c.floors.len();
+        for (k, (id, p)) in c.part_ids().into_iter().zip(c.parts()).enumerate() {
+            let row = a.comparison.get(first + k);
+            out.push_str(
+                &[
+                    field(file),
+                    field(&c.id),
+                    field(&c.kind),
+                    field(&id),
+                    "part".into(),
+                    num(p.force_n),
+                    num(p.wll_n),
+                    num(p.utilisation),
+                    p.state.as_str().into(),
+                    String::new(),
+                    String::new(),
                     opt(row.and_then(|r| r.ratio_to_static.get(ci).copied().flatten())),
                     field(row.and_then(|r| r.governing_case.as_deref()).unwrap_or("")),
                     lim.0.clone(),
