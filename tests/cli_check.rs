@@ -112,7 +112,8 @@ fn rated_parts_name_the_weakest_part() {
     assert!((util(weakest) - want).abs() / want < 0.01, "{} vs {want}", util(weakest));
     // the master link carries the resultant of the two legs: the hung
     // weight plus the legs' own weight (within 1 %)
-    let link = &v["cases"][0]["nodes"].as_array().expect("nodes").iter().find(|n| n["id"] == "link").expect("link")["fittings"][0];
+    let link = &v["cases"][0]["nodes"].as_array().expect("nodes").iter().find(|n| n["id"] == "link").expect("link")["fittings"]
+        [0];
     let w = 1300.0 * 9.806_65;
     assert!((link["force_n"].as_f64().expect("force") - w).abs() / w < 0.01, "{link}");
     // the beams' rated points and every part in the JSON contract

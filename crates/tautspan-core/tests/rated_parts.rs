@@ -233,7 +233,11 @@ fn sling_angle_warning_for_sling_legs_only() {
     // from horizontal meet at the loaded ring: sling legs below 30 deg (ASME B30.9)
     let flat = bridle("3 m", "100 kg", "", "", "").replace(r#"("0 m", "3 m")"#, r#"("0 m", "4 m")"#);
     let a = analysed(&flat);
-    assert!(warned(&a, "member west: sling angle 18.4 deg from horizontal is below 30 deg"), "{:?}", a.cases[0].warnings);
+    assert!(
+        warned(&a, "member west: sling angle 18.4 deg from horizontal is below 30 deg"),
+        "{:?}",
+        a.cases[0].warnings
+    );
 
     // a guy: the load hangs from T on a line from A above, and a guy from T
     // runs down to a ground anchor G at atan(3/10) = 16.7 deg; the guy's
@@ -256,10 +260,30 @@ fn bad_parts_are_located_errors() {
     let base = bridle("1 m", "100 kg", r#", fittings: [Shackle(wll: "1 t")]"#, "", "");
     for (from, to, field, needle) in [
         (r#"Shackle(wll: "1 t")"#, r#"Shackle(wll: "2 m")"#, "members[0].fittings[0].wll", "a rated load is a force"),
-        (r#"Shackle(wll: "1 t")"#, r#"EyeBolt(wll: "1 t", axis: (0, 0, 0))"#, "members[0].fittings[0].axis", "not zero"),
-        (r#"Shackle(wll: "1 t")"#, r#"Hoist(wll: "1 t", max_off_plumb: "95 deg")"#, "members[0].fittings[0].max_off_plumb", "below 90 deg"),
-        (r#"Node(id: "R", at: ("0 m", "3 m")"#, r#"Node(id: "R", at: ("0 m", "3 m"), rated: "5 kN""#, "nodes[2].rated", "not an anchor"),
-        (r#"Node(id: "R", at: ("0 m", "3 m")"#, r#"Node(id: "R", at: ("0 m", "3 m"), fittings: [Hoist(wll: "1 t")]"#, "nodes[2].fittings[0]", "part of a member"),
+        (
+            r#"Shackle(wll: "1 t")"#,
+            r#"EyeBolt(wll: "1 t", axis: (0, 0, 0))"#,
+            "members[0].fittings[0].axis",
+            "not zero",
+        ),
+        (
+            r#"Shackle(wll: "1 t")"#,
+            r#"Hoist(wll: "1 t", max_off_plumb: "95 deg")"#,
+            "members[0].fittings[0].max_off_plumb",
+            "below 90 deg",
+        ),
+        (
+            r#"Node(id: "R", at: ("0 m", "3 m")"#,
+            r#"Node(id: "R", at: ("0 m", "3 m"), rated: "5 kN""#,
+            "nodes[2].rated",
+            "not an anchor",
+        ),
+        (
+            r#"Node(id: "R", at: ("0 m", "3 m")"#,
+            r#"Node(id: "R", at: ("0 m", "3 m"), fittings: [Hoist(wll: "1 t")]"#,
+            "nodes[2].fittings[0]",
+            "part of a member",
+        ),
     ] {
         assert!(base.contains(from), "{from}");
         let text = base.replacen(from, to, 1);

@@ -56,7 +56,13 @@ impl Ctx {
         self.problems.push(Problem { path: path.to_string(), message: message.into() });
     }
 
-    pub(super) fn qty(&mut self, q: &Qty, path: impl std::fmt::Display + Copy, dim: Dimension, sign: Sign) -> Option<f64> {
+    pub(super) fn qty(
+        &mut self,
+        q: &Qty,
+        path: impl std::fmt::Display + Copy,
+        dim: Dimension,
+        sign: Sign,
+    ) -> Option<f64> {
         match parse_quantity(&q.0, dim, sign) {
             Ok(v) => Some(v),
             Err(e) => {

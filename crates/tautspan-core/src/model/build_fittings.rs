@@ -46,7 +46,10 @@ fn unit_axis(ctx: &mut Ctx, d: Direction, path: &str) -> Option<[f64; 3]> {
     let v = [d.0, d.1, d.2];
     let len = (v[0] * v[0] + v[1] * v[1] + v[2] * v[2]).sqrt();
     if !len.is_finite() || len < 1e-12 {
-        ctx.err(path, "an eye bolt's axis is a direction (x, y, z) that is not zero, e.g. (0, 1, 0) for a vertical bolt");
+        ctx.err(
+            path,
+            "an eye bolt's axis is a direction (x, y, z) that is not zero, e.g. (0, 1, 0) for a vertical bolt",
+        );
         return None;
     }
     Some(v.map(|c| c / len))
@@ -76,7 +79,10 @@ pub(super) fn build_fittings(
             ),
             FittingDto::Hoist { wll, max_off_plumb, name } => {
                 if host == Host::Node {
-                    ctx.err(&at, "a hoist is part of a member (the line it hangs in); move it to that member's `fittings`");
+                    ctx.err(
+                        &at,
+                        "a hoist is part of a member (the line it hangs in); move it to that member's `fittings`",
+                    );
                 }
                 let limit = match max_off_plumb {
                     Some(q) => {

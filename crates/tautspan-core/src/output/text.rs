@@ -89,8 +89,16 @@ fn case_text(c: &CaseResult, out: &mut String) {
             row
         })
         .collect();
-    let mut header =
-        vec!["member", "force kN", "allowable kN", "util %", "state", "stretch mm", "sag mm", "sling angle deg from horizontal"];
+    let mut header = vec![
+        "member",
+        "force kN",
+        "allowable kN",
+        "util %",
+        "state",
+        "stretch mm",
+        "sag mm",
+        "sling angle deg from horizontal",
+    ];
     let mut right = vec![false, true, true, true, false, true, true, true];
     if waves {
         header.push("wave transit ms");
