@@ -563,10 +563,12 @@ fn comparison(
         });
     }
     // rated parts after the floors, as in the limit search's items
+    let parts_of: Vec<Vec<(f64, f64)>> =
+        results.iter().map(|r| r.parts().map(|p| (p.force_n, p.utilisation)).collect()).collect();
+    let static_parts: Vec<&super::results::FittingResult> = static_result.parts().collect();
     for (j, id) in static_result.part_ids().into_iter().enumerate() {
-        let part = |r: &CaseResult| r.parts().nth(j).map(|p| (p.force_n, p.utilisation));
-        let force_n: Vec<Option<f64>> = results.iter().map(|r| part(r).map(|p| p.0)).collect();
-        let static_force = part(static_result).map(|p| p.0);
+        let static_force = static_parts.get(j).map(|p| p.force_n);
+        let force_n: Vec<Option<f64>> = parts_of.iter().map(|r| r.get(j).map(|p| p.0)).collect();
         let ratio_to_static = force_n
             .iter()
             .map(|f| match (f, static_force) {
@@ -574,7 +576,7 @@ fn comparison(
                 _ => None,
             })
             .collect();
-        let utilisation: Vec<Option<f64>> = results.iter().map(|r| part(r).map(|p| p.1)).collect();
+        let utilisation: Vec<Option<f64>> = parts_of.iter().map(|r| r.get(j).map(|p| p.1)).collect();
         let governing_case = utilisation
             .iter()
             .enumerate()
@@ -586,7 +588,7 @@ fn comparison(
             static_force_n: static_force,
             force_n,
             ratio_to_static,
-            allowable_n: static_result.parts().nth(j).map_or(f64::NAN, |p| p.wll_n),
+            allowable_n: static_parts.get(j).map_or(f64::NAN, |p| p.wll_n),
             utilisation,
             governing_case,
             limits: item_limits(n_members + s.floors.len() + j),
