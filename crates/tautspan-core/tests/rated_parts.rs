@@ -298,3 +298,29 @@ fn bad_parts_are_located_errors() {
     let err = load_scenario(&text).err().unwrap().to_string();
     assert!(err.contains("axis"), "{err}");
 }
+
+#[test]
+fn sling_angle_warning_for_legs_gathered_at_the_hook() {
+    // a two-leg sling from a crane hook (anchor H) to the two lifting points
+    // of a load, the load's body a stiff rod between them; the legs meet at
+    // the hook with the load below it: legs at atan(1/3) = 18.4 deg from
+    // horizontal (ASME B30.9: below 30 deg needs a qualified person); stiff
+    // legs, so the stretch moves the angle by under 0.01 deg
+    let text = r#"Scenario(format: 1, title: "two-leg sling",
+        nodes: [ Node(id: "H", at: ("0 m", "5 m"), support: Anchor),
+                 Node(id: "P1", at: ("-3 m", "4 m")), Node(id: "P2", at: ("3 m", "4 m")) ],
+        members: [ Member(id: "leg-1", ends: ("H", "P1"), kind: WireRope, area: "1000 mm^2", modulus: "1000 GPa", rating: BreakingStrength("100 kN")),
+                   Member(id: "leg-2", ends: ("H", "P2"), kind: WireRope, area: "1000 mm^2", modulus: "1000 GPa", rating: BreakingStrength("100 kN")),
+                   Member(id: "body", ends: ("P1", "P2"), kind: Rod, area: "5000 mm^2", modulus: "200 GPa", rating: Yield("235 MPa")) ],
+        masses: [ Mass(id: "m1", at: "P1", mass: "100 kg"), Mass(id: "m2", at: "P2", mass: "100 kg") ],
+        cases: [ Static(id: "s") ])"#;
+    let a = analysed(text);
+    assert!(
+        warned(&a, "member leg-1: sling angle 18.4 deg from horizontal is below 30 deg"),
+        "{:?}",
+        a.cases[0].warnings
+    );
+    assert!(warned(&a, "member leg-2: sling angle 18.4 deg"));
+    // the load's body is a level strut, not a leg
+    assert!(!warned(&a, "member body: sling angle") && !warned(&a, "member body: runs level"));
+}
