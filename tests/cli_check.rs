@@ -130,6 +130,11 @@ fn rated_parts_name_the_weakest_part() {
     let out = run(&["check", "--format", "csv", f.to_str().expect("path")]);
     let csv = String::from_utf8_lossy(&out.stdout);
     assert!(csv.lines().any(|l| l.contains(",beam-south/beam clamp,part,")), "{csv}");
+    // the legs' sling angle, from the horizontal, in the last column: atan(1.5 / 1) = 56.3 deg
+    assert!(csv.lines().any(|l| l.starts_with("file,") && l.ends_with(",sling_angle_from_horizontal_deg")), "{csv}");
+    let leg = csv.lines().find(|l| l.contains(",leg-north,member,")).expect("leg row");
+    let angle: f64 = leg.rsplit(',').next().expect("angle").parse().expect("a number");
+    assert!((angle - 1.5_f64.atan2(1.0).to_degrees()).abs() < 0.05, "{angle}");
 }
 
 #[test]
