@@ -127,19 +127,18 @@ pub fn member_fittings(s: &Scenario, i: usize, eq: &Equilibrium) -> Vec<FittingR
                 }
                 _ => {}
             }
-            if force < 0.0 {
-                if m.kind.carries() == Carries::TensionOnly {
-                    r.state = State::Slack;
-                    r.utilisation = 0.0;
-                } else if r.state != State::Over {
-                    r.state = State::Unchecked;
-                    r.reason = Some(format!(
-                        "member {} is in compression ({}): a {} is rated in tension; its use in compression cannot be checked",
-                        m.id,
-                        kn(-force),
-                        f.kind.word().replace('_', " ")
-                    ));
-                }
+            if m.kind.carries() == Carries::TensionOnly && force <= 0.0 {
+                // the member is slack and the part carries nothing
+                r.state = State::Slack;
+                r.utilisation = 0.0;
+            } else if force < 0.0 && r.state != State::Over {
+                r.state = State::Unchecked;
+                r.reason = Some(format!(
+                    "member {} is in compression ({}): a {} is rated in tension; its use in compression cannot be checked",
+                    m.id,
+                    kn(-force),
+                    f.kind.word().replace('_', " ")
+                ));
             }
             r
         })
