@@ -105,6 +105,49 @@ fn exit_code_reports_over_allowable() {
 }
 
 #[test]
+fn rated_parts_name_the_weakest_part() {
+    // the roller lift: 1.3 t hung from two 1 t beam clamps. Statics of the
+    // symmetric bridle: leg pull W / (2 sin b), tan b = 1.5 / 1, so each
+    // clamp carries 1300 x 9.80665 / (2 x 0.83205) = 7661 N plus half its
+    // leg's own weight (about 0.15 % more; tolerance 1 %), 78 % of 1 t x g.
+    let f = Path::new(env!("CARGO_MANIFEST_DIR")).join("scenarios/roller-two-leg-pick.ron");
+    let out = run(&["check", "--format", "json", f.to_str().expect("path")]);
+    assert_eq!(out.status.code(), Some(0), "{}", String::from_utf8_lossy(&out.stdout));
+    let v: serde_json::Value = serde_json::from_slice(&out.stdout).expect("valid JSON");
+    let rows = v["comparison"].as_array().expect("comparison");
+    let util = |r: &serde_json::Value| r["utilisation"][0].as_f64().unwrap_or(0.0);
+    let weakest = rows.iter().max_by(|a, b| util(a).total_cmp(&util(b))).expect("rows");
+    assert!(weakest["id"].as_str().expect("id").ends_with("/beam clamp"), "{weakest}");
+    let want = 1300.0 * 9.806_65 / (2.0 * 1.5_f64.atan2(1.0).sin()) / (1000.0 * 9.806_65);
+    assert!((util(weakest) - want).abs() / want < 0.01, "{} vs {want}", util(weakest));
+    // the master link carries the resultant of the two legs: the hung
+    // weight plus the legs' own weight (within 1 %)
+    let link = &v["cases"][0]["nodes"].as_array().expect("nodes").iter().find(|n| n["id"] == "link").expect("link")["fittings"]
+        [0];
+    let w = 1300.0 * 9.806_65;
+    assert!((link["force_n"].as_f64().expect("force") - w).abs() / w < 0.01, "{link}");
+    // the beams' rated points and every part in the JSON contract
+    for s in v["cases"][0]["supports"].as_array().expect("supports") {
+        assert_eq!(s["rated_n"], 15_000.0);
+        assert_eq!(s["state"], "ok");
+    }
+    // the text names the parts and the angle convention
+    let out = run(&["check", f.to_str().expect("path")]);
+    let text = String::from_utf8_lossy(&out.stdout);
+    assert!(text.contains("beam-north/beam clamp") && text.contains("link/master link"), "{text}");
+    assert!(text.contains("sling angle deg from horizontal"));
+    // CSV has a row per part
+    let out = run(&["check", "--format", "csv", f.to_str().expect("path")]);
+    let csv = String::from_utf8_lossy(&out.stdout);
+    assert!(csv.lines().any(|l| l.contains(",beam-south/beam clamp,part,")), "{csv}");
+    // the legs' sling angle, from the horizontal, in the last column: atan(1.5 / 1) = 56.3 deg
+    assert!(csv.lines().any(|l| l.starts_with("file,") && l.ends_with(",sling_angle_from_horizontal_deg")), "{csv}");
+    let leg = csv.lines().find(|l| l.contains(",leg-north,member,")).expect("leg row");
+    let angle: f64 = leg.rsplit(',').next().expect("angle").parse().expect("a number");
+    assert!((angle - 1.5_f64.atan2(1.0).to_degrees()).abs() < 0.05, "{angle}");
+}
+
+#[test]
 fn csv_and_text_carry_the_caution() {
     let f = scenarios()[0].display().to_string();
     let out = run(&["check", "--format", "csv", &f]);

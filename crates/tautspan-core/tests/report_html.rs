@@ -225,3 +225,31 @@ fn carries_the_scope_and_the_arc() {
     assert!(load(BRIDLE).cases.iter().any(|c| c.kind_name() == "swing"));
     assert!(doc.contains("checked over the whole arc") && doc.contains("Peak at (arc angle)"));
 }
+
+#[test]
+fn lists_rated_parts_with_rating_and_source() {
+    let text = std::fs::read_to_string(concat!(env!("CARGO_MANIFEST_DIR"), "/../../scenarios/roller-two-leg-pick.ron"))
+        .expect("example");
+    let scenario = load(&text);
+    let analysis = analyse(&scenario);
+    let doc = html(&scenario, &analysis, "2025-03-14");
+    assert_well_formed(&doc);
+    assert!(doc.contains("<h3>Rated parts</h3>"));
+    // each part by its id, its WLL and the mass-to-force source (ISO 80000-3)
+    for id in [
+        "leg-north/shackle",
+        "hoist/hoist",
+        "hoist/eye bolt",
+        "beam-north/beam clamp",
+        "link/master link",
+        "beam-north/anchor",
+    ] {
+        assert!(doc.contains(&escape(id)), "{id}");
+    }
+    assert!(doc.contains("standard gravity 9.80665 m/s^2 (ISO 80000-3)"));
+    // the per-case table and the comparison rows; the angle convention in the header
+    assert!(doc.contains("case-parts") && doc.contains("rated part"));
+    assert!(doc.contains("Sling angle (from horizontal)"));
+    // 1 t = 9.80665 kN printed to 3 significant digits: 9.81 kN
+    assert!(doc.contains("9.81\u{a0}kN"));
+}

@@ -27,6 +27,7 @@ fn net(columns: usize, layers: usize) -> ScenarioDto {
                 id: id(c, l),
                 at: Position { x: q(c as f64 * 0.5, "m"), y: q(10.0 - l as f64 * 0.6, "m"), z: None },
                 support: if l == 0 { SupportDto::Anchor } else { SupportDto::Joint },
+                ..NodeDto::default()
             });
         }
     }

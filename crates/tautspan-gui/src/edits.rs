@@ -30,7 +30,7 @@ pub fn add_node(dto: &mut ScenarioDto, x_m: f64, y_m: f64, support: SupportDto, 
         SupportDto::Floor(_) => "P",
     };
     let id = fresh_id(prefix, dto.nodes.iter().map(|n| n.id.as_str()));
-    dto.nodes.push(NodeDto { id: id.clone(), at: position(x_m, y_m, units), support });
+    dto.nodes.push(NodeDto { id: id.clone(), at: position(x_m, y_m, units), support, ..NodeDto::default() });
     id
 }
 

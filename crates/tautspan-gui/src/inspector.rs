@@ -196,6 +196,7 @@ fn node(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, bufs: &mut FieldBuffe
             input.units.fmt(r.position_m[0], Shown::Length),
             input.units.fmt(r.position_m[1], Shown::Length)
         ));
+        crate::parts_view::fittings(ui, &r.fittings, input.units);
     }
     if let Some(r) = input.derived.case(input.case).and_then(|c| c.supports.iter().find(|r| r.node == n.id)) {
         ui.label(format!(
@@ -203,6 +204,13 @@ fn node(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, bufs: &mut FieldBuffe
             input.units.fmt(r.reaction_n[1], Shown::Force),
             input.units.fmt(r.reaction_n[0], Shown::Force)
         ));
+        match &r.rated {
+            Some(p) => crate::parts_view::part(ui, p, input.units),
+            None if n.support == SupportDto::Anchor => {
+                ui.label(RichText::new("No rated load entered for this anchor: only its reaction is shown.").weak());
+            }
+            None => {}
+        }
     }
 }
 

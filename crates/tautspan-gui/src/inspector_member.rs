@@ -325,13 +325,18 @@ fn result(ui: &mut Ui, input: &InspectorInput<'_>, member_id: &str) {
         r.state.as_str()
     ));
     resp.on_hover_text(crate::explain::member_result(solved, &case.id, member_id, u));
-    ui.label(format!("Stretch {}, sling angle {:.1}°", u.fmt(r.stretch_m, Shown::SmallLength), r.sling_angle_deg));
+    ui.label(format!(
+        "Stretch {}, sling angle {:.1}° from horizontal",
+        u.fmt(r.stretch_m, Shown::SmallLength),
+        r.sling_angle_deg
+    ));
     if let Some(at) = r.peak_at_deg {
         ui.label(format!("Peaks at {at:.1}° of the swing's arc (each member at its own peak)"));
     }
     if let Some(reason) = &r.reason {
         ui.label(RichText::new(format!("Unchecked: {reason}")).color(crate::qty_field::ERROR));
     }
+    crate::parts_view::fittings(ui, &r.fittings, u);
     if let Some(row) = solved.analysis.comparison.iter().find(|c| c.id == member_id) {
         if let Some(deg) = row.limits.release_deg {
             ui.label(format!("Largest release angle inside the allowable: {deg:.1}°"));

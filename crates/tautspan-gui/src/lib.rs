@@ -22,6 +22,7 @@ mod id_field;
 mod inspector;
 mod inspector_member;
 mod member_labels;
+mod parts_view;
 mod plots;
 mod prefs;
 mod qty_field;

@@ -1,5 +1,5 @@
-//! The results table: every member in every case — force, allowable,
-//! utilisation, state, sling angle and the limits (largest release angle,
+//! The results table: every member and rated part (fittings, anchor
+//! ratings) in every case — force, allowable or WLL, utilisation, state and the limits (largest release angle,
 //! largest drop height) — sortable by any column; a click on a member
 //! selects it, hovering a row explains the numbers.
 
@@ -8,7 +8,7 @@ use crate::derived::Derived;
 use crate::selection::Selection;
 use crate::units_display::{Shown, UnitSystem, fmt_utilisation};
 use egui::{RichText, Ui};
-use tautspan_core::analysis::State;
+use tautspan_core::analysis::{FittingResult, State};
 
 /// The column the table is sorted by.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Default)]
@@ -38,13 +38,31 @@ pub struct Sort {
 }
 
 const COLUMNS: [(&str, Column, f32); 6] = [
-    ("Member", Column::Member, 110.0),
+    ("Member or part", Column::Member, 150.0),
     ("Case", Column::Case, 90.0),
     ("Force", Column::Force, 100.0),
     ("Allowable", Column::Allowable, 100.0),
     ("Utilisation", Column::Utilisation, 90.0),
     ("State", Column::State, 70.0),
 ];
+
+/// One row: a member or a rated part in one case.
+struct Row<'a> {
+    /// Case index.
+    case: usize,
+    /// Members in file order, then parts in the analysis's order.
+    order: usize,
+    /// Shown id (`leg-1`, `leg-1/shackle`).
+    id: String,
+    /// The member or node the row belongs to.
+    owner: String,
+    force_n: f64,
+    allowable_n: f64,
+    utilisation: f64,
+    state: State,
+    /// The part, for a part's row.
+    part: Option<&'a FittingResult>,
+}
 
 fn state_rank(s: State) -> u8 {
     match s {
@@ -70,15 +88,42 @@ pub fn ui(
         return;
     };
     let a = &solved.analysis;
-    // (case index, member index)
-    let mut rows: Vec<(usize, usize)> =
-        a.cases.iter().enumerate().flat_map(|(c, cr)| (0..cr.members.len()).map(move |m| (c, m))).collect();
-    let key = |&(c, m): &(usize, usize)| &a.cases[c].members[m];
-    rows.sort_by(|x, y| {
-        let (rx, ry) = (key(x), key(y));
+    // every member, then every rated part (`leg-1/shackle`), in every case
+    let mut rows: Vec<Row<'_>> = a
+        .cases
+        .iter()
+        .enumerate()
+        .flat_map(|(c, cr)| {
+            let members = cr.members.iter().enumerate().map(move |(k, m)| Row {
+                case: c,
+                order: k,
+                id: m.id.clone(),
+                owner: m.id.clone(),
+                force_n: m.force_n,
+                allowable_n: m.allowable_n,
+                utilisation: m.utilisation,
+                state: m.state,
+                part: None,
+            });
+            let n = cr.members.len();
+            let parts = cr.part_ids().into_iter().zip(cr.parts()).enumerate().map(move |(k, (id, p))| Row {
+                case: c,
+                order: n + k,
+                owner: id.split('/').next().unwrap_or_default().to_string(),
+                id,
+                force_n: p.force_n,
+                allowable_n: p.wll_n,
+                utilisation: p.utilisation,
+                state: p.state,
+                part: Some(p),
+            });
+            members.chain(parts)
+        })
+        .collect();
+    rows.sort_by(|rx, ry| {
         let o = match sort.column {
-            Column::Member => x.1.cmp(&y.1).then(x.0.cmp(&y.0)),
-            Column::Case => x.0.cmp(&y.0).then(x.1.cmp(&y.1)),
+            Column::Member => rx.order.cmp(&ry.order).then(rx.case.cmp(&ry.case)),
+            Column::Case => rx.case.cmp(&ry.case).then(rx.order.cmp(&ry.order)),
             Column::Force => rx.force_n.total_cmp(&ry.force_n),
             Column::Allowable => rx.allowable_n.total_cmp(&ry.allowable_n),
             Column::Utilisation => rx.utilisation.total_cmp(&ry.utilisation),
@@ -108,19 +153,25 @@ pub fn ui(
     ui.separator();
     let row_h = 18.0;
     egui::ScrollArea::vertical().auto_shrink([false, false]).show_rows(ui, row_h, rows.len(), |ui, range| {
-        for &(c, m) in &rows[range] {
-            let case = &a.cases[c];
-            let r = &case.members[m];
+        for r in &rows[range] {
+            let case = &a.cases[r.case];
             let resp = ui.horizontal(|ui| {
-                let picked = *selection == Selection::Member(r.id.clone());
+                // a part selects what it belongs to: its member, else its node
+                let target = if case.members.iter().any(|m| m.id == r.owner) {
+                    Selection::Member(r.owner.clone())
+                } else {
+                    Selection::Node(r.owner.clone())
+                };
+                let picked = r.part.is_none() && *selection == target;
                 if ui.add_sized([COLUMNS[0].2, row_h], egui::Button::selectable(picked, r.id.as_str())).clicked() {
-                    out.push(Command::Select(Selection::Member(r.id.clone())));
+                    out.push(Command::Select(target));
                     out.push(Command::ShowCase(case.id.clone()));
                 }
                 ui.add_sized([COLUMNS[1].2, row_h], egui::Label::new(case.id.as_str()));
                 ui.add_sized([COLUMNS[2].2, row_h], egui::Label::new(units.fmt(r.force_n, Shown::Force)));
                 ui.add_sized([COLUMNS[3].2, row_h], egui::Label::new(units.fmt(r.allowable_n, Shown::Force)));
-                ui.add_sized([COLUMNS[4].2, row_h], egui::Label::new(fmt_utilisation(r.utilisation)));
+                let util = if r.utilisation.is_finite() { fmt_utilisation(r.utilisation) } else { "-".to_string() };
+                ui.add_sized([COLUMNS[4].2, row_h], egui::Label::new(util));
                 let st = RichText::new(r.state.as_str());
                 let st = if matches!(r.state, State::Over | State::Unchecked) {
                     st.strong().color(crate::qty_field::ERROR)
@@ -149,7 +200,12 @@ pub fn ui(
             });
             resp.response.on_hover_ui(|ui| {
                 ui.set_max_width(520.0);
-                ui.label(crate::explain::member_result(solved, &case.id, &r.id, units));
+                match r.part {
+                    Some(p) => crate::parts_view::part(ui, p, units),
+                    None => {
+                        ui.label(crate::explain::member_result(solved, &case.id, &r.id, units));
+                    }
+                }
             });
         }
     });

@@ -168,6 +168,8 @@ pub fn assumptions(s: &Scenario) -> Vec<String> {
         format!("Swing: at every angle theta of the arc the line pulls with T = m g (3 cos theta - 2 cos theta0) along its direction (rigid line, energy and centripetal balance; e.g. Meriam & Kraige, Dynamics, normal-tangential coordinates); the network is solved quasi-statically for theta from -theta0 to +theta0 in the swing's plane (azimuth about y from +x; 90 deg swings towards +z), on a grid of at most {} deg refined until each item's peak is found to 0.1 %; each item is reported at its own peak and the angle where it occurs. Releases above 90 deg are refused: the line goes slack and the mass falls, which is a drop.", format_number(super::swing_arc::GRID_STEP_DEG, 2)),
         "Drop: F = W (1 + sqrt(1 + 2 k h / W)) with k the static path stiffness at the mass (Timoshenko & Gere, impact); sudden load: factor 2. Member mass, damping and hysteresis ignored (fibre ropes peak lower).".to_string(),
         "Allowable = rated strength x efficiency / design factor, or a working load limit as given; rods on yield x area.".to_string(),
+        "Sling angle: measured from the horizontal (90 deg = plumb) in the solved geometry; the below-30-deg warning is given for sling legs only (taut members that take hung load up to a gathering point where legs meet: a ring, master link or hook), not for guys, level ties or net members.".to_string(),
+        "Rated parts: each fitting on a member carries the member's force; a fitting at a joint carries the resultant of the members above the joint (the load hung from it), at a support the reaction; an anchor's rating is checked on the reaction's magnitude. A WLL given as a mass (\"1 t\") is its weight at standard gravity 9.80665 m/s^2 (ISO 80000-3). Eye bolts: the angle between the bolt's axis and the pull, shoulder eye bolts derated by the published table (next larger angle's row between rows), plain eye bolts in line (5 deg) only.".to_string(),
         "Limits: the largest drop height comes from a root search on the full network to 1e-7 on the load factor; the largest release angle (at most 90 deg) from a root search on the release angle, each step a full sweep of the arc, to 1e-6 rad; each item's own limit is interpolated between the solved load factors or release angles, or extrapolated linearly beyond them (an estimate for items far from their allowable).".to_string(),
         format!("Near limit from utilisation {}; dynamic/static ratio warning above {}.", format_number(s.near_limit, 3), format_number(s.dynamic_ratio_warning, 3)),
     ]
@@ -515,6 +517,22 @@ fn comparison(
     });
     let drop_items = drop_mass.and_then(|m| searches[m].as_ref()).map(|x| x.items.clone());
 
+    let item_limits = |k: usize| {
+        let mut limits = Limits::default();
+        if let Some(items) = swing_items {
+            limits.release_deg = items.get(k).copied().flatten();
+        }
+        if let (Some(m), Some(items)) = (drop_mass, &drop_items) {
+            let w = s.masses[m].mass.value * g;
+            let ml = MassLimits {
+                factor: items.get(k).copied().flatten(),
+                stiffness_n_per_m: mass_limits[m].and_then(|l| l.stiffness_n_per_m),
+            };
+            limits.drop_height_m = limits_from(&ml, w).drop_height_m;
+        }
+        limits
+    };
+
     let n_members = s.members.len();
     let mut rows = Vec::new();
     for k in 0..n_members + s.floors.len() {
@@ -543,18 +561,7 @@ fn comparison(
             .filter_map(|(i, u)| u.map(|u| (i, u)))
             .max_by(|a, b| a.1.total_cmp(&b.1))
             .map(|(i, _)| results[i].id.clone());
-        let mut limits = Limits::default();
-        if let Some(items) = swing_items {
-            limits.release_deg = items.get(k).copied().flatten();
-        }
-        if let (Some(m), Some(items)) = (drop_mass, &drop_items) {
-            let w = s.masses[m].mass.value * g;
-            let ml = MassLimits {
-                factor: items.get(k).copied().flatten(),
-                stiffness_n_per_m: mass_limits[m].and_then(|l| l.stiffness_n_per_m),
-            };
-            limits.drop_height_m = limits_from(&ml, w).drop_height_m;
-        }
+        let limits = item_limits(k);
         let allowable_n = if is_member { allow.member_n[k] } else { allow.floor_n[fi] };
         rows.push(ComparisonRow {
             id,
@@ -565,6 +572,38 @@ fn comparison(
             utilisation,
             governing_case,
             limits,
+        });
+    }
+    // rated parts after the floors, as in the limit search's items
+    let parts_of: Vec<Vec<(f64, f64)>> =
+        results.iter().map(|r| r.parts().map(|p| (p.force_n, p.utilisation)).collect()).collect();
+    let static_parts: Vec<&super::results::FittingResult> = static_result.parts().collect();
+    for (j, id) in static_result.part_ids().into_iter().enumerate() {
+        let static_force = static_parts.get(j).map(|p| p.force_n);
+        let force_n: Vec<Option<f64>> = parts_of.iter().map(|r| r.get(j).map(|p| p.0)).collect();
+        let ratio_to_static = force_n
+            .iter()
+            .map(|f| match (f, static_force) {
+                (Some(f), Some(s0)) if s0.abs() > 1e-9 => Some(f / s0),
+                _ => None,
+            })
+            .collect();
+        let utilisation: Vec<Option<f64>> = parts_of.iter().map(|r| r.get(j).map(|p| p.1)).collect();
+        let governing_case = utilisation
+            .iter()
+            .enumerate()
+            .filter_map(|(i, u)| u.map(|u| (i, u)))
+            .max_by(|a, b| a.1.total_cmp(&b.1))
+            .map(|(i, _)| results[i].id.clone());
+        rows.push(ComparisonRow {
+            id,
+            static_force_n: static_force,
+            force_n,
+            ratio_to_static,
+            allowable_n: static_parts.get(j).map_or(f64::NAN, |p| p.wll_n),
+            utilisation,
+            governing_case,
+            limits: item_limits(n_members + s.floors.len() + j),
         });
     }
     rows
@@ -698,6 +737,28 @@ fn run_swing(
         let mut best = ev.at(j).supports[i].clone();
         best.peak_at_deg = Some(deg(arc.samples[j].theta_rad));
         *sup = best;
+    }
+    // rated parts, each at its own peak: the items after the floors, in the
+    // order of `CaseResult::parts` (member fittings, node fittings; anchor
+    // ratings went with their supports above)
+    let mut item = n_members + s.floors.len();
+    for k in 0..n_members {
+        for q in 0..r.members[k].fittings.len() {
+            let j = arc.peak_of(s, item);
+            if let Some(f) = ev.at(j).members[k].fittings.get(q).cloned() {
+                r.members[k].fittings[q] = f;
+            }
+            item += 1;
+        }
+    }
+    for i in 0..r.nodes.len() {
+        for q in 0..r.nodes[i].fittings.len() {
+            let j = arc.peak_of(s, item);
+            if let Some(f) = ev.at(j).nodes[i].fittings.get(q).cloned() {
+                r.nodes[i].fittings[q] = f;
+            }
+            item += 1;
+        }
     }
     let low = arc.lowest();
     r.load_path = ev.at(low).load_path.clone();

@@ -2,6 +2,7 @@
 //! load-path results against the allowables, with the state of each.
 
 use super::allowable::{floor_allowable, member_allowable_n};
+use super::fittings::{anchor_rating, member_fittings, node_fittings, part_utilisations};
 use super::results::{FloorResult, LoadPathResult, MemberResult, NodeResult, State, SupportResult};
 use crate::library::Carries;
 use crate::model::{Scenario, Support};
@@ -35,15 +36,7 @@ impl Allowables {
     }
 }
 
-fn state_of(utilisation: f64, near: f64) -> State {
-    if utilisation > 1.0 + 1e-9 {
-        State::Over
-    } else if utilisation >= near {
-        State::Near
-    } else {
-        State::Ok
-    }
-}
+use super::fittings::state_of;
 
 /// Floor normal force and largest deflection per floor.
 fn floor_loads(s: &Scenario, eq: &Equilibrium) -> Vec<(f64, f64, bool)> {
@@ -66,6 +59,8 @@ pub fn utilisations(s: &Scenario, a: &Allowables, eq: &Equilibrium) -> Vec<f64> 
     for (k, (force, defl, _)) in floor_loads(s, eq).iter().enumerate() {
         u.push(f64::max(force / a.floor_n[k], defl / a.floor_deflection_m[k]));
     }
+    // rated parts after the floors, in the order of `CaseResult::parts`
+    u.extend(part_utilisations(s, eq));
     u
 }
 
@@ -115,6 +110,7 @@ pub fn evaluate(s: &Scenario, net: &Network, a: &Allowables, loads: &[[f64; 3]],
                 wave_transit_s: m.wave_speed_m_s.map(|c| length / c),
                 reason: None,
                 peak_at_deg: None,
+                fittings: member_fittings(s, i, eq),
             }
         })
         .collect();
@@ -145,14 +141,19 @@ pub fn evaluate(s: &Scenario, net: &Network, a: &Allowables, loads: &[[f64; 3]],
         .nodes
         .iter()
         .enumerate()
-        .map(|(i, n)| NodeResult { id: n.id.clone(), position_m: eq.positions_m[i] })
+        .map(|(i, n)| NodeResult { id: n.id.clone(), position_m: eq.positions_m[i], fittings: node_fittings(s, i, eq) })
         .collect();
     let supports = s
         .nodes
         .iter()
         .enumerate()
         .filter(|(_, n)| n.support != Support::Joint)
-        .map(|(i, n)| SupportResult { node: n.id.clone(), reaction_n: eq.reaction_n[i], peak_at_deg: None })
+        .map(|(i, n)| SupportResult {
+            node: n.id.clone(),
+            reaction_n: eq.reaction_n[i],
+            rated: anchor_rating(s, i, eq),
+            peak_at_deg: None,
+        })
         .collect();
     // walks only from the masses' nodes (those with a load): the paths shown
     let mut starts: Vec<usize> = s

@@ -5,6 +5,7 @@ mod allowable;
 mod analyse;
 mod curves;
 mod evaluate;
+mod fittings;
 pub mod formulas;
 mod limits;
 pub mod results;
@@ -17,6 +18,7 @@ pub use allowable::{Allowable, floor_allowable, member_allowable, member_allowab
 pub use analyse::{Prior, analyse, analyse_from, assumptions};
 pub use curves::{ReleaseCurve, release_curve, single_line_swing};
 pub use evaluate::Allowables;
+pub use fittings::node_load_n;
 pub use results::*;
 pub use scope::{Scope, scope};
 pub use simulate_case::{CaseSimulation, SimulateRequest, simulate_case};

@@ -67,6 +67,38 @@ pub struct MemberResult {
     /// Swing cases: the angle of the arc where this member peaks, degrees.
     #[serde(skip_serializing_if = "Option::is_none")]
     pub peak_at_deg: Option<f64>,
+    /// Rated parts in series with the member, each on the member's force.
+    pub fittings: Vec<FittingResult>,
+}
+
+/// One rated part (a fitting on a member or at a node, or an anchor's
+/// rating) in one case.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct FittingResult {
+    /// `shackle`, `hook`, `master_link`, `eye_bolt`, `hoist`, `fitting`, `anchor`.
+    pub kind: String,
+    /// Name shown (given, or the kind in words).
+    pub name: String,
+    /// Working load limit used, N (an eye bolt's derated by angle).
+    pub wll_n: f64,
+    /// The rated (in-line) working load limit as entered, N.
+    pub rated_wll_n: f64,
+    /// Force carried, N: the member's axial force (tension positive), the
+    /// resultant at a node, or the reaction's magnitude.
+    pub force_n: f64,
+    /// |force| ÷ wll (infinite where the part is not rated at all in this geometry).
+    pub utilisation: f64,
+    /// State.
+    pub state: State,
+    /// Angle that governs the part, degrees: an eye bolt's pull from its axis,
+    /// a hoist's off plumb; none for the others.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub angle_deg: Option<f64>,
+    /// How the WLL was found (rating as entered, derating and its source).
+    pub source: String,
+    /// Why the state is what it is, where it is not plain force ÷ WLL.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub reason: Option<String>,
 }
 
 /// One floor in one case.
@@ -101,6 +133,9 @@ pub struct NodeResult {
     pub id: String,
     /// Solved position, m.
     pub position_m: [f64; 3],
+    /// Fittings at the node, each on the resultant of the members above it
+    /// (on the reaction at a support).
+    pub fittings: Vec<FittingResult>,
 }
 
 /// A support's reaction: the force the support exerts on the rig.
@@ -113,6 +148,9 @@ pub struct SupportResult {
     /// Swing cases: the angle of the arc where the reaction is largest, degrees.
     #[serde(skip_serializing_if = "Option::is_none")]
     pub peak_at_deg: Option<f64>,
+    /// The anchor's rating checked on the reaction's magnitude, where given.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub rated: Option<FittingResult>,
 }
 
 /// The members and supports that carry one mass.
@@ -218,6 +256,30 @@ pub struct CaseResult {
     pub warning_items: Vec<Warning>,
 }
 
+impl CaseResult {
+    /// Every rated part of the case with the id of what it belongs to
+    /// (`leg-1/shackle`): member fittings in member order, then node
+    /// fittings, then anchor ratings. The comparison table and
+    /// [`Analysis::verdict`] read them in this order.
+    pub fn parts(&self) -> impl Iterator<Item = &FittingResult> {
+        self.members
+            .iter()
+            .flat_map(|m| m.fittings.iter())
+            .chain(self.nodes.iter().flat_map(|n| n.fittings.iter()))
+            .chain(self.supports.iter().filter_map(|s| s.rated.as_ref()))
+    }
+
+    /// As [`parts`](Self::parts), each with its comparison id (`leg-1/shackle`, `A1/anchor`).
+    pub fn part_ids(&self) -> Vec<String> {
+        self.members
+            .iter()
+            .flat_map(|m| m.fittings.iter().map(move |f| format!("{}/{}", m.id, f.name)))
+            .chain(self.nodes.iter().flat_map(|n| n.fittings.iter().map(move |f| format!("{}/{}", n.id, f.name))))
+            .chain(self.supports.iter().filter_map(|s| s.rated.as_ref().map(|f| format!("{}/{}", s.node, f.name))))
+            .collect()
+    }
+}
+
 /// Per member, across cases: the inspector's comparison row.
 #[derive(Debug, Clone, PartialEq, Serialize)]
 pub struct ComparisonRow {
@@ -314,12 +376,15 @@ impl Analysis {
         self.cases.iter().any(|c| {
             c.members.iter().any(|m| m.state == State::Unchecked)
                 || c.floors.iter().any(|f| f.state == State::Unchecked)
+                || c.parts().any(|p| p.state == State::Unchecked)
         })
     }
 
     fn any_fault(&self) -> bool {
         self.cases.iter().any(|c| {
-            c.members.iter().any(|m| m.state == State::Over) || c.floors.iter().any(|f| f.state == State::Over)
+            c.members.iter().any(|m| m.state == State::Over)
+                || c.floors.iter().any(|f| f.state == State::Over)
+                || c.parts().any(|p| p.state == State::Over)
         }) || self.cases.iter().any(|c| c.warning_items.iter().any(|w| w.message.contains("meant to carry")))
     }
 }

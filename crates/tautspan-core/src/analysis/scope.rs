@@ -3,7 +3,7 @@
 //! "safe". The entries are data, one per item with the condition under which
 //! it applies to a scenario.
 
-use crate::model::{Case, Scenario};
+use crate::model::{Case, Scenario, Support};
 use serde::Serialize;
 
 /// What is checked and what is not.
@@ -37,6 +37,15 @@ fn has_floor(s: &Scenario) -> bool {
     !s.floors.is_empty()
 }
 
+fn has_parts(s: &Scenario) -> bool {
+    s.members.iter().any(|m| !m.fittings.is_empty())
+        || s.nodes.iter().any(|n| !n.fittings.is_empty() || n.rated.is_some())
+}
+
+fn has_unrated_anchor(s: &Scenario) -> bool {
+    s.nodes.iter().any(|n| n.support == Support::Anchor && n.rated.is_none())
+}
+
 const CHECKED: &[Entry] = &[
     Entry {
         text: "axial force of every member against its allowable (rated strength x efficiency / design factor, or its working load limit), in every case",
@@ -55,13 +64,18 @@ const CHECKED: &[Entry] = &[
         text: "floors: normal force against the rated loads given, and deflection against span / limit",
         applies: has_floor,
     },
+    Entry {
+        text: "fittings entered: WLL against the member force (at a node: the resultant of the members above it); eye bolts derated by angle; hoists against their side-pull limit where given; anchors with a rating against the reaction",
+        applies: has_parts,
+    },
 ];
 
 const NOT_CHECKED: &[Entry] = &[
     Entry {
-        text: "fittings and hardware not entered in the scenario (shackles, hooks, links, eye bolts, clamps, hoists)",
+        text: "fittings and hardware not entered in the scenario (shackles, hooks, links, eye bolts, clamps, hoists), and the fit, wear and side loading of those entered beyond their WLL and the angles named",
         applies: always,
     },
+    Entry { text: "anchors without a rating: only their reaction is shown", applies: has_unrated_anchor },
     Entry { text: "the structure behind each anchor beyond the reaction shown", applies: always },
     Entry { text: "bending, shear and torsion of members (axial force only)", applies: always },
     Entry { text: "wear, corrosion, damage, fatigue and inspection state of the gear", applies: always },

@@ -50,6 +50,7 @@ pub const SAG_RATIO_LIMIT: f64 = 0.125;
 /// Warnings for a solved case.
 pub fn case_warnings(s: &Scenario, case: &Case, r: &CaseResult, static_r: Option<&CaseResult>) -> Vec<Warning> {
     let mut w = Vec::new();
+    let legs = sling_legs(s, r);
     let mut push = |subject: &str, message: String| w.push(Warning { subject: Some(subject.to_string()), message });
     for (i, m) in r.members.iter().enumerate() {
         let member = &s.members[i];
@@ -93,7 +94,7 @@ pub fn case_warnings(s: &Scenario, case: &Case, r: &CaseResult, static_r: Option
             ),
             _ => {}
         }
-        if member.kind.carries() == Carries::TensionOnly && m.force_n > 0.0 && m.sling_angle_deg < 30.0 {
+        if legs[i] && m.sling_angle_deg < 30.0 {
             if m.sling_angle_deg < HORIZONTAL_DEG {
                 // 1 / sin β grows without bound: a level member takes no
                 // share of the weight, so it is a tie, not a sling leg
@@ -213,6 +214,166 @@ pub fn case_warnings(s: &Scenario, case: &Case, r: &CaseResult, static_r: Option
                 )),
             ),
             State::Ok => {}
+        }
+    }
+    w.extend(part_warnings(s, r));
+    w
+}
+
+// --- sling legs: which tension members the sling-angle warning is for ---
+
+/// Below this vertical component of a member's unit vector it is level
+/// (1e-6: far below a drawing's precision).
+const LEVEL: f64 = 1e-6;
+
+/// Which members are sling legs in this solved case: a member carrying
+/// tension (rope, chain, cable) that takes hung load upward (its lower end
+/// hangs a load: a mass there or below it through taut members) and meets
+/// other legs at a gathering point: either its lower end, where another
+/// taut member also rises and at most one line continues down (a bridle's
+/// ring), or its upper end, where another taut member also comes up from a
+/// hung load and at most one line continues up (a two-leg sling's master
+/// link). A gathering point has no level member at it. So guys (whose lower
+/// end hangs nothing), level ties and spreaders, and the inner members of a
+/// net (joints with several lines up and down or level ones) are not legs.
+/// (A member's `hitch`, when the file format has one, will also make it a leg.)
+pub fn sling_legs(s: &Scenario, r: &CaseResult) -> Vec<bool> {
+    let n = s.nodes.len();
+    let pos = |k: usize| r.nodes.get(k).map_or_else(|| s.position_m(k), |x| x.position_m);
+    // each taut tension member as (lower, upper, rises), rises false when level
+    let taut: Vec<Option<(usize, usize, bool)>> = s
+        .members
+        .iter()
+        .zip(&r.members)
+        .map(|(m, mr)| {
+            if m.kind.carries() != Carries::TensionOnly || mr.force_n <= 0.0 {
+                return None;
+            }
+            let [a, b] = m.ends;
+            let (pa, pb) = (pos(a), pos(b));
+            let d = [pb[0] - pa[0], pb[1] - pa[1], pb[2] - pa[2]];
+            let l = (d[0] * d[0] + d[1] * d[1] + d[2] * d[2]).sqrt();
+            let uy = if l > 0.0 { d[1] / l } else { 0.0 };
+            Some(if uy >= 0.0 { (a, b, uy > LEVEL) } else { (b, a, -uy > LEVEL) })
+        })
+        .collect();
+    // nodes that hang a load: masses, then upward through taut members
+    let mut hangs = vec![false; n];
+    for m in &s.masses {
+        hangs[m.node] = true;
+    }
+    for _ in 0..n {
+        let mut changed = false;
+        for &(lo, up, rises) in taut.iter().flatten() {
+            if rises && hangs[lo] && !hangs[up] {
+                hangs[up] = true;
+                changed = true;
+            }
+        }
+        if !changed {
+            break;
+        }
+    }
+    // per node: lines up, lines down, level lines; all members at it, any kind
+    let mut up = vec![0usize; n];
+    let mut down = vec![0usize; n];
+    let mut level = vec![0usize; n];
+    let mut legs_up = vec![0usize; n];
+    let mut legs_down = vec![0usize; n];
+    for (m, t) in s.members.iter().zip(&taut) {
+        match t {
+            Some((lo, hi, true)) => {
+                up[*lo] += 1;
+                down[*hi] += 1;
+                if hangs[*lo] {
+                    legs_up[*lo] += 1;
+                    legs_down[*hi] += 1;
+                }
+            }
+            Some((lo, hi, false)) => {
+                level[*lo] += 1;
+                level[*hi] += 1;
+            }
+            None => {
+                // a rod or slack line still makes a node a net joint or a spreader end
+                let [a, b] = m.ends;
+                let (pa, pb) = (pos(a), pos(b));
+                let dy = pb[1] - pa[1];
+                let l = ((pb[0] - pa[0]).powi(2) + dy * dy + (pb[2] - pa[2]).powi(2)).sqrt();
+                if l > 0.0 && (dy / l).abs() <= LEVEL {
+                    level[a] += 1;
+                    level[b] += 1;
+                }
+            }
+        }
+    }
+    taut.iter()
+        .map(|t| match *t {
+            Some((lo, hi, true)) if hangs[lo] => {
+                let at_lower = legs_up[lo] >= 2 && down[lo] <= 1 && level[lo] == 0;
+                let at_upper = legs_down[hi] >= 2 && up[hi] <= 1 && level[hi] == 0;
+                at_lower || at_upper
+            }
+            _ => false,
+        })
+        .collect()
+}
+
+// --- rated parts: fittings on members and at nodes, anchor ratings ---
+
+/// Warnings of the rated parts of a case: over, near, unchecked, side pull.
+fn part_warnings(s: &Scenario, r: &CaseResult) -> Vec<Warning> {
+    let mut w = Vec::new();
+    let ids = r.part_ids();
+    for (id, p) in ids.iter().zip(r.parts()) {
+        let what = if p.kind == "anchor" { "rated anchor" } else { p.kind.as_str() };
+        let what = what.replace('_', " ");
+        let message = match p.state {
+            State::Over => match &p.reason {
+                Some(reason) => msg(format_args!("{what} {id}: OVER in case {}: {reason}", r.id)),
+                None => msg(format_args!(
+                    "{what} {id}: {} is over its WLL {} by {} (utilisation {})",
+                    Kn(p.force_n.abs()),
+                    Kn(p.wll_n),
+                    Pct(p.utilisation - 1.0),
+                    Sig(p.utilisation, 3)
+                )),
+            },
+            State::Near => msg(format_args!(
+                "{what} {id}: at {} of its WLL {} (near-limit threshold {})",
+                Pct(p.utilisation),
+                Kn(p.wll_n),
+                Pct(s.near_limit)
+            )),
+            State::Unchecked => msg(format_args!(
+                "{what} {id}: UNCHECKED in case {}: {}",
+                r.id,
+                p.reason.as_deref().unwrap_or("the inputs cannot support the check")
+            )),
+            _ => String::new(),
+        };
+        if !message.is_empty() {
+            w.push(Warning { subject: Some(id.clone()), message });
+        }
+    }
+    // hoists without the maker's side-pull limit: the angle, and a request for it
+    for (m, mr) in s.members.iter().zip(&r.members) {
+        for (f, fr) in m.fittings.iter().zip(&mr.fittings) {
+            if let (crate::model::FittingKind::Hoist { max_off_plumb: None }, Some(off)) = (&f.kind, fr.angle_deg)
+                && off >= HORIZONTAL_DEG
+                && fr.force_n > 0.0
+            {
+                w.push(Warning {
+                    subject: Some(format!("{}/{}", m.id, f.name)),
+                    message: msg(format_args!(
+                        "hoist {}/{}: pulled {} deg off plumb in case {}; no side-pull limit entered: give the maker's limit as `max_off_plumb` (a hoist is made for a plumb pull; its maker states any side-pull allowance)",
+                        m.id,
+                        f.name,
+                        Sig(off, 3),
+                        r.id
+                    )),
+                });
+            }
         }
     }
     w

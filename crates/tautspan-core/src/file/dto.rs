@@ -140,7 +140,7 @@ impl SupportDto {
 }
 
 /// A node as written.
-#[derive(Debug, Clone, PartialEq, Eq, Default, Serialize, Deserialize)]
+#[derive(Debug, Clone, PartialEq, Default, Serialize, Deserialize)]
 #[serde(rename = "Node", deny_unknown_fields)]
 pub struct NodeDto {
     /// Unique id.
@@ -150,6 +150,13 @@ pub struct NodeDto {
     /// How it is held; omitted for a free joint.
     #[serde(default, skip_serializing_if = "SupportDto::is_joint")]
     pub support: SupportDto,
+    // rated parts at the node
+    /// An anchor's rated load (force, or mass as on its tag), checked against the reaction.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub rated: Option<Qty>,
+    /// Fittings at the node (e.g. a master link), checked on the resultant of the members above it.
+    #[serde(default, skip_serializing_if = "Vec::is_empty")]
+    pub fittings: Vec<super::fitting::FittingDto>,
 }
 
 /// A member's rated strength, as written.
@@ -221,6 +228,10 @@ pub struct MemberDto {
     /// True where the member may go slack in some case without that being a fault.
     #[serde(default, skip_serializing_if = "std::ops::Not::not")]
     pub may_go_slack: bool,
+    // rated parts in series with the member
+    /// Fittings in series (shackles, hooks, links, eye bolts, hoists, named parts).
+    #[serde(default, skip_serializing_if = "Vec::is_empty")]
+    pub fittings: Vec<super::fitting::FittingDto>,
 }
 
 /// A floor slab as written.

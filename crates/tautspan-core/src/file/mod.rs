@@ -2,12 +2,14 @@
 
 mod dto;
 mod error;
+mod fitting;
 mod locate;
 mod read;
 mod write;
 
 pub use dto::{CaseDto, FloorDto, MassDto, MemberDto, NodeDto, Position, Qty, RatingDto, ScenarioDto, SupportDto};
 pub use error::{FileError, FileErrors};
+pub use fitting::{Direction, FittingDto};
 pub use locate::{Location, SpanIndex};
 pub use read::{FORMAT_WRITTEN, FORMATS_READ, MAX_FILE_BYTES, parse_scenario_text, ron_options};
 pub use write::write_scenario_text;

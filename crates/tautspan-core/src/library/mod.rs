@@ -2,6 +2,7 @@
 //! fibre rope stiffness, floor slabs. Every value carries its source.
 
 mod chain;
+mod eye_bolt;
 mod fibre_rope;
 mod material;
 mod member_kind;
@@ -9,6 +10,7 @@ mod slab;
 mod wire_rope;
 
 pub use chain::{ChainGrade, chain_area_m2, chain_linear_mass_kg_m};
+pub use eye_bolt::{EYE_BOLT_SOURCE, EyeBoltRow, PLAIN_EYE_BOLT, SHOULDER_EYE_BOLT, eye_bolt_fraction};
 pub use fibre_rope::{default_elongation_at_20pct, fibre_axial_stiffness_n, fibre_linear_mass_kg_m};
 pub use material::{Material, MaterialData};
 pub use member_kind::{Carries, DefaultFactor, MemberKind};

@@ -3,6 +3,7 @@
 //! found from the file or the library. Problems are collected (not only the
 //! first) and each names its field path; the file layer adds line and column.
 
+use super::build_fittings::{Host, build_fittings, build_rated};
 use super::scenario::{Case, DesignFactor, Floor, Mass, Member, Node, Rating, Scenario, Support};
 use crate::file::{CaseDto, FloorDto, MemberDto, Qty, RatingDto, ScenarioDto, SupportDto};
 use crate::library::{
@@ -46,16 +47,22 @@ impl std::fmt::Display for Field {
     }
 }
 
-struct Ctx {
+pub(super) struct Ctx {
     problems: Vec<Problem>,
 }
 
 impl Ctx {
-    fn err(&mut self, path: impl std::fmt::Display, message: impl Into<String>) {
+    pub(super) fn err(&mut self, path: impl std::fmt::Display, message: impl Into<String>) {
         self.problems.push(Problem { path: path.to_string(), message: message.into() });
     }
 
-    fn qty(&mut self, q: &Qty, path: impl std::fmt::Display + Copy, dim: Dimension, sign: Sign) -> Option<f64> {
+    pub(super) fn qty(
+        &mut self,
+        q: &Qty,
+        path: impl std::fmt::Display + Copy,
+        dim: Dimension,
+        sign: Sign,
+    ) -> Option<f64> {
         match parse_quantity(&q.0, dim, sign) {
             Ok(v) => Some(v),
             Err(e) => {
@@ -65,7 +72,7 @@ impl Ctx {
         }
     }
 
-    fn opt_qty(
+    pub(super) fn opt_qty(
         &mut self,
         q: &Option<Qty>,
         path: impl std::fmt::Display + Copy,
@@ -171,6 +178,8 @@ pub fn build(dto: &ScenarioDto) -> Result<Scenario, Vec<Problem>> {
                 Length::new::<meter>(z.unwrap_or(0.0)),
             ],
             support,
+            rated: build_rated(&mut ctx, i, &n.rated, support),
+            fittings: build_fittings(&mut ctx, "nodes", i, Host::Node, &n.fittings),
         });
     }
 
@@ -718,5 +727,6 @@ fn build_member(ctx: &mut Ctx, i: usize, m: &MemberDto) -> Option<Member> {
         construction,
         chain_grade,
         material,
+        fittings: build_fittings(ctx, "members", i, Host::Member, &m.fittings),
     })
 }

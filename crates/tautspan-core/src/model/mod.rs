@@ -1,11 +1,14 @@
 //! The validated model of a scenario and its construction from file types.
 
 mod build;
+mod build_fittings;
+mod fitting;
 mod load;
 mod scenario;
 mod to_network;
 
 pub use build::{Problem, STANDARD_GRAVITY_M_S2, build};
+pub use fitting::{Fitting, FittingKind};
 pub use load::{Loaded, load_scenario};
 pub use scenario::{Case, DesignFactor, Floor, Mass, Member, Node, Rating, Scenario, Support};
 pub use to_network::{NetworkLoads, to_network};

@@ -25,6 +25,11 @@ pub struct Node {
     pub position: [Length; 3],
     /// How it is held.
     pub support: Support,
+    // rated parts at the node
+    /// An anchor's rated load, where given.
+    pub rated: Option<super::fitting::Fitting>,
+    /// Fittings at the node, checked on the resultant of the members above it.
+    pub fittings: Vec<super::fitting::Fitting>,
 }
 
 /// Rated strength as the allowable is derived from it.
@@ -92,6 +97,9 @@ pub struct Member {
     pub chain_grade: Option<ChainGrade>,
     /// Material, where given.
     pub material: Option<Material>,
+    // rated parts in series with the member
+    /// Fittings in series, each checked on the member's force.
+    pub fittings: Vec<super::fitting::Fitting>,
 }
 
 /// A floor slab.

@@ -1,4 +1,4 @@
-//! `check --format csv`: one row per case and item (member or floor), with
+//! `check --format csv`: one row per case and item (member, floor or rated part), with
 //! the case's limits; the caution on a leading `#` line.
 
 use crate::CAUTION;
@@ -18,7 +18,7 @@ fn opt(v: Option<f64>) -> String {
 }
 
 /// The CSV header line.
-pub const HEADER: &str = "file,case,kind,item,item_type,force_n,allowable_n,utilisation,state,stretch_m,deflection_m,ratio_to_static,governing_case,release_limit_deg,drop_limit_m";
+pub const HEADER: &str = "file,case,kind,item,item_type,force_n,allowable_n,utilisation,state,stretch_m,deflection_m,ratio_to_static,governing_case,release_limit_deg,drop_limit_m,sling_angle_from_horizontal_deg";
 
 /// The caution line (as a `#` comment) for the top of a CSV output.
 pub fn caution_line() -> String {
@@ -28,6 +28,11 @@ pub fn caution_line() -> String {
 /// The verdict and scope of one file as `#` comment lines.
 pub fn scope_lines(file: &str, a: &Analysis) -> String {
     let mut out = format!("# {file}: verdict {}\n", a.verdict().words());
+    if a.cases.iter().any(|c| c.parts().next().is_some()) {
+        out.push_str(&format!(
+            "# {file}: rows of item_type part: item is owner/part (leg-1/shackle, A1/anchor), force_n the force the part carries, allowable_n its WLL used (an eye bolt's derated by its angle from the axis)\n"
+        ));
+    }
     for c in &a.scope.checked {
         out.push_str(&format!("# {file}: checked: {c}\n"));
     }
@@ -61,6 +66,7 @@ pub fn check_csv_rows(file: &str, a: &Analysis) -> String {
                     field(row.and_then(|r| r.governing_case.as_deref()).unwrap_or("")),
                     lim.0.clone(),
                     lim.1.clone(),
+                    num(m.sling_angle_deg),
                 ]
                 .join(","),
             );
@@ -85,6 +91,34 @@ pub fn check_csv_rows(file: &str, a: &Analysis) -> String {
                     field(row.and_then(|r| r.governing_case.as_deref()).unwrap_or("")),
                     lim.0.clone(),
                     lim.1.clone(),
+                    String::new(),
+                ]
+                .join(","),
+            );
+            out.push('\n');
+        }
+        // rated parts after the floors, as in the comparison
+        let first = c.members.len() + c.floors.len();
+        for (k, (id, p)) in c.part_ids().into_iter().zip(c.parts()).enumerate() {
+            let row = a.comparison.get(first + k);
+            out.push_str(
+                &[
+                    field(file),
+                    field(&c.id),
+                    field(&c.kind),
+                    field(&id),
+                    "part".into(),
+                    num(p.force_n),
+                    num(p.wll_n),
+                    num(p.utilisation),
+                    p.state.as_str().into(),
+                    String::new(),
+                    String::new(),
+                    opt(row.and_then(|r| r.ratio_to_static.get(ci).copied().flatten())),
+                    field(row.and_then(|r| r.governing_case.as_deref()).unwrap_or("")),
+                    lim.0.clone(),
+                    lim.1.clone(),
+                    String::new(),
                 ]
                 .join(","),
             );

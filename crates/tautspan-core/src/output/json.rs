@@ -2,11 +2,19 @@
 //! command-line contract (DESIGN.md). Non-finite numbers (an allowable of a
 //! floor without ratings) are written as `null`, never as NaN.
 
-use crate::analysis::{Analysis, CaseResult};
+use crate::analysis::{Analysis, CaseResult, FittingResult};
 use serde_json::{Map, Value, json};
 
 fn num(v: f64) -> Value {
     if v.is_finite() { json!(v) } else { Value::Null }
+}
+
+/// A rated part: the contract's `kind`, `wll_n`, `force_n`, `utilisation`,
+/// `state`, and the name, in-line rating, governing angle, source and reason.
+fn part_json(f: &FittingResult) -> Value {
+    json!({ "kind": f.kind, "name": f.name, "wll_n": num(f.wll_n), "rated_wll_n": num(f.rated_wll_n),
+            "force_n": num(f.force_n), "utilisation": num(f.utilisation), "state": f.state.as_str(),
+            "angle_deg": f.angle_deg.map(num), "source": f.source, "reason": f.reason })
 }
 
 fn case_json(c: &CaseResult) -> Value {
@@ -42,7 +50,8 @@ fn case_json(c: &CaseResult) -> Value {
                         "utilisation": num(m.utilisation), "state": m.state.as_str(), "stretch_m": num(m.stretch_m),
                         "length_m": num(m.length_m), "sling_angle_deg": num(m.sling_angle_deg),
                         "sag_m": num(m.sag_m), "wave_transit_s": m.wave_transit_s.map(num), "reason": m.reason,
-                        "peak_at_deg": m.peak_at_deg.map(num) })
+                        "peak_at_deg": m.peak_at_deg.map(num),
+                        "fittings": m.fittings.iter().map(part_json).collect::<Vec<_>>() })
             })
             .collect(),
     );
@@ -59,13 +68,27 @@ fn case_json(c: &CaseResult) -> Value {
     );
     o.insert(
         "nodes".into(),
-        c.nodes.iter().map(|n| json!({ "id": n.id, "position_m": n.position_m.map(num) })).collect(),
+        c.nodes
+            .iter()
+            .map(|n| {
+                let mut o = json!({ "id": n.id, "position_m": n.position_m.map(num) });
+                if !n.fittings.is_empty() {
+                    o["fittings"] = n.fittings.iter().map(part_json).collect();
+                }
+                o
+            })
+            .collect(),
     );
     o.insert(
         "supports".into(),
         c.supports
             .iter()
-            .map(|s| json!({ "node": s.node, "reaction_n": s.reaction_n.map(num), "peak_at_deg": s.peak_at_deg.map(num) }))
+            .map(|s| {
+                let r = s.rated.as_ref();
+                json!({ "node": s.node, "reaction_n": s.reaction_n.map(num),
+                        "rated_n": r.map(|r| num(r.wll_n)), "utilisation": r.map(|r| num(r.utilisation)),
+                        "state": r.map(|r| r.state.as_str()), "peak_at_deg": s.peak_at_deg.map(num) })
+            })
             .collect(),
     );
     o.insert(

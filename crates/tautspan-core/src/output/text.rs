@@ -104,7 +104,16 @@ fn case_text(c: &CaseResult, out: &mut String) {
             row
         })
         .collect();
-    let mut header = vec!["member", "force kN", "allowable kN", "util %", "state", "stretch mm", "sag mm", "angle deg"];
+    let mut header = vec![
+        "member",
+        "force kN",
+        "allowable kN",
+        "util %",
+        "state",
+        "stretch mm",
+        "sag mm",
+        "sling angle deg from horizontal",
+    ];
     let mut right = vec![false, true, true, true, false, true, true, true];
     if waves {
         header.push("wave transit ms");
@@ -136,6 +145,34 @@ fn case_text(c: &CaseResult, out: &mut String) {
             &rows,
             &[false, true, true, true, true, true, false],
         )));
+    }
+    let parts: Vec<Vec<String>> = c
+        .part_ids()
+        .into_iter()
+        .zip(c.parts())
+        .map(|(id, p)| {
+            vec![
+                id,
+                p.kind.clone(),
+                kn(p.force_n),
+                kn(p.wll_n),
+                kn(p.rated_wll_n),
+                pct(p.utilisation),
+                p.state.as_str().to_string(),
+                p.angle_deg.map_or("-".into(), |a| format_number(a, 3)),
+            ]
+        })
+        .collect();
+    if !parts.is_empty() {
+        out.push_str(&indent(&table(
+            &["rated part", "kind", "force kN", "WLL used kN", "WLL rated kN", "util %", "state", "angle deg"],
+            &parts,
+            &[false, false, true, true, true, true, false, true],
+        )));
+        let _ = writeln!(
+            out,
+            "  (angle: an eye bolt's pull from its axis; a hoist's line from plumb. A fitting at a joint carries the resultant of the members above it.)"
+        );
     }
     for p in &c.load_path {
         let _ = writeln!(out, "  load path of {}: {} -> {}", p.mass, p.members.join(", "), p.supports.join(", "));
@@ -196,7 +233,7 @@ pub fn check_text(file: &str, a: &Analysis) -> String {
         case_text(c, &mut out);
     }
     if !a.comparison.is_empty() {
-        let _ = writeln!(out, "\nComparison (per member and floor, every case)");
+        let _ = writeln!(out, "\nComparison (per member, floor and rated part, every case)");
         out.push_str(&indent(&comparison_text(a)));
     }
     if !a.warnings.is_empty() {

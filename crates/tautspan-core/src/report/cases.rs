@@ -4,6 +4,7 @@
 
 use super::comparison::state_word;
 use super::escape::escape;
+use super::parts::case_parts;
 use super::table::{NONE, table};
 use super::unit_system::{UnitSystem, degrees, number, percent};
 use super::warnings::{case_items, item};
@@ -30,6 +31,7 @@ fn one(scenario: &Scenario, c: &CaseResult, units: UnitSystem) -> String {
     if !c.floors.is_empty() {
         s.push_str(&floors(c, units));
     }
+    s.push_str(&case_parts(c, units));
     s.push_str(&load_paths(c));
     if !c.supports.is_empty() {
         s.push_str(&supports(c, units));
@@ -113,7 +115,16 @@ fn members(c: &CaseResult, units: UnitSystem) -> String {
             row
         })
         .collect();
-    let mut head = vec!["Member", "Force", "Allowable", "Utilisation", "State", "Stretch", "Length", "Sling angle"];
+    let mut head = vec![
+        "Member",
+        "Force",
+        "Allowable",
+        "Utilisation",
+        "State",
+        "Stretch",
+        "Length",
+        "Sling angle (from horizontal)",
+    ];
     if c.arc.is_some() {
         head.push("Peak at (arc angle)");
     }

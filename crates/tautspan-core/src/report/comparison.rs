@@ -21,7 +21,7 @@ pub fn comparison(scenario: &Scenario, analysis: &Analysis, units: UnitSystem) -
         .iter()
         .map(|c| with_note(&escape(&c.id), &if c.id == c.kind { String::new() } else { escape(&c.kind) }))
         .collect();
-    let mut head: Vec<&str> = vec!["Member or floor", "Allowable"];
+    let mut head: Vec<&str> = vec!["Member, floor or rated part", "Allowable"];
     head.extend(case_heads.iter().map(String::as_str));
     head.extend(["Governing case", "Largest release angle", "Largest drop height"]);
     let rows: Vec<Vec<String>> = analysis.comparison.iter().map(|r| row(scenario, analysis, r, units)).collect();
@@ -39,6 +39,7 @@ fn row(scenario: &Scenario, analysis: &Analysis, r: &ComparisonRow, units: UnitS
     let what = match scenario.members.iter().find(|m| m.id == r.id) {
         Some(m) => m.kind.label(),
         None if scenario.floors.iter().any(|f| f.id == r.id) => "floor",
+        None if r.id.contains('/') => "rated part",
         None => "",
     };
     let mut cells = vec![with_note(&format!("<b>{}</b>", escape(&r.id)), what), units.force(r.allowable_n)];

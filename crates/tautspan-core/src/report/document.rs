@@ -59,8 +59,9 @@ fn layout(scenario: &Scenario, analysis: &Analysis, units: UnitSystem) -> String
 
 fn inputs(scenario: &Scenario, analysis: &Analysis, units: UnitSystem) -> String {
     format!(
-        "<section id=\"inputs\" class=\"page-start\"><h2>Inputs</h2>{}{}{}{}</section>",
+        "<section id=\"inputs\" class=\"page-start\"><h2>Inputs</h2>{}{}{}{}{}</section>",
         members(scenario, analysis, units),
+        super::parts::parts_inputs(scenario, units),
         floors(scenario, units),
         masses(scenario, units),
         nodes(scenario, analysis, units)

@@ -28,11 +28,12 @@ pub fn mark(analysis: &Analysis, drawn_case: Option<&CaseResult>, id: &str) -> M
     Mark { utilisation, over, slack }
 }
 
-/// The state of member or floor `id` in a case.
+/// The state of member, floor or rated part (`leg-1/shackle`) `id` in a case.
 pub fn state_in(case: &CaseResult, id: &str) -> Option<State> {
     case.members
         .iter()
         .find(|m| m.id == id)
         .map(|m| m.state)
         .or_else(|| case.floors.iter().find(|f| f.id == id).map(|f| f.state))
+        .or_else(|| case.part_ids().iter().zip(case.parts()).find(|(p, _)| *p == id).map(|(_, p)| p.state))
 }

@@ -16,6 +16,7 @@ mod inputs_members;
 mod inputs_other;
 mod legend;
 mod marks;
+mod parts;
 mod ramp;
 mod scale_bar;
 mod style;

@@ -5,4 +5,4 @@ mod dimension;
 mod parse;
 
 pub use dimension::{Dimension, UNITS, UnitDef, unit, unit_of};
-pub use parse::{QuantityError, Sig, Sign, format_number, format_quantity, parse_quantity};
+pub use parse::{QuantityError, Sig, Sign, format_number, format_quantity, parse_quantity, parse_rated_load};

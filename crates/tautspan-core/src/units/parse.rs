@@ -233,6 +233,24 @@ pub fn parse_quantity(text: &str, dimension: Dimension, sign: Sign) -> Result<f6
     }
 }
 
+/// Parse a rated load written as a force (`"10 kN"`, `"2 tf"`) or as a
+/// mass (`"1 t"`, `"500 kg"`, as on a lifting-gear tag). A mass is taken as
+/// its weight at standard gravity, 9.80665 m/s² (CGPM 1901, ISO 80000-3),
+/// whatever gravity the scenario uses: a working load limit marked in tonnes
+/// means that weight. Returns the force in N and whether a mass was given.
+pub fn parse_rated_load(text: &str, sign: Sign) -> Result<(f64, bool), QuantityError> {
+    match parse_quantity(text, Dimension::Force, sign) {
+        Ok(v) => Ok((v, false)),
+        Err(QuantityError::WrongDimension { found: Dimension::Mass, .. }) => {
+            parse_quantity(text, Dimension::Mass, sign).map(|kg| (kg * STANDARD_GRAVITY_M_S2, true))
+        }
+        Err(e) => Err(e),
+    }
+}
+
+/// Standard gravity, m/s² (CGPM 1901; ISO 80000-3).
+const STANDARD_GRAVITY_M_S2: f64 = 9.806_65;
+
 /// Write an SI value in a chosen unit of its dimension, with up to
 /// `significant` significant digits and no trailing zeros (`"12.5 mm"`).
 pub fn format_quantity(si_value: f64, dimension: Dimension, unit_symbol: &str, significant: usize) -> String {
@@ -354,6 +372,25 @@ mod tests {
             let err = parse_quantity(text, *dim, *sign).expect_err(text).to_string();
             assert!(err.contains(needle), "{text}: {err}");
         }
+    }
+
+    #[test]
+    fn rated_loads_as_force_or_mass() {
+        // a mass is its weight at standard gravity 9.80665 m/s^2 (CGPM 1901,
+        // ISO 80000-3): 1 t -> 9806.65 N, exact to rounding (1e-12 relative)
+        for (text, n, was_mass) in [
+            ("1 t", 9_806.65, true),
+            ("3.25 t", 31_871.612_5, true),
+            ("500 kg", 4_903.325, true),
+            ("10 kN", 10_000.0, false),
+            ("2 tf", 19_613.3, false),
+        ] {
+            let (v, m) = parse_rated_load(text, Sign::Positive).unwrap();
+            assert!((v - n).abs() <= 1e-12 * n, "{text}: {v}");
+            assert_eq!(m, was_mass, "{text}");
+        }
+        assert!(parse_rated_load("2 m", Sign::Positive).is_err());
+        assert!(parse_rated_load("-1 t", Sign::Positive).is_err());
     }
 
     #[test]
