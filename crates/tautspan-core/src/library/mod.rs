@@ -1,6 +1,7 @@
 //! The member library: kinds, materials, rope constructions, chain grades,
 //! fibre rope stiffness, floor slabs. Every value carries its source.
 
+mod buckling;
 mod chain;
 mod fibre_rope;
 mod material;
@@ -8,6 +9,10 @@ mod member_kind;
 mod slab;
 mod wire_rope;
 
+pub use buckling::{
+    ALUMINIUM_CLASSES, Buckling, Curve, CurveError, STAINLESS_HOLLOW, STEEL_CURVES, Section, buckling, curve_for,
+    euler_load_n, reduction_factor, steel_tube_class_4,
+};
 pub use chain::{ChainGrade, chain_area_m2, chain_linear_mass_kg_m};
 pub use fibre_rope::{default_elongation_at_20pct, fibre_axial_stiffness_n, fibre_linear_mass_kg_m};
 pub use material::{Material, MaterialData};
