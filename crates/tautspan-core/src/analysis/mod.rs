@@ -10,6 +10,7 @@ mod limits;
 pub mod results;
 mod scope;
 mod simulate_case;
+mod strut;
 mod warnings;
 
 pub use allowable::{Allowable, floor_allowable, member_allowable, member_allowable_n};
@@ -18,4 +19,5 @@ pub use curves::{ReleaseCurve, release_curve, single_line_swing};
 pub use evaluate::Allowables;
 pub use results::*;
 pub use scope::{Scope, scope};
+pub use strut::{Compression, compression, compression_explanation};
 pub use simulate_case::{CaseSimulation, SimulateRequest, simulate_case};

@@ -3,10 +3,13 @@
 
 mod buckling;
 mod chain;
+mod duty;
 mod fibre_rope;
 mod material;
 mod member_kind;
 mod slab;
+mod termination;
+mod textile_sling;
 mod wire_rope;
 
 pub use buckling::{
@@ -15,7 +18,10 @@ pub use buckling::{
 };
 pub use chain::{ChainGrade, chain_area_m2, chain_linear_mass_kg_m};
 pub use fibre_rope::{default_elongation_at_20pct, fibre_axial_stiffness_n, fibre_linear_mass_kg_m};
+pub use duty::Duty;
 pub use material::{Material, MaterialData};
 pub use member_kind::{Carries, DefaultFactor, MemberKind};
 pub use slab::{Edges, flexural_rigidity, point_load_coefficient, point_stiffness_n_per_m};
+pub use termination::{Termination, UNSTATED_TERMINATION_EFFICIENCY};
+pub use textile_sling::TextileSling;
 pub use wire_rope::{Construction, ROPE_GRADES, rope_linear_mass_kg_m};

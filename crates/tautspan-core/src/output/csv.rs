@@ -18,7 +18,7 @@ fn opt(v: Option<f64>) -> String {
 }
 
 /// The CSV header line.
-pub const HEADER: &str = "file,case,kind,item,item_type,force_n,allowable_n,utilisation,state,stretch_m,deflection_m,ratio_to_static,governing_case,release_limit_deg,drop_limit_m";
+pub const HEADER: &str = "file,case,kind,item,item_type,force_n,allowable_n,utilisation,state,stretch_m,deflection_m,ratio_to_static,governing_case,release_limit_deg,drop_limit_m,euler_n,buckling_resistance_n";
 
 /// The caution line (as a `#` comment) for the top of a CSV output.
 pub fn caution_line() -> String {
@@ -61,6 +61,8 @@ pub fn check_csv_rows(file: &str, a: &Analysis) -> String {
                     field(row.and_then(|r| r.governing_case.as_deref()).unwrap_or("")),
                     lim.0.clone(),
                     lim.1.clone(),
+                    opt(m.euler_n),
+                    opt(m.buckling_resistance_n),
                 ]
                 .join(","),
             );
@@ -85,6 +87,8 @@ pub fn check_csv_rows(file: &str, a: &Analysis) -> String {
                     field(row.and_then(|r| r.governing_case.as_deref()).unwrap_or("")),
                     lim.0.clone(),
                     lim.1.clone(),
+                    String::new(),
+                    String::new(),
                 ]
                 .join(","),
             );

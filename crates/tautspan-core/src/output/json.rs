@@ -34,7 +34,8 @@ fn case_json(c: &CaseResult) -> Value {
                 json!({ "id": m.id, "force_n": num(m.force_n), "allowable_n": num(m.allowable_n),
                         "utilisation": num(m.utilisation), "state": m.state.as_str(), "stretch_m": num(m.stretch_m),
                         "length_m": num(m.length_m), "sling_angle_deg": num(m.sling_angle_deg),
-                        "sag_m": num(m.sag_m), "wave_transit_s": m.wave_transit_s.map(num), "reason": m.reason })
+                        "sag_m": num(m.sag_m), "wave_transit_s": m.wave_transit_s.map(num), "reason": m.reason,
+                        "euler_n": m.euler_n.map(num), "buckling_resistance_n": m.buckling_resistance_n.map(num) })
             })
             .collect(),
     );

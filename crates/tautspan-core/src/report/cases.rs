@@ -4,7 +4,7 @@
 
 use super::comparison::state_word;
 use super::escape::escape;
-use super::table::{NONE, table};
+use super::table::{NONE, table, with_note};
 use super::unit_system::{UnitSystem, degrees, number, percent};
 use super::warnings::{case_items, item};
 use crate::analysis::{Analysis, CaseResult, DynamicLoad};
@@ -91,11 +91,12 @@ fn dynamic(d: &DynamicLoad, units: UnitSystem) -> String {
 }
 
 fn members(c: &CaseResult, units: UnitSystem) -> String {
+    let struts = c.members.iter().any(|m| m.euler_n.is_some() || m.reason.is_some());
     let rows: Vec<Vec<String>> = c
         .members
         .iter()
         .map(|m| {
-            vec![
+            let mut row = vec![
                 format!("<b>{}</b>", escape(&m.id)),
                 units.force(m.force_n),
                 units.force(m.allowable_n),
@@ -104,10 +105,22 @@ fn members(c: &CaseResult, units: UnitSystem) -> String {
                 units.small_length(m.stretch_m),
                 units.length(m.length_m),
                 degrees(m.sling_angle_deg),
-            ]
+            ];
+            if struts {
+                row.push(m.euler_n.map_or_else(|| NONE.to_string(), |v| units.force(v)));
+                let resistance = m.buckling_resistance_n.map_or_else(|| NONE.to_string(), |v| units.force(v));
+                row.push(match &m.reason {
+                    Some(r) => with_note(&resistance, &escape(r)),
+                    None => resistance,
+                });
+            }
+            row
         })
         .collect();
-    let head = ["Member", "Force", "Allowable", "Utilisation", "State", "Stretch", "Length", "Sling angle"];
+    let mut head = vec!["Member", "Force", "Allowable", "Utilisation", "State", "Stretch", "Length", "Sling angle"];
+    if struts {
+        head.extend(["Euler load", "Buckling resistance χ·A·f<sub>y</sub>"]);
+    }
     table("case-members", &head, &rows)
 }
 
