@@ -271,7 +271,13 @@ fn rating(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, bufs: &mut FieldBuf
 
 fn design_factor(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, out: &mut Vec<Command>) {
     let m = &input.doc.dto.members[i];
-    let default = m.kind.default_design_factor();
+    // the default the core found (the sling standard's, raised for the duty) when solved; else the kind's
+    let default = input
+        .derived
+        .solved
+        .as_ref()
+        .and_then(|s| s.scenario.members.iter().find(|x| x.id == m.id))
+        .map_or_else(|| m.kind.default_design_factor(), |x| x.design_factor.default.clone());
     let l = ui.label("Design factor");
     ui.vertical(|ui| {
         ui.horizontal(|ui| {
@@ -304,7 +310,7 @@ fn design_factor(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, out: &mut Ve
         let text = RichText::new(format!("default {} — {}", default.value, default.source)).small();
         ui.label(if below { text.color(crate::qty_field::ERROR) } else { text.weak() });
         if below {
-            ui.label(RichText::new("below the kind's default").small().color(crate::qty_field::ERROR));
+            ui.label(RichText::new("below the default").small().color(crate::qty_field::ERROR));
         }
     });
     ui.end_row();
@@ -326,6 +332,17 @@ fn result(ui: &mut Ui, input: &InspectorInput<'_>, member_id: &str) {
     ));
     resp.on_hover_text(crate::explain::member_result(solved, &case.id, member_id, u));
     ui.label(format!("Stretch {}, sling angle {:.1}°", u.fmt(r.stretch_m, Shown::SmallLength), r.sling_angle_deg));
+    if let (Some(e), Some(b)) = (r.euler_n, r.buckling_resistance_n) {
+        ui.label(format!(
+            "Euler load {}, buckling resistance χ·A·f_y {}",
+            u.fmt(e, Shown::Force),
+            u.fmt(b, Shown::Force)
+        ))
+        .on_hover_text(crate::explain::member_result(solved, &case.id, member_id, u));
+    }
+    if let Some(reason) = &r.reason {
+        ui.label(RichText::new(format!("Unchecked: {reason}")).small().color(crate::qty_field::ERROR));
+    }
     if let Some(row) = solved.analysis.comparison.iter().find(|c| c.id == member_id) {
         if let Some(deg) = row.limits.release_deg {
             ui.label(format!("Largest release angle inside the allowable: {deg:.1}°"));
