@@ -34,8 +34,7 @@ fn single_line(kind_and_size: &str, mass: &str, cases: &str) -> String {
     )
 }
 
-const STEEL_LINE: &str =
-    r#"kind: WireRope, area: "100 mm^2", modulus: "100 GPa", rating: BreakingStrength("100 kN"), termination: PouredSocket"#;
+const STEEL_LINE: &str = r#"kind: WireRope, area: "100 mm^2", modulus: "100 GPa", rating: BreakingStrength("100 kN"), termination: PouredSocket"#;
 
 fn case<'a>(a: &'a Analysis, id: &str) -> &'a tautspan_core::analysis::CaseResult {
     a.cases.iter().find(|c| c.id == id).unwrap_or_else(|| panic!("case {id}"))
@@ -110,7 +109,8 @@ fn allowables_match_hand_calculations() {
     assert!(rel(m[1].allowable_n, 58e3 / 7.0) < 1e-12);
     assert!(rel(m[2].allowable_n, 3150.0 * G) < 1e-12);
     let a = analysed(&example("mezzanine-hoist.ron"));
-    let legs = tautspan_core::analysis::Allowables::of(&load_scenario(&example("mezzanine-hoist.ron")).unwrap().scenario);
+    let legs =
+        tautspan_core::analysis::Allowables::of(&load_scenario(&example("mezzanine-hoist.ron")).unwrap().scenario);
     let area = std::f64::consts::FRAC_PI_4 * (0.05f64.powi(2) - 0.044f64.powi(2));
     assert!(rel(legs.member_n[0], 250e6 * area / 2.0) < 1e-12);
     assert!(rel(a.cases[0].floors[0].allowable_n, 8.9e3) < 1e-12);

@@ -87,7 +87,11 @@ fn curve_and_effective_length_factor_from_the_file() {
 // N_cr = pi^2 x 210 000 x 39 761 / 2600^2 = 12.19 kN (closed form).
 #[test]
 fn strut_without_a_section_is_unchecked() {
-    let a = analysed(&jib(r#"area: "453 mm^2", material: "steel", rating: Yield("235 MPa")"#, "200 kg", r#"Static(id: "s")"#));
+    let a = analysed(&jib(
+        r#"area: "453 mm^2", material: "steel", rating: Yield("235 MPa")"#,
+        "200 kg",
+        r#"Static(id: "s")"#,
+    ));
     let m = &a.cases[0].members[0];
     assert_eq!(m.state, State::Unchecked);
     let reason = m.reason.as_deref().unwrap();
@@ -164,23 +168,63 @@ fn bad_sections_and_defaults_are_located_errors() {
     };
     let wire = r#"kind: WireRope, area: "100 mm^2", modulus: "100 GPa", rating: BreakingStrength("100 kN")"#;
     let table: Vec<(String, &str, &str)> = vec![
-        (jib(r#"section: Tube(outer: "40 mm", wall: "20 mm"), material: "steel""#, "10 kg", r#"Static(id: "s")"#), "members[0].section.wall", "half the outside diameter"),
-        (jib(r#"section: Tube(outer: "48.3 mm", wall: "3.2 mm"), area: "500 mm^2", material: "steel""#, "10 kg", r#"Static(id: "s")"#), "members[0].area", "disagrees"),
-        (jib(r#"section: SolidRound(diameter: "30 mm"), diameter: "30 mm", material: "steel""#, "10 kg", r#"Static(id: "s")"#), "members[0].diameter", "not both"),
-        (jib(&format!("{CHS_48}, buckling_curve: \"e\""), "10 kg", r#"Static(id: "s")"#), "members[0].buckling_curve", "a0, a, b, c, d"),
-        (jib(&format!("{CHS_48}, effective_length_factor: 0.1"), "10 kg", r#"Static(id: "s")"#), "members[0].effective_length_factor", "between 0.5"),
+        (
+            jib(r#"section: Tube(outer: "40 mm", wall: "20 mm"), material: "steel""#, "10 kg", r#"Static(id: "s")"#),
+            "members[0].section.wall",
+            "half the outside diameter",
+        ),
+        (
+            jib(
+                r#"section: Tube(outer: "48.3 mm", wall: "3.2 mm"), area: "500 mm^2", material: "steel""#,
+                "10 kg",
+                r#"Static(id: "s")"#,
+            ),
+            "members[0].area",
+            "disagrees",
+        ),
+        (
+            jib(
+                r#"section: SolidRound(diameter: "30 mm"), diameter: "30 mm", material: "steel""#,
+                "10 kg",
+                r#"Static(id: "s")"#,
+            ),
+            "members[0].diameter",
+            "not both",
+        ),
+        (
+            jib(&format!("{CHS_48}, buckling_curve: \"e\""), "10 kg", r#"Static(id: "s")"#),
+            "members[0].buckling_curve",
+            "a0, a, b, c, d",
+        ),
+        (
+            jib(&format!("{CHS_48}, effective_length_factor: 0.1"), "10 kg", r#"Static(id: "s")"#),
+            "members[0].effective_length_factor",
+            "between 0.5",
+        ),
         (rope_line(&format!("{wire}, section: SolidRound(diameter: \"30 mm\")")), "members[0].section", "tension only"),
-        (rope_line(&format!("{wire}, termination: HandSplice, termination_efficiency: 0.9")), "members[0].termination", "not both"),
+        (
+            rope_line(&format!("{wire}, termination: HandSplice, termination_efficiency: 0.9")),
+            "members[0].termination",
+            "not both",
+        ),
         (rope_line(r#"kind: Chain, diameter: "9 mm", grade: "80""#), "members[0].diameter", "EN 818-2"),
         (rope_line(r#"kind: Chain, diameter: "10 mm", grade: "100""#), "members[0].rating", "grade 100"),
-        (rope_line(r#"kind: Chain, diameter: "10 mm", grade: "80", design_factor: 5.0"#), "members[0].design_factor", "EN 818-2"),
+        (
+            rope_line(r#"kind: Chain, diameter: "10 mm", grade: "80", design_factor: 5.0"#),
+            "members[0].design_factor",
+            "EN 818-2",
+        ),
         (rope_line(&format!("{wire}, sling: Roundsling")), "members[0].sling", "EN 1492"),
     ];
     for (text, field, needle) in &table {
         refused(text, field, needle);
     }
     // an area that agrees with the section to 0.5 % is accepted (catalogue rounding)
-    let ok = jib(r#"section: Tube(outer: "48.3 mm", wall: "3.2 mm"), area: "4.53 cm^2", material: "steel""#, "10 kg", r#"Static(id: "s")"#);
+    let ok = jib(
+        r#"section: Tube(outer: "48.3 mm", wall: "3.2 mm"), area: "4.53 cm^2", material: "steel""#,
+        "10 kg",
+        r#"Static(id: "s")"#,
+    );
     assert!(load_scenario(&ok).is_ok());
 }
 

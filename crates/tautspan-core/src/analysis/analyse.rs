@@ -552,7 +552,8 @@ fn comparison(
             limits.drop_height_m = limits_from(&ml, w).drop_height_m;
         }
         // a member's allowable in its governing case: a strut's buckling allowable when that case compresses it
-        let governing = utilisation.iter().enumerate().filter_map(|(i, u)| u.map(|u| (i, u))).max_by(|a, b| a.1.total_cmp(&b.1));
+        let governing =
+            utilisation.iter().enumerate().filter_map(|(i, u)| u.map(|u| (i, u))).max_by(|a, b| a.1.total_cmp(&b.1));
         let allowable_n = match governing.and_then(|(i, _)| results[i].members.get(k)) {
             Some(m) if is_member => m.allowable_n,
             _ if is_member => allow.member_n[k],

@@ -2,8 +2,8 @@
 //! load-path results against the allowables, with the state of each.
 
 use super::allowable::{floor_allowable, member_allowable_n};
-use super::strut::{Compression, compression};
 use super::results::{FloorResult, LoadPathResult, MemberResult, NodeResult, State, SupportResult};
+use super::strut::{Compression, compression};
 use crate::library::Carries;
 use crate::model::{Scenario, Support};
 use crate::solve::{Equilibrium, Network, load_paths_from};

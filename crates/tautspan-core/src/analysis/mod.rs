@@ -19,5 +19,5 @@ pub use curves::{ReleaseCurve, release_curve, single_line_swing};
 pub use evaluate::Allowables;
 pub use results::*;
 pub use scope::{Scope, scope};
-pub use strut::{Compression, compression, compression_explanation};
 pub use simulate_case::{CaseSimulation, SimulateRequest, simulate_case};
+pub use strut::{Compression, compression, compression_explanation};

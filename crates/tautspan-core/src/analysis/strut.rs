@@ -92,18 +92,19 @@ pub fn compression_explanation(m: &Member, c: &Compression) -> String {
         Compression::Unchecked(why) => format!("compression not checked for buckling: {why}"),
         Compression::Buckling { allowable_n, check, buckling_length_m } => {
             let k_note = match &m.strut {
-                Some(s) if s.k_from_file => format!("K = {} given in the file", format_number(s.effective_length_factor, 3)),
-                _ => "K = 1.0, pinned at both ends (the default; give effective_length_factor for other end conditions)"
-                    .to_string(),
+                Some(s) if s.k_from_file => {
+                    format!("K = {} given in the file", format_number(s.effective_length_factor, 3))
+                }
+                _ => {
+                    "K = 1.0, pinned at both ends (the default; give effective_length_factor for other end conditions)"
+                        .to_string()
+                }
             };
             let section = m.strut.as_ref().and_then(|s| s.section).map(|s| s.describe()).unwrap_or_default();
             format!(
                 "buckling: {section}, A = {} mm^2, I = {} mm^4; N_cr = pi^2 E I / (K L)^2 = {} with E = {} GPa, K L = {} m ({k_note}; Timoshenko & Gere); lambda = sqrt(A f / N_cr) = {}; {}: chi = {}; N_b = chi A f = {} (gamma_M1 = 1) / design factor {} = {} compression allowable; source: {}",
                 format_number(m.area.value * 1e6, 4),
-                format_number(
-                    m.strut.as_ref().and_then(|s| s.section).map_or(0.0, |s| s.second_moment_m4()) * 1e12,
-                    4
-                ),
+                format_number(m.strut.as_ref().and_then(|s| s.section).map_or(0.0, |s| s.second_moment_m4()) * 1e12, 4),
                 kn(check.euler_n),
                 format_number(m.axial_stiffness.value / m.area.value / 1e9, 4),
                 format_number(*buckling_length_m, 4),

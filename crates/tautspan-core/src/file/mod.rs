@@ -6,8 +6,8 @@ mod locate;
 mod read;
 mod write;
 
-pub use dto::{CaseDto, FloorDto, MassDto, MemberDto, NodeDto, Position, Qty, RatingDto, ScenarioDto, SupportDto};
 pub use dto::SectionDto;
+pub use dto::{CaseDto, FloorDto, MassDto, MemberDto, NodeDto, Position, Qty, RatingDto, ScenarioDto, SupportDto};
 pub use error::{FileError, FileErrors};
 pub use locate::{Location, SpanIndex};
 pub use read::{FORMAT_WRITTEN, FORMATS_READ, MAX_FILE_BYTES, parse_scenario_text, ron_options};

@@ -93,10 +93,9 @@ impl ChainGrade {
     /// in it.
     pub fn tabulated_wll_kg(self, d_m: f64) -> Option<f64> {
         match self {
-            ChainGrade::Grade80 => GRADE_80_WLL_T
-                .iter()
-                .find(|(d, _)| (d - d_m * 1e3).abs() < 0.01)
-                .map(|(_, t)| t * 1e3),
+            ChainGrade::Grade80 => {
+                GRADE_80_WLL_T.iter().find(|(d, _)| (d - d_m * 1e3).abs() < 0.01).map(|(_, t)| t * 1e3)
+            }
             ChainGrade::Grade100 => None,
         }
     }
@@ -104,11 +103,7 @@ impl ChainGrade {
     /// The tabulated sizes, for messages.
     pub fn tabulated_sizes(self) -> String {
         match self {
-            ChainGrade::Grade80 => GRADE_80_WLL_T
-                .iter()
-                .map(|(d, _)| format!("{d}"))
-                .collect::<Vec<_>>()
-                .join(", "),
+            ChainGrade::Grade80 => GRADE_80_WLL_T.iter().map(|(d, _)| format!("{d}")).collect::<Vec<_>>().join(", "),
             ChainGrade::Grade100 => String::new(),
         }
     }

@@ -32,10 +32,9 @@ impl Duty {
             Duty::OverPeople => {
                 (2.0, "over people: twice the normal design factor (EN 1492-1 guidance; common practice)")
             }
-            Duty::LiftingPersons => (
-                2.0,
-                "lifting persons: design factors doubled (EU 2006/42/EC Annex I 6.1.1, from memory)",
-            ),
+            Duty::LiftingPersons => {
+                (2.0, "lifting persons: design factors doubled (EU 2006/42/EC Annex I 6.1.1, from memory)")
+            }
         }
     }
 

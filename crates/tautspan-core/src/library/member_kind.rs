@@ -97,10 +97,7 @@ impl MemberKind {
         };
         match duty.multiplier() {
             (m, _) if m == 1.0 => base,
-            (m, why) => DefaultFactor {
-                value: base.value * m,
-                source: format!("{} x {m} for {why}", base.source),
-            },
+            (m, why) => DefaultFactor { value: base.value * m, source: format!("{} x {m} for {why}", base.source) },
         }
     }
 }

@@ -17,8 +17,8 @@ pub use buckling::{
     euler_load_n, reduction_factor, steel_tube_class_4,
 };
 pub use chain::{ChainGrade, chain_area_m2, chain_linear_mass_kg_m};
-pub use fibre_rope::{default_elongation_at_20pct, fibre_axial_stiffness_n, fibre_linear_mass_kg_m};
 pub use duty::Duty;
+pub use fibre_rope::{default_elongation_at_20pct, fibre_axial_stiffness_n, fibre_linear_mass_kg_m};
 pub use material::{Material, MaterialData};
 pub use member_kind::{Carries, DefaultFactor, MemberKind};
 pub use slab::{Edges, flexural_rigidity, point_load_coefficient, point_stiffness_n_per_m};

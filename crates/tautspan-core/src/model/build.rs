@@ -788,13 +788,15 @@ fn build_member(ctx: &mut Ctx, i: usize, m: &MemberDto, duty: Duty) -> Option<Me
             None
         }
         (Some(_), None, k) if !matches!(k, MemberKind::WireRope | MemberKind::Cable) => {
-            ctx.err(p("termination"), format!("a wire rope termination applies to wire rope or cable, not to {}", k.label()));
+            ctx.err(
+                p("termination"),
+                format!("a wire rope termination applies to wire rope or cable, not to {}", k.label()),
+            );
             None
         }
-        (Some(t), None, _) => Some((
-            t.efficiency(),
-            format!("termination {} {} ({})", t.label(), t.efficiency(), t.source()),
-        )),
+        (Some(t), None, _) => {
+            Some((t.efficiency(), format!("termination {} {} ({})", t.label(), t.efficiency(), t.source())))
+        }
         (None, None, MemberKind::WireRope) => Some((
             UNSTATED_TERMINATION_EFFICIENCY,
             format!(
