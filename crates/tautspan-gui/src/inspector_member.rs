@@ -8,7 +8,7 @@ use crate::inspector::{InspectorInput, item_problems};
 use crate::qty_field::{FieldBuffers, QtyField};
 use crate::units_display::{Shown, fmt_utilisation};
 use egui::{RichText, Ui};
-use tautspan_core::file::{Qty, RatingDto};
+use tautspan_core::file::{Qty, RatingDto, SectionDto};
 use tautspan_core::library::{ChainGrade, Construction, Material, MemberKind, ROPE_GRADES};
 use tautspan_core::units::{Dimension, Sign};
 
@@ -108,6 +108,9 @@ pub fn ui(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, bufs: &mut FieldBuf
                 }
             }),
         );
+        if m.kind == MemberKind::Rod {
+            section_fields(ui, input, i, bufs, out);
+        }
         if matches!(m.kind, MemberKind::WireRope | MemberKind::Cable) {
             let names: Vec<&str> = Construction::ALL.iter().map(|c| c.name()).collect();
             if let Some(c) = picker(ui, "Construction", "construction", m.construction.as_deref(), &names, "none") {
@@ -263,6 +266,76 @@ fn rating(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, bufs: &mut FieldBuf
                     Some(RatingDto::WorkingLoadLimit(_)) => Some(RatingDto::WorkingLoadLimit(q)),
                     Some(RatingDto::Yield(_)) => Some(RatingDto::Yield(q)),
                     _ => Some(RatingDto::BreakingStrength(q)),
+                };
+            }
+        }),
+    );
+}
+
+/// A rod's section: outside diameter and wall (no wall: a solid round), for
+/// the buckling check in compression.
+fn section_fields(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, bufs: &mut FieldBuffers, out: &mut Vec<Command>) {
+    let m = &input.doc.dto.members[i];
+    let (outer, wall) = match &m.section {
+        Some(SectionDto::Tube { outer, wall }) => (Some(outer), Some(wall)),
+        Some(SectionDto::SolidRound { diameter }) => (Some(diameter), None),
+        None => (None, None),
+    };
+    let p = |s: &str| format!("members[{i}].{s}");
+    let u = input.units;
+    QtyField {
+        label: "Section outside ⌀",
+        path: p("section.outer"),
+        current: outer,
+        dimension: Dimension::Length,
+        sign: Sign::Positive,
+        optional: true,
+        hint: "for the buckling check",
+    }
+    .show(
+        ui,
+        bufs,
+        input.derived,
+        out,
+        Box::new(move |d, q| {
+            if let Some(m) = d.members.get_mut(i) {
+                let wall = match m.section.take() {
+                    Some(SectionDto::Tube { wall, .. }) => Some(wall),
+                    _ => None,
+                };
+                m.section = match (q, wall) {
+                    (Some(outer), Some(wall)) => Some(SectionDto::Tube { outer, wall }),
+                    (Some(diameter), None) => Some(SectionDto::SolidRound { diameter }),
+                    (None, _) => None,
+                };
+            }
+        }),
+    );
+    QtyField {
+        label: "Section wall",
+        path: p("section.wall"),
+        current: wall,
+        dimension: Dimension::Length,
+        sign: Sign::Positive,
+        optional: true,
+        hint: u.unit(Shown::SmallLength),
+    }
+    .show(
+        ui,
+        bufs,
+        input.derived,
+        out,
+        Box::new(move |d, q| {
+            if let Some(m) = d.members.get_mut(i) {
+                let outer = match m.section.take() {
+                    Some(SectionDto::Tube { outer, .. }) => Some(outer),
+                    Some(SectionDto::SolidRound { diameter }) => Some(diameter),
+                    None => None,
+                };
+                m.section = match (outer, q) {
+                    (Some(outer), Some(wall)) => Some(SectionDto::Tube { outer, wall }),
+                    (Some(diameter), None) => Some(SectionDto::SolidRound { diameter }),
+                    (None, _) => None,
                 };
             }
         }),

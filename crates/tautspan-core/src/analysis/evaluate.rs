@@ -127,10 +127,10 @@ pub fn evaluate(s: &Scenario, net: &Network, a: &Allowables, loads: &[[f64; 3]],
             let slack = m.kind.carries() == Carries::TensionOnly && force <= 0.0;
             let reason = match (&a.member_compression[i], allowable) {
                 (Compression::Unchecked(why), None) => Some(format!(
-                    "{} {} in compression {}: {why}; allowable and utilisation shown are on yield only, an upper bound",
+                    "{} {} in compression {} kN: {why}; allowable and utilisation shown are on yield only, an upper bound",
                     m.kind.label(),
                     m.id,
-                    format!("{} kN", crate::units::format_number(-force / 1e3, 4))
+                    crate::units::format_number(-force / 1e3, 4)
                 )),
                 _ => None,
             };

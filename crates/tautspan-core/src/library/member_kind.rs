@@ -96,7 +96,7 @@ impl MemberKind {
             None => self.default_design_factor(),
         };
         match duty.multiplier() {
-            (m, _) if m == 1.0 => base,
+            (1.0, _) => base,
             (m, why) => DefaultFactor { value: base.value * m, source: format!("{} x {m} for {why}", base.source) },
         }
     }
