@@ -284,7 +284,7 @@ fn section_fields(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, bufs: &mut 
     let p = |s: &str| format!("members[{i}].{s}");
     let u = input.units;
     QtyField {
-        label: "Section outside ⌀",
+        label: "Section outside diameter",
         path: p("section.outer"),
         current: outer,
         dimension: Dimension::Length,
