@@ -111,6 +111,10 @@ fn strength_row(analysis: &Analysis, m: &Member, units: UnitSystem) -> Vec<Strin
         format!("default: {}", df.default.source)
     };
     let factor = match m.rating {
+        Rating::WorkingLoadLimit(_) if df.duty_multiplier != 1.0 => with_note(
+            &format!("WLL / {}", number(df.duty_multiplier)),
+            &escape(&format!("the working load limit divided for the duty: {}", df.default.source)),
+        ),
         Rating::WorkingLoadLimit(_) => with_note(NONE, "not applied: the working load limit is the allowable"),
         _ => with_note(&number(df.value), &escape(&source)),
     };
