@@ -253,3 +253,24 @@ fn lists_rated_parts_with_rating_and_source() {
     // 1 t = 9.80665 kN printed to 3 significant digits: 9.81 kN
     assert!(doc.contains("9.81\u{a0}kN"));
 }
+
+// The report shows each strut's Euler load and buckling resistance in the
+// case tables, and the compression check (curve, chi, source) in the inputs:
+// the mezzanine tripod's 50 x 3 mm aluminium legs, N_cr = pi^2 x 70 000 x
+// 122 810 / 2850^2 = 10.45 kN by hand (Timoshenko & Gere), class B.
+#[test]
+fn shows_the_buckling_check_of_struts() {
+    let text = std::fs::read_to_string(format!("{}/../../scenarios/mezzanine-hoist.ron", env!("CARGO_MANIFEST_DIR")))
+        .expect("example");
+    let scenario = load(&text);
+    let analysis = analyse(&scenario);
+    let doc = html(&scenario, &analysis, "2025-03-14");
+    assert!(doc.contains("Euler load") && doc.contains("Buckling resistance"));
+    let leg = &analysis.cases[0].members[0];
+    let euler = leg.euler_n.expect("euler");
+    assert!(((euler - 10.45e3) / 10.45e3).abs() < 5e-3, "{euler}");
+    let fmt = |n: f64| tautspan_core::units::format_number(n / 1000.0, 3);
+    assert!(doc.contains(&format!("{}\u{a0}kN", fmt(euler))));
+    assert!(doc.contains("EN 1999-1-1 6.3.1.2, buckling class B") && doc.contains("tube 50 x 3 mm"));
+    assert_well_formed(&doc);
+}

@@ -43,9 +43,9 @@ pub const BRIDLE: &str = r#"Scenario(
         Member(id: "leg-1", ends: ("A1", "J1"), kind: WireRope,
                diameter: "10 mm", construction: "6x19 IWRC", grade: "1770"),
         Member(id: "leg-2", ends: ("A2", "J1"), kind: Chain,
-               diameter: "8 mm", grade: "80", design_factor: 3.5),
+               diameter: "8 mm", grade: "80", rating: BreakingStrength("80.4 kN"), design_factor: 3.5),
         Member(id: "prop", ends: ("J1", "P1"), kind: Rod,
-               diameter: "30 mm", material: "steel"),
+               section: SolidRound(diameter: "30 mm"), material: "steel"),
     ],
     floors: [
         Floor(id: "slab-1", span: ("4 m", "4 m"), thickness: "150 mm",

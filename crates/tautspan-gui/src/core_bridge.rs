@@ -50,6 +50,15 @@ pub fn allowable_explanation(scenario: &Scenario, member: usize) -> String {
     scenario.members.get(member).map(|m| member_allowable(m).explanation).unwrap_or_default()
 }
 
+/// How a rod is checked in compression, in words (section, Euler load,
+/// slenderness, curve, χ and sources; or why it cannot be); `None` for
+/// tension-only members.
+pub fn compression_explanation(scenario: &Scenario, member: usize) -> Option<String> {
+    let m = scenario.members.get(member)?;
+    m.strut.as_ref()?;
+    Some(tautspan_core::analysis::compression_explanation(m, &tautspan_core::analysis::compression(scenario, member)))
+}
+
 /// One point of the peak-force curve.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct CurvePoint {

@@ -5,6 +5,7 @@
 use crate::qty_text::requantify;
 use crate::selection::Selection;
 use crate::units_display::{Shown, UnitSystem};
+use tautspan_core::file::SectionDto;
 use tautspan_core::file::{
     CaseDto, FloorDto, MassDto, MemberDto, NodeDto, Position, Qty, RatingDto, ScenarioDto, SupportDto,
 };
@@ -72,8 +73,21 @@ pub fn default_member(id: String, a: &str, b: &str, kind: MemberKind, units: Uni
             rating: Some(RatingDto::BreakingStrength(Qty::from(if us { "9000 lbf" } else { "40 kN" }))),
             ..base
         },
+        // 10 mm is in the EN 818-2 table; 3/8 in is not, so it carries its
+        // grade 80 WLL, 7,100 lbf (ASTM A391 / NACM, from memory)
+        MemberKind::Chain if us => MemberDto {
+            diameter: q("10 mm", "0.375 in"),
+            grade: Some("80".to_string()),
+            rating: Some(RatingDto::WorkingLoadLimit(Qty::from("7100 lbf"))),
+            ..base
+        },
         MemberKind::Chain => MemberDto { diameter: q("10 mm", "0.375 in"), grade: Some("80".to_string()), ..base },
-        MemberKind::Rod => MemberDto { diameter: q("16 mm", "0.625 in"), material: Some("steel".to_string()), ..base },
+        // a solid round section, so a rod drawn as a strut is checked for buckling
+        MemberKind::Rod => MemberDto {
+            section: q("16 mm", "0.625 in").map(|diameter| SectionDto::SolidRound { diameter }),
+            material: Some("steel".to_string()),
+            ..base
+        },
     }
 }
 

@@ -3,7 +3,7 @@
 //! the stiffness, the case's dynamic load and its formula. All text is the
 //! core's own (notes on the model, explanations of the analysis).
 
-use crate::core_bridge::{Solved, allowable_explanation};
+use crate::core_bridge::{Solved, allowable_explanation, compression_explanation};
 use crate::units_display::{Shown, UnitSystem, fmt_utilisation};
 
 /// The explanation of a member's result in a case.
@@ -30,10 +30,16 @@ pub fn member_result(solved: &Solved, case_id: &str, member_id: &str, units: Uni
         ));
     }
     lines.push(format!("Allowable: {}", allowable_explanation(s, idx)));
+    if let Some(c) = compression_explanation(s, idx) {
+        lines.push(format!("In compression: {c}"));
+    }
+    if let Some(reason) = r.and_then(|r| r.reason.as_ref()) {
+        lines.push(format!("Unchecked: {reason}"));
+    }
     lines.push(format!(
         "Design factor {}{}; default {} from {}.",
         m.design_factor.value,
-        if m.design_factor.from_file { " (set in the file)" } else { " (the kind's default)" },
+        if m.design_factor.from_file { " (set in the file)" } else { " (the default)" },
         m.design_factor.default.value,
         m.design_factor.default.source
     ));

@@ -8,7 +8,7 @@ use crate::inspector::{InspectorInput, item_problems};
 use crate::qty_field::{FieldBuffers, QtyField};
 use crate::units_display::{Shown, fmt_utilisation};
 use egui::{RichText, Ui};
-use tautspan_core::file::{Qty, RatingDto};
+use tautspan_core::file::{Qty, RatingDto, SectionDto};
 use tautspan_core::library::{ChainGrade, Construction, Material, MemberKind, ROPE_GRADES};
 use tautspan_core::units::{Dimension, Sign};
 
@@ -108,6 +108,9 @@ pub fn ui(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, bufs: &mut FieldBuf
                 }
             }),
         );
+        if m.kind == MemberKind::Rod {
+            section_fields(ui, input, i, bufs, out);
+        }
         if matches!(m.kind, MemberKind::WireRope | MemberKind::Cable) {
             let names: Vec<&str> = Construction::ALL.iter().map(|c| c.name()).collect();
             if let Some(c) = picker(ui, "Construction", "construction", m.construction.as_deref(), &names, "none") {
@@ -269,9 +272,85 @@ fn rating(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, bufs: &mut FieldBuf
     );
 }
 
+/// A rod's section: outside diameter and wall (no wall: a solid round), for
+/// the buckling check in compression.
+fn section_fields(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, bufs: &mut FieldBuffers, out: &mut Vec<Command>) {
+    let m = &input.doc.dto.members[i];
+    let (outer, wall) = match &m.section {
+        Some(SectionDto::Tube { outer, wall }) => (Some(outer), Some(wall)),
+        Some(SectionDto::SolidRound { diameter }) => (Some(diameter), None),
+        None => (None, None),
+    };
+    let p = |s: &str| format!("members[{i}].{s}");
+    let u = input.units;
+    QtyField {
+        label: "Section outside diameter",
+        path: p("section.outer"),
+        current: outer,
+        dimension: Dimension::Length,
+        sign: Sign::Positive,
+        optional: true,
+        hint: "for the buckling check",
+    }
+    .show(
+        ui,
+        bufs,
+        input.derived,
+        out,
+        Box::new(move |d, q| {
+            if let Some(m) = d.members.get_mut(i) {
+                let wall = match m.section.take() {
+                    Some(SectionDto::Tube { wall, .. }) => Some(wall),
+                    _ => None,
+                };
+                m.section = match (q, wall) {
+                    (Some(outer), Some(wall)) => Some(SectionDto::Tube { outer, wall }),
+                    (Some(diameter), None) => Some(SectionDto::SolidRound { diameter }),
+                    (None, _) => None,
+                };
+            }
+        }),
+    );
+    QtyField {
+        label: "Section wall",
+        path: p("section.wall"),
+        current: wall,
+        dimension: Dimension::Length,
+        sign: Sign::Positive,
+        optional: true,
+        hint: u.unit(Shown::SmallLength),
+    }
+    .show(
+        ui,
+        bufs,
+        input.derived,
+        out,
+        Box::new(move |d, q| {
+            if let Some(m) = d.members.get_mut(i) {
+                let outer = match m.section.take() {
+                    Some(SectionDto::Tube { outer, .. }) => Some(outer),
+                    Some(SectionDto::SolidRound { diameter }) => Some(diameter),
+                    None => None,
+                };
+                m.section = match (outer, q) {
+                    (Some(outer), Some(wall)) => Some(SectionDto::Tube { outer, wall }),
+                    (Some(diameter), None) => Some(SectionDto::SolidRound { diameter }),
+                    (None, _) => None,
+                };
+            }
+        }),
+    );
+}
+
 fn design_factor(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, out: &mut Vec<Command>) {
     let m = &input.doc.dto.members[i];
-    let default = m.kind.default_design_factor();
+    // the default the core found (the sling standard's, raised for the duty) when solved; else the kind's
+    let default = input
+        .derived
+        .solved
+        .as_ref()
+        .and_then(|s| s.scenario.members.iter().find(|x| x.id == m.id))
+        .map_or_else(|| m.kind.default_design_factor(), |x| x.design_factor.default.clone());
     let l = ui.label("Design factor");
     ui.vertical(|ui| {
         ui.horizontal(|ui| {
@@ -304,7 +383,7 @@ fn design_factor(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, out: &mut Ve
         let text = RichText::new(format!("default {} — {}", default.value, default.source)).small();
         ui.label(if below { text.color(crate::qty_field::ERROR) } else { text.weak() });
         if below {
-            ui.label(RichText::new("below the kind's default").small().color(crate::qty_field::ERROR));
+            ui.label(RichText::new("below the default").small().color(crate::qty_field::ERROR));
         }
     });
     ui.end_row();
@@ -337,6 +416,14 @@ fn result(ui: &mut Ui, input: &InspectorInput<'_>, member_id: &str) {
         ui.label(RichText::new(format!("Unchecked: {reason}")).color(crate::qty_field::ERROR));
     }
     crate::parts_view::fittings(ui, &r.fittings, u);
+    if let (Some(e), Some(b)) = (r.euler_n, r.buckling_resistance_n) {
+        ui.label(format!(
+            "Euler load {}, buckling resistance χ·A·f_y {}",
+            u.fmt(e, Shown::Force),
+            u.fmt(b, Shown::Force)
+        ))
+        .on_hover_text(crate::explain::member_result(solved, &case.id, member_id, u));
+    }
     if let Some(row) = solved.analysis.comparison.iter().find(|c| c.id == member_id) {
         if let Some(deg) = row.limits.release_deg {
             ui.label(format!("Largest release angle inside the allowable: {deg:.1}°"));

@@ -3,7 +3,9 @@
 //! Members: allowable = rated strength × efficiency ÷ design factor, where
 //! the rated strength is the minimum breaking strength (rope, chain, cable),
 //! or yield stress × area (rods); a working load limit given directly is the
-//! allowable as is. Floors: the governing (smaller) of the rated
+//! allowable as is (divided by the duty's multiplier over people or
+//! lifting persons). This is the tension allowable; a rod in compression is
+//! checked against its buckling resistance (`strut.rs`). Floors: the governing (smaller) of the rated
 //! concentrated load and the rated uniform load over the panel's tributary
 //! area (span × span), with the deflection checked separately against
 //! span / limit.
@@ -29,7 +31,7 @@ fn kn(v: f64) -> String {
 pub fn member_allowable_n(m: &Member) -> f64 {
     match m.rating {
         Rating::BreakingStrength(f) => f.value * m.efficiency / m.design_factor.value,
-        Rating::WorkingLoadLimit(f) => f.value,
+        Rating::WorkingLoadLimit(f) => f.value / m.design_factor.duty_multiplier,
         Rating::Yield(fy) => fy.value * m.area.value / m.design_factor.value,
     }
 }
@@ -61,6 +63,17 @@ pub fn member_allowable(m: &Member) -> Allowable {
                 ),
             }
         }
+        Rating::WorkingLoadLimit(f) if df.duty_multiplier != 1.0 => Allowable {
+            force_n: member_allowable_n(m),
+            explanation: format!(
+                "working load limit {} / {} for the duty ({}) = {} ({})",
+                kn(f.value),
+                format_number(df.duty_multiplier, 3),
+                df.default.source,
+                kn(member_allowable_n(m)),
+                m.rating_note
+            ),
+        },
         Rating::WorkingLoadLimit(f) => Allowable {
             force_n: f.value,
             explanation: format!("working load limit {} used as the allowable ({})", kn(f.value), m.rating_note),

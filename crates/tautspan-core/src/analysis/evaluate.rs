@@ -4,6 +4,7 @@
 use super::allowable::{floor_allowable, member_allowable_n};
 use super::fittings::{anchor_rating, member_fittings, node_fittings, part_utilisations};
 use super::results::{FloorResult, LoadPathResult, MemberResult, NodeResult, State, SupportResult};
+use super::strut::{Compression, compression};
 use crate::library::Carries;
 use crate::model::{Scenario, Support};
 use crate::solve::{Equilibrium, Network, load_paths_from};
@@ -11,8 +12,10 @@ use crate::solve::{Equilibrium, Network, load_paths_from};
 /// The allowables of a scenario, computed once.
 #[derive(Debug, Clone)]
 pub struct Allowables {
-    /// Per member, N.
+    /// Per member, N: the tension allowable (and a rod's yield allowable).
     pub member_n: Vec<f64>,
+    /// Per member: how it is checked in compression (a rod's buckling).
+    pub member_compression: Vec<Compression>,
     /// Per floor, N.
     pub floor_n: Vec<f64>,
     /// Per floor, deflection limit, m.
@@ -25,6 +28,7 @@ impl Allowables {
     /// and [`floor_allowable`] where they are shown).
     pub fn of(s: &Scenario) -> Allowables {
         let member_n = s.members.iter().map(member_allowable_n).collect();
+        let member_compression = (0..s.members.len()).map(|i| compression(s, i)).collect();
         let mut floor_n = Vec::new();
         let mut floor_deflection_m = Vec::new();
         for f in &s.floors {
@@ -32,7 +36,28 @@ impl Allowables {
             floor_n.push(a.force_n);
             floor_deflection_m.push(d);
         }
-        Allowables { member_n, floor_n, floor_deflection_m }
+        Allowables { member_n, member_compression, floor_n, floor_deflection_m }
+    }
+}
+
+impl Allowables {
+    /// The allowable of member `i` under axial force `force_n` (tension
+    /// positive): in compression a strut's buckling allowable; `None` when
+    /// its compression cannot be checked.
+    pub fn member_for(&self, i: usize, force_n: f64) -> Option<f64> {
+        match (&self.member_compression[i], force_n < 0.0) {
+            (Compression::Buckling { allowable_n, .. }, true) => Some(*allowable_n),
+            (Compression::Unchecked(_), true) => None,
+            _ => Some(self.member_n[i]),
+        }
+    }
+
+    /// The allowable of member `i` for the limit searches: as
+    /// [`member_for`](Self::member_for), and a strut whose buckling is
+    /// unchecked at its yield allowable (an upper bound: N_b ≤ A f_y; such a
+    /// strut is `unchecked` in every case it is in compression).
+    pub fn member_for_limits(&self, i: usize, force_n: f64) -> f64 {
+        self.member_for(i, force_n).unwrap_or(self.member_n[i])
     }
 }
 
@@ -55,7 +80,8 @@ fn floor_loads(s: &Scenario, eq: &Equilibrium) -> Vec<(f64, f64, bool)> {
 
 /// Utilisation of each member then each floor.
 pub fn utilisations(s: &Scenario, a: &Allowables, eq: &Equilibrium) -> Vec<f64> {
-    let mut u: Vec<f64> = eq.member_force_n.iter().zip(&a.member_n).map(|(f, al)| f.abs() / al).collect();
+    let mut u: Vec<f64> =
+        eq.member_force_n.iter().enumerate().map(|(i, f)| f.abs() / a.member_for_limits(i, *f)).collect();
     for (k, (force, defl, _)) in floor_loads(s, eq).iter().enumerate() {
         u.push(f64::max(force / a.floor_n[k], defl / a.floor_deflection_m[k]));
     }
@@ -90,8 +116,19 @@ pub fn evaluate(s: &Scenario, net: &Network, a: &Allowables, loads: &[[f64; 3]],
             let [pa, pb] = [eq.positions_m[m.ends[0]], eq.positions_m[m.ends[1]]];
             let dy = (pb[1] - pa[1]).abs();
             let angle = if length > 0.0 { (dy / length).clamp(0.0, 1.0).asin().to_degrees() } else { 0.0 };
-            let utilisation = force.abs() / a.member_n[i];
+            let allowable = a.member_for(i, force);
+            let allowable_n = allowable.unwrap_or(a.member_n[i]);
+            let utilisation = force.abs() / allowable_n;
             let slack = m.kind.carries() == Carries::TensionOnly && force <= 0.0;
+            let reason = match (&a.member_compression[i], allowable) {
+                (Compression::Unchecked(why), None) => Some(format!(
+                    "{} {} in compression {} kN: {why}; allowable and utilisation shown are on yield only, an upper bound",
+                    m.kind.label(),
+                    m.id,
+                    crate::units::format_number(-force / 1e3, 4)
+                )),
+                _ => None,
+            };
             // d = w⊥ L² / (8 T), w⊥ = μ g cos α (Irvine, Cable Structures, parabolic sag)
             let w_across = m.linear_mass.value * s.gravity_m_s2() * angle.to_radians().cos();
             let sag_m = if force > 0.0 && w_across > 0.0 { w_across * length * length / (8.0 * force) } else { 0.0 };
@@ -100,15 +137,23 @@ pub fn evaluate(s: &Scenario, net: &Network, a: &Allowables, loads: &[[f64; 3]],
             MemberResult {
                 id: m.id.clone(),
                 force_n: force,
-                allowable_n: a.member_n[i],
+                allowable_n,
                 utilisation,
-                state: if slack { State::Slack } else { state_of(utilisation, s.near_limit) },
+                state: if slack {
+                    State::Slack
+                } else if reason.is_some() {
+                    State::Unchecked
+                } else {
+                    state_of(utilisation, s.near_limit)
+                },
                 stretch_m: length - net.members[i].rest_length_m,
                 length_m: length,
                 sling_angle_deg: angle,
                 sag_m,
                 wave_transit_s: m.wave_speed_m_s.map(|c| length / c),
-                reason: None,
+                reason,
+                euler_n: a.member_compression[i].euler_n(),
+                buckling_resistance_n: a.member_compression[i].resistance_n(),
                 peak_at_deg: None,
                 fittings: member_fittings(s, i, eq),
             }

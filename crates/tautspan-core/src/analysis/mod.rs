@@ -11,6 +11,7 @@ mod limits;
 pub mod results;
 mod scope;
 mod simulate_case;
+mod strut;
 mod swing_arc;
 mod warnings;
 
@@ -22,4 +23,5 @@ pub use fittings::node_load_n;
 pub use results::*;
 pub use scope::{Scope, scope};
 pub use simulate_case::{CaseSimulation, SimulateRequest, simulate_case};
+pub use strut::{Compression, compression, compression_explanation};
 pub use swing_arc::{GRID_STEP_DEG, PEAK_TOLERANCE, arc_loads};

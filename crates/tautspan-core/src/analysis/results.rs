@@ -64,6 +64,12 @@ pub struct MemberResult {
     /// Why the member is `unchecked`, when it is.
     #[serde(skip_serializing_if = "Option::is_none")]
     pub reason: Option<String>,
+    /// A rod's Euler load `π² E I / (K L)²`, N; `None` where not a strut
+    /// or its buckling cannot be found.
+    pub euler_n: Option<f64>,
+    /// A rod's buckling resistance `χ A f_y` (γ_M1 = 1, before the design
+    /// factor), N; `None` where not a strut or not found.
+    pub buckling_resistance_n: Option<f64>,
     /// Swing cases: the angle of the arc where this member peaks, degrees.
     #[serde(skip_serializing_if = "Option::is_none")]
     pub peak_at_deg: Option<f64>,

@@ -33,6 +33,10 @@ fn has_drop(s: &Scenario) -> bool {
     s.cases.iter().any(|c| matches!(c, Case::Drop { .. } | Case::Sudden { .. }))
 }
 
+fn has_rod(s: &Scenario) -> bool {
+    s.members.iter().any(|m| m.strut.is_some())
+}
+
 fn has_floor(s: &Scenario) -> bool {
     !s.floors.is_empty()
 }
@@ -52,6 +56,10 @@ const CHECKED: &[Entry] = &[
         applies: always,
     },
     Entry { text: "members meant to carry that go slack", applies: always },
+    Entry {
+        text: "rods in compression: flexural buckling (Euler load, EN 1993-1-1 6.3.1 curves for steel, EN 1999-1-1 6.3.1 for aluminium alloy, EN 1993-1-4 5.4.2 for stainless hollow sections), buckling length K L from the member's length",
+        applies: has_rod,
+    },
     Entry {
         text: "swing: every member over the whole arc from -release to +release (quasi-static, rigid line)",
         applies: has_swing,
@@ -78,6 +86,10 @@ const NOT_CHECKED: &[Entry] = &[
     Entry { text: "anchors without a rating: only their reaction is shown", applies: has_unrated_anchor },
     Entry { text: "the structure behind each anchor beyond the reaction shown", applies: always },
     Entry { text: "bending, shear and torsion of members (axial force only)", applies: always },
+    Entry {
+        text: "rods: buckling of a rod without a section, without a yield rating or of a material without a curve (reported unchecked; the limits take it at its yield allowable); local buckling of aluminium and stainless tube walls; torsional and lateral buckling; the effective length beyond the K given",
+        applies: has_rod,
+    },
     Entry { text: "wear, corrosion, damage, fatigue and inspection state of the gear", applies: always },
     Entry { text: "wind, snow, temperature and other environmental loads", applies: always },
     Entry {

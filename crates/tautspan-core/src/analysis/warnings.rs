@@ -58,9 +58,14 @@ pub fn case_warnings(s: &Scenario, case: &Case, r: &CaseResult, static_r: Option
             State::Over => push(
                 &m.id,
                 msg(format_args!(
-                    "member {}: {} is over its allowable {} by {} (utilisation {})",
+                    "member {}: {} is over its {} {} by {} (utilisation {})",
                     m.id,
                     Kn(m.force_n.abs()),
+                    if m.force_n < 0.0 && m.buckling_resistance_n.is_some() {
+                        "buckling allowable (compression)"
+                    } else {
+                        "allowable"
+                    },
                     Kn(m.allowable_n),
                     Pct(m.utilisation - 1.0),
                     Sig(m.utilisation, 3)
@@ -119,16 +124,6 @@ pub fn case_warnings(s: &Scenario, case: &Case, r: &CaseResult, static_r: Option
                     )),
                 );
             }
-        }
-        if member.kind == MemberKind::Rod && m.force_n < 0.0 {
-            push(
-                &m.id,
-                msg(format_args!(
-                    "member {}: rod in compression ({}); buckling is not checked by this tool",
-                    m.id,
-                    Kn(-m.force_n)
-                )),
-            );
         }
         let strain = if m.length_m > 0.0 { m.stretch_m / (m.length_m - m.stretch_m) } else { 0.0 };
         let steel =

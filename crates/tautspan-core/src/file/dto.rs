@@ -228,10 +228,43 @@ pub struct MemberDto {
     /// True where the member may go slack in some case without that being a fault.
     #[serde(default, skip_serializing_if = "std::ops::Not::not")]
     pub may_go_slack: bool,
+    /// Rod: its cross-section, for the buckling check in compression.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub section: Option<SectionDto>,
+    /// Rod: buckling curve (steel `a0`…`d`, EN 1993-1-1 Table 6.1; aluminium class `A` or `B`, EN 1999-1-1).
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub buckling_curve: Option<String>,
+    /// Rod: effective length factor K (buckling length K L); omitted = 1.0, pinned at both ends.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub effective_length_factor: Option<f64>,
+    /// Wire rope: how its ends are made, for the termination efficiency (EN 13414-1).
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub termination: Option<crate::library::Termination>,
+    /// Fibre rope used as a textile sling (EN 1492-1/-2/-4): design factor 7.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub sling: Option<crate::library::TextileSling>,
     // rated parts in series with the member
     /// Fittings in series (shackles, hooks, links, eye bolts, hoists, named parts).
     #[serde(default, skip_serializing_if = "Vec::is_empty")]
     pub fittings: Vec<super::fitting::FittingDto>,
+}
+
+/// A rod's cross-section as written.
+#[derive(Debug, Clone, PartialEq, Eq, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub enum SectionDto {
+    /// Circular hollow section.
+    Tube {
+        /// Outside diameter.
+        outer: Qty,
+        /// Wall thickness.
+        wall: Qty,
+    },
+    /// Solid round bar.
+    SolidRound {
+        /// Diameter.
+        diameter: Qty,
+    },
 }
 
 /// A floor slab as written.
@@ -356,6 +389,9 @@ pub struct ScenarioDto {
     /// Warn when a dynamic case exceeds the static force by more than this multiple (default 2.0).
     #[serde(default, skip_serializing_if = "Option::is_none")]
     pub dynamic_ratio_warning: Option<f64>,
+    /// Over people or lifting persons: raises the default design factors (default standard).
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub duty: Option<crate::library::Duty>,
     /// Nodes.
     #[serde(default)]
     pub nodes: Vec<NodeDto>,

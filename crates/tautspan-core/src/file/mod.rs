@@ -7,6 +7,7 @@ mod locate;
 mod read;
 mod write;
 
+pub use dto::SectionDto;
 pub use dto::{CaseDto, FloorDto, MassDto, MemberDto, NodeDto, Position, Qty, RatingDto, ScenarioDto, SupportDto};
 pub use error::{FileError, FileErrors};
 pub use fitting::{Direction, FittingDto};

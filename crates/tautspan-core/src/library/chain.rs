@@ -4,7 +4,11 @@
 //! EN 818-2 (grade 8) and EN 818-7 / grade 100 practice: minimum breaking
 //! force `F = (π/2) d² R`, i.e. the stress R over both legs of a link, with
 //! R = 800 N/mm² for grade 80 and 1000 N/mm² for grade 100. The grade 80
-//! working load limit is F/4 (10 mm: 126 kN → 31.4 kN, the familiar 3.15 t).
+//! working load limit is not F/4 unrounded: EN 818-2 tabulates it (rounded
+//! down, 10 mm: F/4 = 31.4 kN but WLL 3.15 t = 30.9 kN), so a grade 80
+//! chain without a rating takes the table's WLL, and a diameter not in the
+//! table is refused (no interpolation). Grade 100 has no table here: its
+//! WLL must be given.
 
 use serde::{Deserialize, Serialize};
 
@@ -58,6 +62,53 @@ impl ChainGrade {
     }
 }
 
+/// EN 818-2 grade 8, single leg: working load limit in tonnes by nominal
+/// diameter in mm (from memory, not re-read; the grade 4 table of EN 818-3
+/// found in a public copy, 7 mm 0.75 t … 45 mm 31.5 t, is half of it to
+/// within the R20 rounding, as the grades' stresses 400 and 800 N/mm² imply).
+pub const GRADE_80_WLL_T: [(f64, f64); 18] = [
+    (6.0, 1.12),
+    (7.0, 1.5),
+    (8.0, 2.0),
+    (10.0, 3.15),
+    (13.0, 5.3),
+    (16.0, 8.0),
+    (18.0, 10.0),
+    (19.0, 11.2),
+    (20.0, 12.5),
+    (22.0, 15.0),
+    (23.0, 16.0),
+    (25.0, 20.0),
+    (26.0, 21.2),
+    (28.0, 25.0),
+    (32.0, 31.5),
+    (36.0, 40.0),
+    (40.0, 50.0),
+    (45.0, 63.0),
+];
+
+impl ChainGrade {
+    /// The tabulated single-leg working load limit for nominal diameter
+    /// `d_m`, kg; `None` when the grade has no table here or the size is not
+    /// in it.
+    pub fn tabulated_wll_kg(self, d_m: f64) -> Option<f64> {
+        match self {
+            ChainGrade::Grade80 => {
+                GRADE_80_WLL_T.iter().find(|(d, _)| (d - d_m * 1e3).abs() < 0.01).map(|(_, t)| t * 1e3)
+            }
+            ChainGrade::Grade100 => None,
+        }
+    }
+
+    /// The tabulated sizes, for messages.
+    pub fn tabulated_sizes(self) -> String {
+        match self {
+            ChainGrade::Grade80 => GRADE_80_WLL_T.iter().map(|(d, _)| format!("{d}")).collect::<Vec<_>>().join(", "),
+            ChainGrade::Grade100 => String::new(),
+        }
+    }
+}
+
 /// Steel area of both legs of a link, m²; with E of steel this gives the
 /// chain's axial stiffness. Link bending makes a real chain softer, so the
 /// stiffness is an upper bound (which makes drop forces conservative).
@@ -85,5 +136,24 @@ mod tests {
             assert!(((f - kn) / kn).abs() < 0.01, "{d_mm}: {f}");
         }
         assert_eq!(ChainGrade::from_name("G100"), Some(ChainGrade::Grade100));
+    }
+
+    // EN 818-2 grade 8 single-leg WLL (from memory; REFERENCES "Chain slings
+    // grade 8"): 6 mm 1.12 t, 7 mm 1.5, 8 mm 2.0, 10 mm 3.15, 13 mm 5.3,
+    // 16 mm 8.0. Exact table values. 9 mm and 12 mm are not in the table.
+    #[test]
+    fn grade_80_tabulated_wll() {
+        for (d_mm, t) in [(6.0, 1.12), (7.0, 1.5), (8.0, 2.0), (10.0, 3.15), (13.0, 5.3), (16.0, 8.0)] {
+            let kg = ChainGrade::Grade80.tabulated_wll_kg(d_mm * 1e-3).unwrap();
+            assert!((kg - t * 1e3).abs() < 1e-9, "{d_mm}: {kg}");
+        }
+        assert_eq!(ChainGrade::Grade80.tabulated_wll_kg(9e-3), None);
+        assert_eq!(ChainGrade::Grade80.tabulated_wll_kg(12e-3), None);
+        assert_eq!(ChainGrade::Grade100.tabulated_wll_kg(10e-3), None);
+        // the table sits below MBF/4 (rounded down), never above it
+        for (d_mm, t) in GRADE_80_WLL_T {
+            let quarter_t = ChainGrade::Grade80.min_breaking_force_n(d_mm * 1e-3) / 4.0 / 9.806_65 / 1e3;
+            assert!(t <= quarter_t * 1.001, "{d_mm} mm: {t} t over MBF/4 = {quarter_t} t");
+        }
     }
 }

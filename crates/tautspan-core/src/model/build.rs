@@ -4,14 +4,15 @@
 //! first) and each names its field path; the file layer adds line and column.
 
 use super::build_fittings::{Host, build_fittings, build_rated};
-use super::scenario::{Case, DesignFactor, Floor, Mass, Member, Node, Rating, Scenario, Support};
-use crate::file::{CaseDto, FloorDto, MemberDto, Qty, RatingDto, ScenarioDto, SupportDto};
+use super::scenario::{Case, DesignFactor, Floor, Mass, Member, Node, Rating, Scenario, Strut, Support};
+use crate::file::{CaseDto, FloorDto, MemberDto, Qty, RatingDto, ScenarioDto, SectionDto, SupportDto};
 use crate::library::{
     ChainGrade, Construction, Material, MemberKind, ROPE_GRADES, chain_area_m2, chain_linear_mass_kg_m,
     default_elongation_at_20pct, fibre_axial_stiffness_n, fibre_linear_mass_kg_m, point_stiffness_n_per_m,
     rope_linear_mass_kg_m,
 };
-use crate::units::{Dimension, Sign, parse_quantity};
+use crate::library::{CurveError, Duty, Section, UNSTATED_TERMINATION_EFFICIENCY, curve_for};
+use crate::units::{Dimension, Sign, format_number, parse_quantity};
 use std::collections::HashMap;
 use uom::si::f64::{Acceleration, Angle, Area, Force, Length, LinearMassDensity, Mass as MassQ, Pressure};
 use uom::si::{
@@ -221,7 +222,7 @@ pub fn build(dto: &ScenarioDto) -> Result<Scenario, Vec<Problem>> {
             );
             continue;
         }
-        if let Some(mut member) = build_member(&mut ctx, i, m) {
+        if let Some(mut member) = build_member(&mut ctx, i, m, dto.duty.unwrap_or_default()) {
             member.ends = [a, b];
             if drawn + member.slack.value <= 1e-9 {
                 ctx.err(
@@ -348,6 +349,7 @@ pub fn build(dto: &ScenarioDto) -> Result<Scenario, Vec<Problem>> {
         gravity: Acceleration::new::<meter_per_second_squared>(gravity),
         near_limit,
         dynamic_ratio_warning,
+        duty: dto.duty.unwrap_or_default(),
         nodes,
         members,
         floors,
@@ -437,9 +439,71 @@ fn fraction(ctx: &mut Ctx, v: Option<f64>, path: impl std::fmt::Display + Copy, 
     }
 }
 
-fn build_member(ctx: &mut Ctx, i: usize, m: &MemberDto) -> Option<Member> {
+/// A rod's section from the file: every length positive, a tube's wall
+/// less than half its outside diameter.
+fn build_section(ctx: &mut Ctx, i: usize, s: &SectionDto) -> Option<Section> {
+    let p = |s: &'static str| Field { section: "members", index: i, name: s };
+    match s {
+        SectionDto::Tube { outer, wall } => {
+            let o = ctx.qty(outer, p("section.outer"), Dimension::Length, Sign::Positive);
+            let t = ctx.qty(wall, p("section.wall"), Dimension::Length, Sign::Positive);
+            let (o, t) = (o?, t?);
+            if t >= o / 2.0 {
+                ctx.err(
+                    p("section.wall"),
+                    format!(
+                        "wall {} mm is not less than half the outside diameter {} mm; for a solid bar write SolidRound(diameter: ...)",
+                        format_number(t * 1e3, 4),
+                        format_number(o * 1e3, 4)
+                    ),
+                );
+                return None;
+            }
+            Some(Section::Tube { outer_m: o, wall_m: t })
+        }
+        SectionDto::SolidRound { diameter } => ctx
+            .qty(diameter, p("section.diameter"), Dimension::Length, Sign::Positive)
+            .map(|d| Section::SolidRound { diameter_m: d }),
+    }
+}
+
+/// Area given beside a section: they must agree to this, relative (a
+/// rounded catalogue area passes; a different tube does not).
+const AREA_AGREEMENT: f64 = 0.005;
+
+/// Effective length factor K when the file gives none: 1.0, both ends pinned
+/// (Euler's fundamental case, Timoshenko & Gere; the system length as
+/// buckling length, EN 1993-1-1 6.3.1.3). Fixed ends shorten it (0.5–0.7),
+/// a free end lengthens it (2.0): give `effective_length_factor` then.
+pub const DEFAULT_EFFECTIVE_LENGTH_FACTOR: f64 = 1.0;
+
+fn build_member(ctx: &mut Ctx, i: usize, m: &MemberDto, duty: Duty) -> Option<Member> {
     let p = |s: &'static str| Field { section: "members", index: i, name: s };
     let kind = m.kind;
+    let section = m.section.as_ref().and_then(|s| build_section(ctx, i, s));
+    if kind != MemberKind::Rod {
+        for (given, name) in [
+            (m.section.is_some(), "section"),
+            (m.buckling_curve.is_some(), "buckling_curve"),
+            (m.effective_length_factor.is_some(), "effective_length_factor"),
+        ] {
+            if given {
+                ctx.err(
+                    p(name),
+                    format!("`{name}` is for the buckling check of a rod; a {} carries tension only", kind.label()),
+                );
+            }
+        }
+    }
+    if m.sling.is_some() && kind != MemberKind::FibreRope {
+        ctx.err(
+            p("sling"),
+            format!(
+                "`sling` marks a fibre member as a textile sling (EN 1492); a {} is not one (wire rope slings take `termination`)",
+                kind.label()
+            ),
+        );
+    }
     let material = material_of(ctx, &m.material, p("material"));
     let diameter = ctx.opt_qty(&m.diameter, p("diameter"), Dimension::Length, Sign::Positive);
     let area_given = ctx.opt_qty(&m.area, p("area"), Dimension::Area, Sign::Positive);
@@ -542,6 +606,26 @@ fn build_member(ctx: &mut Ctx, i: usize, m: &MemberDto) -> Option<Member> {
                 (None, String::new())
             }
         },
+        MemberKind::Rod if section.is_some() || m.section.is_some() => match (section, area_given, diameter) {
+            (None, _, _) => (None, String::new()),
+            (Some(_), _, Some(_)) => {
+                ctx.err(p("diameter"), "give the rod's `section` or its `diameter`, not both");
+                (None, String::new())
+            }
+            (Some(sec), Some(a), None) if (a - sec.area_m2()).abs() > AREA_AGREEMENT * sec.area_m2() => {
+                ctx.err(
+                    p("area"),
+                    format!(
+                        "area {} mm^2 disagrees with the section's {} mm^2 ({}) by more than 0.5 %; leave `area` out or make them agree",
+                        format_number(a * 1e6, 4),
+                        format_number(sec.area_m2() * 1e6, 4),
+                        sec.describe()
+                    ),
+                );
+                (None, String::new())
+            }
+            (Some(sec), _, None) => (Some(sec.area_m2()), format!("{}: pi (D^2 - d^2) / 4", sec.describe())),
+        },
         MemberKind::Rod | MemberKind::FibreRope => match (area_given, circle) {
             (Some(a), _) => (Some(a), "area given".to_string()),
             (None, Some(a)) => (Some(a), "circle of the nominal diameter".to_string()),
@@ -573,9 +657,37 @@ fn build_member(ctx: &mut Ctx, i: usize, m: &MemberDto) -> Option<Member> {
             }
         },
         (None, MemberKind::Chain) => match (diameter, chain_grade) {
-            (Some(d), Some(g)) => {
-                (Rating::BreakingStrength(Force::new::<newton>(g.min_breaking_force_n(d))), g.source().to_string())
-            }
+            (Some(d), Some(g)) => match g.tabulated_wll_kg(d) {
+                Some(kg) => (
+                    Rating::WorkingLoadLimit(Force::new::<newton>(kg * STANDARD_GRAVITY_M_S2)),
+                    format!(
+                        "EN 818-2 grade 8 single-leg working load limit for {} mm: {} t (the standard's table, from memory) x standard gravity",
+                        format_number(d * 1e3, 4),
+                        format_number(kg / 1e3, 4)
+                    ),
+                ),
+                None if g == ChainGrade::Grade80 => {
+                    ctx.err(
+                        p("diameter"),
+                        format!(
+                            "{} mm is not a size in the EN 818-2 grade 8 table ({} mm); give a tabulated size or the chain's `rating: WorkingLoadLimit(\"... t\")` from its certificate",
+                            format_number(d * 1e3, 4),
+                            g.tabulated_sizes()
+                        ),
+                    );
+                    return None;
+                }
+                None => {
+                    ctx.err(
+                        p("rating"),
+                        format!(
+                            "no working load limit table for grade {} chain here: give `rating: WorkingLoadLimit(\"... t\")` from its certificate",
+                            g.name()
+                        ),
+                    );
+                    return None;
+                }
+            },
             _ => {
                 ctx.err(p("rating"), "missing: give `rating` or the chain's `diameter` and `grade` (80 or 100)");
                 return None;
@@ -683,28 +795,94 @@ fn build_member(ctx: &mut Ctx, i: usize, m: &MemberDto) -> Option<Member> {
     };
     let wave_speed_m_s = if linear_mass > 0.0 { Some((ea / linear_mass).sqrt()) } else { None };
 
-    let default = kind.default_design_factor();
+    let default = kind.default_for(m.sling, duty);
+    let duty_multiplier = duty.multiplier().0;
+    if m.design_factor.is_some() && m.rating.is_none() && kind == MemberKind::Chain {
+        ctx.err(
+            p("design_factor"),
+            "the chain's working load limit comes from the EN 818-2 table, which already holds its design factor 4; leave `design_factor` out, or give `rating: BreakingStrength(...)` to apply your own",
+        );
+    }
     let design_factor = match m.design_factor {
         Some(v) => DesignFactor {
             value: ctx.number(v, p("design_factor"), 1.0, 100.0, "a design factor is between 1 and 100")?,
             from_file: true,
             default,
+            duty_multiplier,
         },
-        None => DesignFactor { value: default.value, from_file: false, default },
+        None => DesignFactor { value: default.value, from_file: false, default, duty_multiplier },
     };
-    let te = fraction(ctx, m.termination_efficiency, p("termination_efficiency"), "termination efficiency");
+    let termination_note = match (m.termination, m.termination_efficiency, kind) {
+        (Some(_), Some(_), _) => {
+            ctx.err(
+                p("termination"),
+                "give the rope's `termination` or a `termination_efficiency` that overrides it, not both",
+            );
+            None
+        }
+        (Some(_), None, k) if !matches!(k, MemberKind::WireRope | MemberKind::Cable) => {
+            ctx.err(
+                p("termination"),
+                format!("a wire rope termination applies to wire rope or cable, not to {}", k.label()),
+            );
+            None
+        }
+        (Some(t), None, _) => {
+            Some((t.efficiency(), format!("termination {} {} ({})", t.label(), t.efficiency(), t.source())))
+        }
+        (None, None, MemberKind::WireRope) => Some((
+            UNSTATED_TERMINATION_EFFICIENCY,
+            format!(
+                "termination not stated: {UNSTATED_TERMINATION_EFFICIENCY} taken, the lowest of the common terminations (hand splice, wedge socket, wire rope grips; EN 13414-1 / practice, from memory); give `termination`"
+            ),
+        )),
+        _ => None,
+    };
+    let te = match &termination_note {
+        Some((e, _)) => *e,
+        None => fraction(ctx, m.termination_efficiency, p("termination_efficiency"), "termination efficiency"),
+    };
     let ke = fraction(ctx, m.knot_efficiency, p("knot_efficiency"), "knot efficiency");
     if m.knot_efficiency.is_some() && kind != MemberKind::FibreRope {
         ctx.err(p("knot_efficiency"), "a knot or hitch efficiency applies to fibre rope only");
     }
     let mut parts = Vec::new();
-    if m.termination_efficiency.is_some() {
+    if let Some((_, note)) = &termination_note {
+        parts.push(note.clone());
+    } else if m.termination_efficiency.is_some() {
         parts.push(format!("termination {te}"));
     }
     if m.knot_efficiency.is_some() {
         parts.push(format!("knot {ke} (CI 1401: knots can cut strength by up to half)"));
     }
     let efficiency_note = if parts.is_empty() { "none applied".to_string() } else { parts.join(" x ") };
+
+    let strut = if kind == MemberKind::Rod {
+        let effective_length_factor = match m.effective_length_factor {
+            Some(v) => ctx.number(
+                v,
+                p("effective_length_factor"),
+                0.5,
+                10.0,
+                "the effective length factor K is between 0.5 (both ends fixed) and 10",
+            )?,
+            None => DEFAULT_EFFECTIVE_LENGTH_FACTOR,
+        };
+        let curve = match section {
+            Some(sec) => match curve_for(material, sec, m.buckling_curve.as_deref()) {
+                Ok(c) => Ok(c),
+                Err(CurveError::Unknown(msg)) => {
+                    ctx.err(p("buckling_curve"), msg);
+                    return None;
+                }
+                Err(CurveError::NoCurve(why)) => Err(why),
+            },
+            None => Err("section unknown, give section: Tube(outer, wall) or SolidRound(diameter) for the buckling check (EN 1993-1-1 6.3.1)".to_string()),
+        };
+        Some(Strut { section, curve, effective_length_factor, k_from_file: m.effective_length_factor.is_some() })
+    } else {
+        None
+    };
 
     Some(Member {
         id: m.id.clone(),
@@ -728,5 +906,6 @@ fn build_member(ctx: &mut Ctx, i: usize, m: &MemberDto) -> Option<Member> {
         chain_grade,
         material,
         fittings: build_fittings(ctx, "members", i, Host::Member, &m.fittings),
+        strut,
     })
 }

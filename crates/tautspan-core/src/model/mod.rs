@@ -10,5 +10,6 @@ mod to_network;
 pub use build::{Problem, STANDARD_GRAVITY_M_S2, build};
 pub use fitting::{Fitting, FittingKind};
 pub use load::{Loaded, load_scenario};
+pub use scenario::Strut;
 pub use scenario::{Case, DesignFactor, Floor, Mass, Member, Node, Rating, Scenario, Support};
 pub use to_network::{NetworkLoads, to_network};

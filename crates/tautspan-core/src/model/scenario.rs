@@ -2,7 +2,7 @@
 //! quantity a `uom` quantity, every library lookup done, and each derived
 //! value carrying a note of where it came from so reports can explain it.
 
-use crate::library::{ChainGrade, Construction, DefaultFactor, Edges, Material, MemberKind};
+use crate::library::{ChainGrade, Construction, Curve, DefaultFactor, Duty, Edges, Material, MemberKind, Section};
 use uom::si::f64::{Acceleration, Angle, Area, Force, Length, LinearMassDensity, Mass as MassQ, Pressure};
 
 /// How a node is held.
@@ -50,8 +50,25 @@ pub struct DesignFactor {
     pub value: f64,
     /// True when the file gave it; false when the kind's default applies.
     pub from_file: bool,
-    /// The kind's default and its source.
+    /// The default (the kind's, or the sling standard's, times the duty's
+    /// multiplier) and its source.
     pub default: DefaultFactor,
+    /// The duty's multiplier (1 for standard duty); a working load limit is
+    /// divided by it, as the default design factors are multiplied by it.
+    pub duty_multiplier: f64,
+}
+
+/// A rod's inputs for the buckling check in compression.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Strut {
+    /// Its cross-section, when given.
+    pub section: Option<Section>,
+    /// Its buckling curve, or why there is none (the check is then `unchecked`).
+    pub curve: Result<Curve, String>,
+    /// Effective length factor K.
+    pub effective_length_factor: f64,
+    /// True when the file gave K; false when the default 1.0 (pinned both ends) applies.
+    pub k_from_file: bool,
 }
 
 /// A member, ready for the solver and the checks.
@@ -100,6 +117,8 @@ pub struct Member {
     // rated parts in series with the member
     /// Fittings in series, each checked on the member's force.
     pub fittings: Vec<super::fitting::Fitting>,
+    /// Rods: what the buckling check needs; `None` for tension-only kinds.
+    pub strut: Option<Strut>,
 }
 
 /// A floor slab.
@@ -222,6 +241,8 @@ pub struct Scenario {
     pub near_limit: f64,
     /// Dynamic/static ratio above which a warning is given.
     pub dynamic_ratio_warning: f64,
+    /// Standard, over people or lifting persons.
+    pub duty: Duty,
     /// Nodes.
     pub nodes: Vec<Node>,
     /// Members.

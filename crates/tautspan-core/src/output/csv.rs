@@ -18,7 +18,7 @@ fn opt(v: Option<f64>) -> String {
 }
 
 /// The CSV header line.
-pub const HEADER: &str = "file,case,kind,item,item_type,force_n,allowable_n,utilisation,state,stretch_m,deflection_m,ratio_to_static,governing_case,release_limit_deg,drop_limit_m,sling_angle_from_horizontal_deg";
+pub const HEADER: &str = "file,case,kind,item,item_type,force_n,allowable_n,utilisation,state,stretch_m,deflection_m,ratio_to_static,governing_case,release_limit_deg,drop_limit_m,sling_angle_from_horizontal_deg,euler_n,buckling_resistance_n";
 
 /// The caution line (as a `#` comment) for the top of a CSV output.
 pub fn caution_line() -> String {
@@ -67,6 +67,8 @@ pub fn check_csv_rows(file: &str, a: &Analysis) -> String {
                     lim.0.clone(),
                     lim.1.clone(),
                     num(m.sling_angle_deg),
+                    opt(m.euler_n),
+                    opt(m.buckling_resistance_n),
                 ]
                 .join(","),
             );
@@ -91,6 +93,8 @@ pub fn check_csv_rows(file: &str, a: &Analysis) -> String {
                     field(row.and_then(|r| r.governing_case.as_deref()).unwrap_or("")),
                     lim.0.clone(),
                     lim.1.clone(),
+                    String::new(),
+                    String::new(),
                     String::new(),
                 ]
                 .join(","),
@@ -118,6 +122,8 @@ pub fn check_csv_rows(file: &str, a: &Analysis) -> String {
                     field(row.and_then(|r| r.governing_case.as_deref()).unwrap_or("")),
                     lim.0.clone(),
                     lim.1.clone(),
+                    String::new(),
+                    String::new(),
                     String::new(),
                 ]
                 .join(","),

@@ -124,6 +124,15 @@ fn case_text(c: &CaseResult, out: &mut String) {
         right.push(true);
     }
     out.push_str(&indent(&table(&header, &rows, &right)));
+    for m in &c.members {
+        if let (Some(e), Some(b)) = (m.euler_n, m.buckling_resistance_n) {
+            let _ =
+                writeln!(out, "  strut {}: Euler load {} kN, buckling resistance chi A f_y {} kN", m.id, kn(e), kn(b));
+        }
+        if let Some(r) = &m.reason {
+            let _ = writeln!(out, "  unchecked {}: {r}", m.id);
+        }
+    }
     if !c.floors.is_empty() {
         let rows: Vec<Vec<String>> = c
             .floors

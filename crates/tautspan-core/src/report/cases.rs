@@ -5,7 +5,7 @@
 use super::comparison::state_word;
 use super::escape::escape;
 use super::parts::case_parts;
-use super::table::{NONE, table};
+use super::table::{NONE, table, with_note};
 use super::unit_system::{UnitSystem, degrees, number, percent};
 use super::warnings::{case_items, item};
 use crate::analysis::{Analysis, CaseResult, DynamicLoad};
@@ -95,6 +95,7 @@ fn dynamic(d: &DynamicLoad, units: UnitSystem) -> String {
 }
 
 fn members(c: &CaseResult, units: UnitSystem) -> String {
+    let struts = c.members.iter().any(|m| m.euler_n.is_some() || m.reason.is_some());
     let rows: Vec<Vec<String>> = c
         .members
         .iter()
@@ -109,6 +110,14 @@ fn members(c: &CaseResult, units: UnitSystem) -> String {
                 units.length(m.length_m),
                 degrees(m.sling_angle_deg),
             ];
+            if struts {
+                row.push(m.euler_n.map_or_else(|| NONE.to_string(), |v| units.force(v)));
+                let resistance = m.buckling_resistance_n.map_or_else(|| NONE.to_string(), |v| units.force(v));
+                row.push(match &m.reason {
+                    Some(r) => with_note(&resistance, &escape(r)),
+                    None => resistance,
+                });
+            }
             if c.arc.is_some() {
                 row.push(m.peak_at_deg.map_or_else(|| NONE.to_string(), degrees));
             }
@@ -125,6 +134,9 @@ fn members(c: &CaseResult, units: UnitSystem) -> String {
         "Length",
         "Sling angle (from horizontal)",
     ];
+    if struts {
+        head.extend(["Euler load", "Buckling resistance χ·A·f<sub>y</sub>"]);
+    }
     if c.arc.is_some() {
         head.push("Peak at (arc angle)");
     }

@@ -6,7 +6,7 @@
 use super::escape::escape;
 use super::table::{NONE, table, with_note};
 use super::unit_system::{UnitSystem, number};
-use crate::analysis::Analysis;
+use crate::analysis::{Analysis, compression, compression_explanation};
 use crate::model::{Member, Rating, Scenario};
 
 /// The two member tables: make-up and stiffness; strength.
@@ -15,7 +15,26 @@ pub fn members(scenario: &Scenario, analysis: &Analysis, units: UnitSystem) -> S
         return "<h3>Members</h3><p>None.</p>".to_string();
     }
     let make_up: Vec<Vec<String>> = scenario.members.iter().map(|m| make_up_row(scenario, m, units)).collect();
-    let strength: Vec<Vec<String>> = scenario.members.iter().map(|m| strength_row(analysis, m, units)).collect();
+    let struts = scenario.members.iter().any(|m| m.strut.is_some());
+    let strength: Vec<Vec<String>> = scenario
+        .members
+        .iter()
+        .enumerate()
+        .map(|(i, m)| {
+            let mut row = strength_row(analysis, m, units);
+            if struts {
+                row.push(match m.strut {
+                    Some(_) => escape(&compression_explanation(m, &compression(scenario, i))),
+                    None => NONE.to_string(),
+                });
+            }
+            row
+        })
+        .collect();
+    let mut strength_head = vec!["Member", "Rating", "Efficiency", "Design factor", "Allowable"];
+    if struts {
+        strength_head.push("In compression (buckling)");
+    }
     format!(
         "<h3>Members: make-up and stiffness</h3>{}<h3>Members: strength</h3>{}",
         table(
@@ -23,17 +42,19 @@ pub fn members(scenario: &Scenario, analysis: &Analysis, units: UnitSystem) -> S
             &["Member", "Size", "Material", "Construction or grade", "E·A", "Slack", "Own weight"],
             &make_up
         ),
-        table("inputs-strength", &["Member", "Rating", "Efficiency", "Design factor", "Allowable"], &strength)
+        table("inputs-strength", &strength_head, &strength)
     )
 }
 
 fn make_up_row(scenario: &Scenario, m: &Member, units: UnitSystem) -> Vec<String> {
     let end = |i: usize| scenario.nodes.get(i).map_or_else(String::new, |n| escape(&n.id));
-    let size = match m.diameter {
-        Some(d) => {
+    let section = m.strut.as_ref().and_then(|s| s.section);
+    let size = match (section, m.diameter) {
+        (Some(s), _) => with_note(&escape(&s.describe()), &format!("area {}", units.area(m.area.value))),
+        (None, Some(d)) => {
             with_note(&format!("⌀&nbsp;{}", units.small_length(d.value)), &format!("area {}", units.area(m.area.value)))
         }
-        None => format!("area {}", units.area(m.area.value)),
+        (None, None) => format!("area {}", units.area(m.area.value)),
     };
     let grade = match (m.construction, m.chain_grade) {
         (Some(c), _) => c.name().to_string(),
@@ -90,6 +111,10 @@ fn strength_row(analysis: &Analysis, m: &Member, units: UnitSystem) -> Vec<Strin
         format!("default: {}", df.default.source)
     };
     let factor = match m.rating {
+        Rating::WorkingLoadLimit(_) if df.duty_multiplier != 1.0 => with_note(
+            &format!("WLL / {}", number(df.duty_multiplier)),
+            &escape(&format!("the working load limit divided for the duty: {}", df.default.source)),
+        ),
         Rating::WorkingLoadLimit(_) => with_note(NONE, "not applied: the working load limit is the allowable"),
         _ => with_note(&number(df.value), &escape(&source)),
     };
