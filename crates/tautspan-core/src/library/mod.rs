@@ -2,9 +2,13 @@
 //! fibre rope stiffness, floor slabs. Every value carries its source.
 
 mod chain;
+pub(crate) mod dense;
 mod fibre_rope;
 mod material;
 mod member_kind;
+mod plate_clamped;
+mod plate_navier;
+mod plate_panel;
 mod slab;
 mod wire_rope;
 
@@ -12,5 +16,8 @@ pub use chain::{ChainGrade, chain_area_m2, chain_linear_mass_kg_m};
 pub use fibre_rope::{default_elongation_at_20pct, fibre_axial_stiffness_n, fibre_linear_mass_kg_m};
 pub use material::{Material, MaterialData};
 pub use member_kind::{Carries, DefaultFactor, MemberKind};
+pub use plate_clamped::{ClampedPlate, RITZ_TERMS};
+pub use plate_navier::{FIELD_TERMS, FLEXIBILITY_TERMS, NavierField, navier_flexibility};
+pub use plate_panel::PlatePanel;
 pub use slab::{Edges, flexural_rigidity, point_load_coefficient, point_stiffness_n_per_m};
 pub use wire_rope::{Construction, ROPE_GRADES, rope_linear_mass_kg_m};
