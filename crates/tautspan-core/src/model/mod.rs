@@ -1,11 +1,13 @@
 //! The validated model of a scenario and its construction from file types.
 
 mod build;
+mod floor_feet;
 mod load;
 mod scenario;
 mod to_network;
 
 pub use build::{Problem, STANDARD_GRAVITY_M_S2, build};
 pub use load::{Loaded, load_scenario};
-pub use scenario::{Case, DesignFactor, Floor, Mass, Member, Node, Rating, Scenario, Support};
+pub use floor_feet::EDGE_CLEARANCE_M;
+pub use scenario::{Case, DEFAULT_FRICTION_LIMIT, DesignFactor, Floor, Mass, Member, Node, Rating, Scenario, Support};
 pub use to_network::{NetworkLoads, to_network};
