@@ -5,6 +5,7 @@ mod allowable;
 mod analyse;
 mod curves;
 mod evaluate;
+mod floor_check;
 pub mod formulas;
 mod limits;
 pub mod results;
@@ -12,7 +13,7 @@ mod scope;
 mod simulate_case;
 mod warnings;
 
-pub use allowable::{Allowable, floor_allowable, member_allowable, member_allowable_n};
+pub use allowable::{Allowable, NEEDS_RATED_POINT, floor_allowable, member_allowable, member_allowable_n};
 pub use analyse::{Prior, analyse, analyse_from, assumptions};
 pub use curves::{ReleaseCurve, release_curve, single_line_swing};
 pub use evaluate::Allowables;
