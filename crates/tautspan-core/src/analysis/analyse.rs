@@ -159,13 +159,24 @@ pub fn assumptions(s: &Scenario) -> Vec<String> {
         format!("Gravity {} m/s^2 acting along -y.", format_number(s.gravity_m_s2(), 6)),
         "Members are axial springs k = E A / L0; rope, chain and cable carry tension only, rods carry both; large-displacement equilibrium by damped Newton on the tangent stiffness.".to_string(),
         "Members' own weight is lumped half at each end node.".to_string(),
-        "A node on a floor is held sideways (friction or fixing assumed) and carried vertically by a compression-only spring from plate bending at the slab centre: w = alpha P a^2 / D, D = E t^3 / 12(1 - nu^2) (Timoshenko & Woinowsky-Krieger).".to_string(),
+        "Floors: each foot rests on its panel (a plate of D = E t^3 / 12(1 - nu^2)) and the feet are coupled through it: w_i = sum_j C_ij P_j, C from the Navier series (simply supported, T&W section 28) or a Rayleigh-Ritz solution (clamped), normalised so a load at the panel centre gives T&W's tabulated alpha; each foot is compression-only (a foot the rig would lift carries nothing; the plate under it still deflects from the others).".to_string(),
+        "Floor feet are held sideways; each foot's friction_required = |horizontal reaction| / normal force is checked against the floor's friction_limit (default 0.20: EN 1993-1-8 section 6.2.2(6), base plate on sand-cement mortar). Each foot is checked against rated_point (without it, unchecked); the feet's total against rated_uniform x panel area (necessary, not sufficient); the largest deflection over the panel (grid and refinement; series accuracy about 1e-4 simply supported, 1 % clamped) against span / limit.".to_string(),
         "Swing: lowest-point load m g (3 - 2 cos theta0) on the swinging mass (rigid line, energy and centripetal balance), network solved quasi-statically; limited to 90 deg, beyond which a rope goes slack.".to_string(),
         "Drop: F = W (1 + sqrt(1 + 2 k h / W)) with k the static path stiffness at the mass (Timoshenko & Gere, impact); sudden load: factor 2. Member mass, damping and hysteresis ignored (fibre ropes peak lower).".to_string(),
         "Allowable = rated strength x efficiency / design factor, or a working load limit as given; rods on yield x area.".to_string(),
         "Limits: the case's largest release angle and drop height come from a root search on the full network to 1e-7 on the load factor; each member's own limit is interpolated between solved load factors, or extrapolated linearly beyond them (an estimate for members far from their allowable).".to_string(),
         format!("Near limit from utilisation {}; dynamic/static ratio warning above {}.", format_number(s.near_limit, 3), format_number(s.dynamic_ratio_warning, 3)),
     ]
+    .into_iter()
+    .chain(s.floors.iter().filter(|f| !f.origin_given && !f.feet.is_empty()).map(|f| {
+        format!(
+            "Floor {}: no origin given, so the panel is centred under its feet's centroid, corner at (x, z) = ({} m, {} m); give `origin` for the panel's real place (feet near an edge carry more).",
+            f.id,
+            format_number(f.origin[0].value, 4),
+            format_number(f.origin[1].value, 4)
+        )
+    }))
+    .collect()
 }
 
 /// A previous answer to start from: the scenario it was for and its analysis.
