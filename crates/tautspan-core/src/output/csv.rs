@@ -89,6 +89,31 @@ pub fn check_csv_rows(file: &str, a: &Analysis) -> String {
                 .join(","),
             );
             out.push('\n');
+            for x in &f.feet {
+                // a foot: force its normal force, allowable the rated
+                // concentrated load (empty without one), item "floor/node"
+                out.push_str(
+                    &[
+                        field(file),
+                        field(&c.id),
+                        field(&c.kind),
+                        field(&format!("{}/{}", f.id, x.node)),
+                        "foot".into(),
+                        num(x.normal_force_n),
+                        if x.utilisation.is_some() { num(f.allowable_n) } else { String::new() },
+                        opt(x.utilisation),
+                        x.state.as_str().into(),
+                        String::new(),
+                        String::new(),
+                        String::new(),
+                        String::new(),
+                        lim.0.clone(),
+                        lim.1.clone(),
+                    ]
+                    .join(","),
+                );
+                out.push('\n');
+            }
         }
     }
     out
