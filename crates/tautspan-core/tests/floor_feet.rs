@@ -112,7 +112,9 @@ fn frame(floor_fields: &str, feet: &[(f64, f64)], mass_kg: f64) -> String {
         .collect();
     let legs: String = names[..feet.len()]
         .iter()
-        .map(|n| format!(r#"Member(id: "leg-{n}", ends: ("{n}", "head"), kind: Rod, area: "10 cm^2", material: "steel"),"#))
+        .map(|n| {
+            format!(r#"Member(id: "leg-{n}", ends: ("{n}", "head"), kind: Rod, area: "10 cm^2", material: "steel"),"#)
+        })
         .collect();
     format!(
         r#"Scenario(format: 1, title: "frame",
@@ -189,9 +191,10 @@ fn symmetric_frame_shares_friction_and_deflection() {
 #[test]
 fn no_point_rating_is_unchecked() {
     let feet = [(1.0, 1.0), (3.0, 1.0), (2.0, 3.0)];
-    for fields in
-        [r#"origin: ("0 m", "0 m"), rated_uniform: "5 kPa", friction_limit: 1.0"#, r#"origin: ("0 m", "0 m"), friction_limit: 1.0"#]
-    {
+    for fields in [
+        r#"origin: ("0 m", "0 m"), rated_uniform: "5 kPa", friction_limit: 1.0"#,
+        r#"origin: ("0 m", "0 m"), friction_limit: 1.0"#,
+    ] {
         let l = load_scenario(&tripod(fields, feet, 300.0)).unwrap_or_else(|e| panic!("{e}"));
         let a = analyse(&l.scenario);
         let f = &a.cases[0].floors[0];
@@ -245,4 +248,37 @@ fn foot_off_the_panel_and_missing_origin() {
     assert!((f.origin[1].value - (5.0 / 3.0 - 2.0)).abs() < 1e-12);
     let a = analyse(&l.scenario);
     assert!(a.assumptions.iter().any(|s| s.contains("slab") && s.contains("no origin")), "{:?}", a.assumptions);
+}
+
+/// Every output shows the feet: JSON `feet[]` with the contract's fields
+/// (DESIGN.md "Format 1 additions"), a CSV row per foot, the text table and
+/// the report's feet table; the scope names the coupled feet and friction.
+#[test]
+fn outputs_show_the_feet() {
+    let h = 0.9;
+    let feet = [(2.0 - h, 2.0 - h), (2.0 + h, 2.0 - h), (2.0 + h, 2.0 + h), (2.0 - h, 2.0 + h)];
+    let text = frame(r#"origin: ("0 m", "0 m"), rated_point: "20 kN", friction_limit: 0.9"#, &feet, 500.0);
+    let l = load_scenario(&text).unwrap_or_else(|e| panic!("{e}"));
+    let a = analyse(&l.scenario);
+    let j = tautspan_core::output::check_json("f.ron", &a);
+    let jf = &j["cases"][0]["floors"][0];
+    let f = &a.cases[0].floors[0];
+    assert_eq!(jf["feet"].as_array().map(Vec::len), Some(4));
+    for (x, r) in jf["feet"].as_array().unwrap().iter().zip(&f.feet) {
+        assert_eq!(x["node"], r.node.as_str());
+        assert!(rel(x["normal_force_n"].as_f64().unwrap(), r.normal_force_n) < 1e-12);
+        assert!(rel(x["friction_required"].as_f64().unwrap(), r.friction_required.unwrap()) < 1e-12);
+        assert_eq!(x["state"], "ok");
+    }
+    assert!(rel(jf["normal_force_n"].as_f64().unwrap(), f.normal_force_n) < 1e-12);
+    let csv = tautspan_core::output::check_csv_rows("f.ron", &a);
+    assert_eq!(csv.lines().filter(|l| l.contains(",foot,")).count(), 4);
+    assert!(csv.contains("slab/a,foot,"));
+    let txt = tautspan_core::output::check_text("f.ron", &a);
+    assert!(txt.contains("horizontal kN") && txt.contains("friction"));
+    let html = tautspan_core::report::html(&l.scenario, &a, "2026-12-04");
+    assert!(html.contains("case-feet"), "report has no feet table");
+    assert!(a.scope.checked.iter().any(|c| c.contains("feet coupled") && c.contains("rated_point")));
+    assert!(a.scope.checked.iter().any(|c| c.contains("friction")));
+    assert!(a.scope.not_checked.iter().any(|c| c.contains("punching shear")));
 }

@@ -103,7 +103,9 @@ pub fn floor_allowable(f: &Floor) -> (Allowable, f64) {
     let (force_n, explanation) = match (uniform, point) {
         (Some(u), Some(p)) => (p, format!("each foot against the rated concentrated load {}; {}", kn(p), total(u))),
         (None, Some(p)) => (p, format!("each foot against the rated concentrated load {}; no uniform rating", kn(p))),
-        (Some(u), None) => (u, format!("feet UNCHECKED without a rated concentrated load ({NEEDS_RATED_POINT}); {}", total(u))),
+        (Some(u), None) => {
+            (u, format!("feet UNCHECKED without a rated concentrated load ({NEEDS_RATED_POINT}); {}", total(u)))
+        }
         (None, None) => (f64::INFINITY, format!("no rating given: UNCHECKED ({NEEDS_RATED_POINT})")),
     };
     let short = f.span[0].value.min(f.span[1].value);

@@ -197,11 +197,15 @@ pub fn case_warnings(s: &Scenario, case: &Case, r: &CaseResult, static_r: Option
         }
         if f.state != State::Slack {
             for foot in f.feet.iter().filter(|x| x.state == State::Slack) {
-                push(&f.id, msg(format_args!("floor {}: foot {} lifts off in case {}; normal force 0", f.id, foot.node, r.id)));
+                push(
+                    &f.id,
+                    msg(format_args!("floor {}: foot {} lifts off in case {}; normal force 0", f.id, foot.node, r.id)),
+                );
             }
         }
         // the panel's own checks: the total against the uniform rating, the deflection
-        let panel_util = f64::max(f.total_allowable_n.map_or(0.0, |t| f.normal_force_n / t), f.deflection_m / f.deflection_limit_m);
+        let panel_util =
+            f64::max(f.total_allowable_n.map_or(0.0, |t| f.normal_force_n / t), f.deflection_m / f.deflection_limit_m);
         if f.state == State::Over && panel_util <= 1.0 + 1e-9 {
             continue;
         }

@@ -99,8 +99,8 @@ impl ClampedPlate {
                         let c = p * terms + q;
                         let (i0, i1, i2) = (a0[m * terms + p], a1[m * terms + p], a2[m * terms + p]);
                         let (j0, j1, j2) = (a0[nn * terms + q], a1[nn * terms + q], a2[nn * terms + q]);
-                        k[r * n + c] = rigidity
-                            * (i2 * j0 * b / a.powi(3) + 2.0 * i1 * j1 / (a * b) + i0 * j2 * a / b.powi(3));
+                        k[r * n + c] =
+                            rigidity * (i2 * j0 * b / a.powi(3) + 2.0 * i1 * j1 / (a * b) + i0 * j2 * a / b.powi(3));
                     }
                 }
             }
@@ -152,7 +152,10 @@ mod tests {
             let plate = ClampedPlate::new([a, b], 1.0, RITZ_TERMS).expect("factors");
             let c = plate.unit_load([a / 2.0, b / 2.0]);
             let got = plate.deflection(&c, [a / 2.0, b / 2.0]) / (a * a);
-            assert!(((got - alpha) / alpha).abs() < 1e-2 && got < alpha * 1.001, "b/a {ratio}: Ritz {got} table {alpha}");
+            assert!(
+                ((got - alpha) / alpha).abs() < 1e-2 && got < alpha * 1.001,
+                "b/a {ratio}: Ritz {got} table {alpha}"
+            );
         }
     }
 

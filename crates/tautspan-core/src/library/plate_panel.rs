@@ -146,8 +146,16 @@ impl PlatePanel {
             let mut h = [self.span[0] / GRID as f64, self.span[1] / GRID as f64];
             while h[0] > 1e-4 * self.span[0] || h[1] > 1e-4 * self.span[1] {
                 let mut moved = false;
-                for d in [[1.0, 0.0], [-1.0, 0.0], [0.0, 1.0], [0.0, -1.0], [1.0, 1.0], [-1.0, -1.0], [1.0, -1.0], [-1.0, 1.0]]
-                {
+                for d in [
+                    [1.0, 0.0],
+                    [-1.0, 0.0],
+                    [0.0, 1.0],
+                    [0.0, -1.0],
+                    [1.0, 1.0],
+                    [-1.0, -1.0],
+                    [1.0, -1.0],
+                    [-1.0, 1.0],
+                ] {
                     let q = inside([p[0] + d[0] * h[0], p[1] + d[1] * h[1]]);
                     let wq = w(q);
                     if wq > v {

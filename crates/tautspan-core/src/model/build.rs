@@ -4,7 +4,9 @@
 //! first) and each names its field path; the file layer adds line and column.
 
 use super::floor_feet::place_feet;
-use super::scenario::{Case, DEFAULT_FRICTION_LIMIT, DesignFactor, Floor, Mass, Member, Node, Rating, Scenario, Support};
+use super::scenario::{
+    Case, DEFAULT_FRICTION_LIMIT, DesignFactor, Floor, Mass, Member, Node, Rating, Scenario, Support,
+};
 use crate::file::{CaseDto, FloorDto, MemberDto, Qty, RatingDto, ScenarioDto, SupportDto};
 use crate::library::{
     ChainGrade, Construction, Material, MemberKind, ROPE_GRADES, chain_area_m2, chain_linear_mass_kg_m,
@@ -406,7 +408,8 @@ fn build_floor(ctx: &mut Ctx, i: usize, f: &FloorDto) -> Option<Floor> {
         pad: pad.map(|[a, b]| [Length::new::<meter>(a), Length::new::<meter>(b)]),
         deflection_limit,
         stiffness_n_per_m: point_stiffness_n_per_m(f.edges, sx, sz, t, e, nu),
-        origin: origin.map_or([Length::new::<meter>(0.0); 2], |[x, z]| [Length::new::<meter>(x), Length::new::<meter>(z)]),
+        origin: origin
+            .map_or([Length::new::<meter>(0.0); 2], |[x, z]| [Length::new::<meter>(x), Length::new::<meter>(z)]),
         origin_given: origin.is_some(),
         friction_limit: friction_limit.unwrap_or(DEFAULT_FRICTION_LIMIT),
         friction_source: if friction_limit.is_some() {

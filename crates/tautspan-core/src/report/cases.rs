@@ -138,7 +138,8 @@ fn floors(c: &CaseResult, units: UnitSystem) -> String {
                     escape(&x.node),
                     units.force(x.normal_force_n),
                     units.force(x.horizontal_n),
-                    x.friction_required.map_or_else(|| NONE.to_string(), |m| format!("{m:.3} (limit {:.2})", f.friction_limit)),
+                    x.friction_required
+                        .map_or_else(|| NONE.to_string(), |m| format!("{m:.3} (limit {:.2})", f.friction_limit)),
                     x.bearing_pressure_pa.map_or_else(|| NONE.to_string(), |p| units.floor_pressure(p)),
                     x.utilisation.map_or_else(|| NONE.to_string(), percent),
                     state_word(x.state),
@@ -146,7 +147,8 @@ fn floors(c: &CaseResult, units: UnitSystem) -> String {
             })
         })
         .collect();
-    let feet_head = ["Floor", "Foot", "Normal force", "Horizontal", "Friction needed", "Bearing pressure", "Utilisation", "State"];
+    let feet_head =
+        ["Floor", "Foot", "Normal force", "Horizontal", "Friction needed", "Bearing pressure", "Utilisation", "State"];
     let mut out = table("case-floors", &head, &rows);
     if !feet.is_empty() {
         out.push_str(&table("case-feet", &feet_head, &feet));

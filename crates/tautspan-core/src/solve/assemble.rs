@@ -345,12 +345,8 @@ impl Model {
                 continue;
             }
             let force = f.forces(&p);
-            let active: Vec<usize> = in_contact(&f.flex, &p, &force)
-                .iter()
-                .enumerate()
-                .filter(|(_, a)| **a)
-                .map(|(i, _)| i)
-                .collect();
+            let active: Vec<usize> =
+                in_contact(&f.flex, &p, &force).iter().enumerate().filter(|(_, a)| **a).map(|(i, _)| i).collect();
             let (n, m) = (f.nodes.len(), active.len());
             let sub: Vec<f64> = active.iter().flat_map(|&r| active.iter().map(move |&c| f.flex[r * n + c])).collect();
             let Some(k) = crate::library::dense::inverse(&sub, m) else { continue };

@@ -209,7 +209,12 @@ impl Model {
             })
             .collect();
         for f in &mut floors {
-            f.slots = f.dofs.iter().flat_map(|&r| f.dofs.iter().map(move |&c| (r.max(c), r.min(c)))).map(|(r, c)| slot(r, c)).collect();
+            f.slots = f
+                .dofs
+                .iter()
+                .flat_map(|&r| f.dofs.iter().map(move |&c| (r.max(c), r.min(c))))
+                .map(|(r, c)| slot(r, c))
+                .collect();
         }
 
         let mut rate_sum = vec![0.0; net.nodes.len()];

@@ -37,7 +37,10 @@ pub(crate) fn validate_network(net: &Network) -> Result<(), SolveError> {
         let item = format!("floor {}", plate.name);
         let n = plate.nodes.len();
         if plate.flexibility_m_per_n.len() != n * n {
-            return Err(invalid(item, format!("flexibility has {} entries for {n} feet", plate.flexibility_m_per_n.len())));
+            return Err(invalid(
+                item,
+                format!("flexibility has {} entries for {n} feet", plate.flexibility_m_per_n.len()),
+            ));
         }
         for &i in &plate.nodes {
             let Some(node) = net.nodes.get(i) else {
@@ -51,7 +54,8 @@ pub(crate) fn validate_network(net: &Network) -> Result<(), SolveError> {
             }
         }
         let c = &plate.flexibility_m_per_n;
-        let symmetric = (0..n).all(|i| (0..n).all(|j| (c[i * n + j] - c[j * n + i]).abs() <= 1e-9 * c[i * n + i].abs()));
+        let symmetric =
+            (0..n).all(|i| (0..n).all(|j| (c[i * n + j] - c[j * n + i]).abs() <= 1e-9 * c[i * n + i].abs()));
         if !c.iter().all(|v| v.is_finite()) || !symmetric || crate::library::dense::cholesky(c, n).is_none() {
             return Err(invalid(item, "flexibility must be finite, symmetric and positive definite"));
         }
