@@ -137,3 +137,71 @@ mod tests {
         assert_eq!(contact_forces(&flex, &[-1.0, -2.0, 0.0]), vec![0.0; 3]);
     }
 }
+
+#[cfg(test)]
+mod kernel_tests {
+    use crate::solve::model::Model;
+    use crate::solve::{Fixity, NetNode, NetPlate, Network};
+
+    fn plate_net() -> Network {
+        let flex = vec![2.0e-6, 0.8e-6, 0.8e-6, 1.5e-6];
+        let foot = |name: &str, x: f64, k: f64| NetNode {
+            name: name.into(),
+            position_m: [x, 0.0, 0.0],
+            fixity: Fixity::Floor { stiffness_n_per_m: k },
+            load_n: [0.0, -1e3, 0.0],
+            mass_kg: 0.0,
+        };
+        Network {
+            nodes: vec![foot("a", 0.0, 1.0 / 2.0e-6), foot("b", 1.0, 1.0 / 1.5e-6)],
+            members: Vec::new(),
+            plates: vec![NetPlate { name: "slab".into(), nodes: vec![0, 1], flexibility_m_per_n: flex }],
+        }
+    }
+
+    // The plate's potential, its gradient and its tangent agree with each
+    // other: the step-wise energy change equals the difference of totals
+    // (also across a change of the contact set), the gradient equals the
+    // central difference of the energy (1e-6: O(h²) with h = 1e-9 m), and the
+    // tangent equals the difference of gradients inside one contact set
+    // (exact for a quadratic: 1e-6 for roundoff).
+    #[test]
+    fn energy_gradient_and_tangent_agree() {
+        let net = plate_net();
+        let model = Model::new(&net).expect("model");
+        let loads = [-1e3, -1e3];
+        let pos0 = vec![[0.0, -3.0e-3, 0.0], [1.0, -2.0e-3, 0.0]];
+        let e = |p: &[[f64; 3]]| model.energy(p, &loads, None).0;
+        let mut delta = Vec::new();
+        for step in [[-1.0e-4, 2.0e-4], [1.0e-3, 2.4e-3]] {
+            let mut pos1 = pos0.clone();
+            model.add_step(&pos0, &step, &mut pos1);
+            let (d, _) = model.energy_change(&pos0, &step, &loads, None, &mut delta);
+            let diff = e(&pos1) - e(&pos0);
+            assert!(((d - diff) / diff).abs() < 1e-9, "step {step:?}: {d} vs {diff}");
+        }
+        let (mut g, mut mag) = (vec![0.0; 2], vec![0.0; 2]);
+        model.gradient(&pos0, &loads, None, &mut g, &mut mag);
+        let h = 1e-9;
+        for k in 0..2 {
+            let mut s = [0.0; 2];
+            s[k] = h;
+            let (mut p, mut m) = (pos0.clone(), pos0.clone());
+            model.add_step(&pos0, &s, &mut p);
+            model.add_step(&pos0, &[-s[0], -s[1]], &mut m);
+            let fd = (e(&p) - e(&m)) / (2.0 * h);
+            assert!(((fd - g[k]) / g[k]).abs() < 1e-6, "dof {k}: {fd} vs {}", g[k]);
+        }
+        let mut values = vec![0.0; model.matrix.val().len()];
+        model.tangent(&pos0, None, &mut values);
+        let sym = model.matrix.symbolic();
+        let at = |r: usize, c: usize| -> f64 {
+            let (lo, hi) = (sym.col_ptr()[c], sym.col_ptr()[c + 1]);
+            sym.row_idx()[lo..hi].iter().position(|&x| x == r).map_or(0.0, |p| values[lo + p])
+        };
+        let inv = crate::library::dense::inverse(&net.plates[0].flexibility_m_per_n, 2).expect("SPD");
+        assert!((at(0, 0) - inv[0]).abs() < 1e-6 * inv[0]);
+        assert!((at(1, 0) - inv[2]).abs() < 1e-6 * inv[0]);
+        assert!((at(1, 1) - inv[3]).abs() < 1e-6 * inv[0]);
+    }
+}
