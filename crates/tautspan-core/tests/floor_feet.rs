@@ -282,3 +282,38 @@ fn outputs_show_the_feet() {
     assert!(a.scope.checked.iter().any(|c| c.contains("friction")));
     assert!(a.scope.not_checked.iter().any(|c| c.contains("punching shear")));
 }
+
+/// A foot that has lifted off yet needs a horizontal reaction is a fault:
+/// foot b hangs from an inclined stiff rod to an anchor, so its own share of
+/// the rod's weight is carried by the rod (which also pulls it sideways),
+/// while a crate on foot a sags the plate away from under b (coupling:
+/// C_ba W ≫ b's settlement on the rod). b carries no normal force, its
+/// state is over and the warning names it.
+#[test]
+fn lifted_foot_with_a_horizontal_reaction_is_reported() {
+    let text = r#"Scenario(format: 1, title: "lifted",
+        nodes: [
+            Node(id: "a", at: ("1.8 m", "0 m", "2 m"), support: Floor("slab")),
+            Node(id: "b", at: ("2.4 m", "0 m", "2 m"), support: Floor("slab")),
+            Node(id: "r", at: ("3.0 m", "1 m", "2 m"), support: Anchor),
+        ],
+        members: [ Member(id: "stay", ends: ("b", "r"), kind: Rod, area: "20 cm^2", material: "steel") ],
+        floors: [ Floor(id: "slab", span: ("4 m", "4 m"), origin: ("0 m", "0 m"), thickness: "150 mm", modulus: "30 GPa",
+                        poisson: 0.2, edges: SimplySupported, rated_point: "50 kN", friction_limit: 0.9) ],
+        masses: [ Mass(id: "crate", at: "a", mass: "2000 kg") ],
+        cases: [ Static(id: "s") ])"#;
+    let l = load_scenario(text).unwrap_or_else(|e| panic!("{e}"));
+    let a = analyse(&l.scenario);
+    let f = &a.cases[0].floors[0];
+    let (fa, fb) = (&f.feet[0], &f.feet[1]);
+    assert!(rel(fa.normal_force_n, 2000.0 * G) < 1e-6);
+    assert_eq!(fb.normal_force_n, 0.0);
+    assert!(fb.friction_required.is_none());
+    assert!(fb.horizontal_n > 0.0);
+    assert_eq!(fb.state, State::Over);
+    assert_eq!(f.state, State::Over);
+    assert!(a.cases[0].warnings.iter().any(|w| w.contains("foot b has lifted off yet needs a horizontal reaction")));
+    // the plate under b still deflects from a's load
+    let panel = l.scenario.floors[0].plate.as_ref().unwrap();
+    assert!(panel.deflection_at(&[fa.normal_force_n, 0.0], [2.4, 2.0]) > 0.0);
+}
