@@ -36,6 +36,7 @@ fn line(mass_kg: f64, ea_n: f64, rest_m: f64, at: [f64; 3]) -> Network {
             rest_length_m: rest_m,
             law: AxialLaw::TensionOnly,
         }],
+        plates: Vec::new(),
     }
 }
 

@@ -51,6 +51,12 @@ pub fn add_floor_node(dto: &mut ScenarioDto, x_m: f64, y_m: f64, units: UnitSyst
         rated_point: Some(Qty::from(if us { "2000 lbf" } else { "8.9 kN" })),
         pad: None,
         deflection_limit: None,
+        // the new panel centred under its first foot (at z = 0)
+        origin: Some((
+            requantify(None, x_m - if us { 6.0 * 0.3048 } else { 2.0 }, Shown::Length, units),
+            requantify(None, -(if us { 6.0 * 0.3048 } else { 2.0 }), Shown::Length, units),
+        )),
+        friction_limit: None,
     });
     add_node(dto, x_m, y_m, SupportDto::Floor(floor_id), units)
 }

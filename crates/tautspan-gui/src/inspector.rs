@@ -11,7 +11,7 @@ use crate::rename::IdKind;
 use crate::selection::Selection;
 use crate::units_display::{Shown, UnitSystem};
 use egui::{RichText, Ui};
-use tautspan_core::file::SupportDto;
+use tautspan_core::file::{Qty, SupportDto};
 use tautspan_core::library::Edges;
 use tautspan_core::units::{Dimension, Sign};
 
@@ -376,6 +376,37 @@ fn floor(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, bufs: &mut FieldBuff
                 }
             }),
         );
+        for (axis, label) in [(0usize, "Origin x (corner)"), (1, "Origin z (corner)")] {
+            let current = f.origin.as_ref().map(|o| if axis == 0 { &o.0 } else { &o.1 });
+            QtyField {
+                label,
+                path: p(if axis == 0 { "origin.0" } else { "origin.1" }),
+                current,
+                dimension: Dimension::Length,
+                sign: Sign::Any,
+                optional: true,
+                hint: "centred under the feet",
+            }
+            .show(
+                ui,
+                bufs,
+                input.derived,
+                out,
+                Box::new(move |d, q| {
+                    if let Some(f) = d.floors.get_mut(i) {
+                        f.origin = match (q, f.origin.take()) {
+                            // the other corner coordinate stays; a new one starts at 0
+                            (Some(q), Some((x, z))) => Some(if axis == 0 { (q, z) } else { (x, q) }),
+                            (Some(q), None) => {
+                                let zero = Qty::from("0 m");
+                                Some(if axis == 0 { (q, zero) } else { (zero, q) })
+                            }
+                            (None, _) => None,
+                        }
+                    }
+                }),
+            );
+        }
         let label = ui.label("Edges");
         let mut edges = f.edges;
         egui::ComboBox::from_id_salt("edges")
@@ -412,5 +443,28 @@ fn floor(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, bufs: &mut FieldBuff
             crate::units_display::fmt_utilisation(r.utilisation),
             r.state.as_str()
         ));
+        if let Some(reason) = &r.reason {
+            ui.label(RichText::new(reason).italics());
+        }
+        if !r.feet.is_empty() {
+            ui.label(RichText::new(format!("Feet (friction limit {:.2})", r.friction_limit)).strong());
+            egui::Grid::new("floor-feet").num_columns(5).striped(true).show(ui, |ui| {
+                for h in ["Foot", "Normal", "Friction", "Utilisation", "State"] {
+                    ui.label(RichText::new(h).strong());
+                }
+                ui.end_row();
+                for x in &r.feet {
+                    ui.label(&x.node);
+                    ui.label(u.fmt(x.normal_force_n, Shown::Force));
+                    ui.label(x.friction_required.map_or_else(|| "-".to_string(), |m| format!("{m:.3}")));
+                    ui.label(x.utilisation.map_or_else(|| "-".to_string(), crate::units_display::fmt_utilisation));
+                    ui.label(x.state.as_str());
+                    ui.end_row();
+                }
+            });
+            for x in r.feet.iter().filter_map(|x| x.reason.as_ref()) {
+                ui.label(RichText::new(x).italics());
+            }
+        }
     }
 }

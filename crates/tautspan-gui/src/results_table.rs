@@ -1,7 +1,8 @@
 //! The results table: every member and rated part (fittings, anchor
 //! ratings) in every case — force, allowable or WLL, utilisation, state and the limits (largest release angle,
 //! largest drop height) — sortable by any column; a click on a member
-//! selects it, hovering a row explains the numbers.
+//! selects it, hovering a row explains the numbers. Above it, folded, the
+//! floors' feet in every case.
 
 use crate::command::Command;
 use crate::derived::Derived;
@@ -133,6 +134,7 @@ pub fn ui(
         };
         if sort.descending { o.reverse() } else { o }
     });
+    feet(ui, a, units, out);
     ui.horizontal(|ui| {
         for (name, col, w) in COLUMNS {
             let arrow = if sort.column == col { if sort.descending { " v" } else { " ^" } } else { "" };
@@ -208,5 +210,50 @@ pub fn ui(
                 }
             });
         }
+    });
+}
+
+/// The floors' feet in every case: normal force, the friction each needs
+/// against the floor's limit, utilisation against the rated point load and
+/// state; a click on a row selects its floor.
+fn feet(ui: &mut Ui, a: &tautspan_core::analysis::Analysis, units: UnitSystem, out: &mut Vec<Command>) {
+    let n: usize = a.cases.iter().map(|c| c.floors.iter().map(|f| f.feet.len()).sum::<usize>()).sum();
+    if n == 0 {
+        return;
+    }
+    egui::CollapsingHeader::new(format!("Floor feet ({n})")).default_open(false).show(ui, |ui| {
+        egui::Grid::new("results-feet").num_columns(7).striped(true).show(ui, |ui| {
+            for h in ["Floor", "Foot", "Case", "Normal", "Friction (limit)", "Utilisation", "State"] {
+                ui.label(RichText::new(h).strong());
+            }
+            ui.end_row();
+            for case in &a.cases {
+                for f in &case.floors {
+                    for x in &f.feet {
+                        if ui.button(f.id.as_str()).clicked() {
+                            out.push(Command::Select(Selection::Floor(f.id.clone())));
+                            out.push(Command::ShowCase(case.id.clone()));
+                        }
+                        ui.label(x.node.as_str());
+                        ui.label(case.id.as_str());
+                        ui.label(units.fmt(x.normal_force_n, Shown::Force));
+                        let mu = x.friction_required.map_or_else(|| "-".to_string(), |m| format!("{m:.3}"));
+                        ui.label(format!("{mu} ({:.2})", f.friction_limit));
+                        ui.label(x.utilisation.map_or_else(|| "-".to_string(), fmt_utilisation));
+                        let st = RichText::new(x.state.as_str());
+                        let st = if matches!(x.state, State::Over | State::Unchecked) {
+                            st.strong().color(crate::qty_field::ERROR)
+                        } else {
+                            st
+                        };
+                        let resp = ui.label(st);
+                        if let Some(why) = &x.reason {
+                            resp.on_hover_text(why);
+                        }
+                        ui.end_row();
+                    }
+                }
+            }
+        });
     });
 }

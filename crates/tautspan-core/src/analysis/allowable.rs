@@ -5,10 +5,11 @@
 //! or yield stress × area (rods); a working load limit given directly is the
 //! allowable as is (divided by the duty's multiplier over people or
 //! lifting persons). This is the tension allowable; a rod in compression is
-//! checked against its buckling resistance (`strut.rs`). Floors: the governing (smaller) of the rated
-//! concentrated load and the rated uniform load over the panel's tributary
-//! area (span × span), with the deflection checked separately against
-//! span / limit.
+//! checked against its buckling resistance (`strut.rs`). Floors: each foot
+//! against the rated concentrated load (without one a loaded foot is
+//! unchecked: the uniform rating × area says nothing about a point load),
+//! the feet's total against the rated uniform load × panel area where given
+//! (necessary, not sufficient), and the deflection against span / limit.
 
 use crate::model::{Floor, Member, Rating};
 use crate::units::format_number;
@@ -95,23 +96,30 @@ pub fn member_allowable(m: &Member) -> Allowable {
     }
 }
 
-/// Allowable normal force of a floor and its deflection limit, m.
+/// What a loaded foot without a point rating asks for.
+pub const NEEDS_RATED_POINT: &str = "give rated_point: the panel's rated concentrated load (EN 1991-1-1 Table 6.2 Qk or ASCE 7 Table 4.3-1), from the floor's owner; the uniform rating x area is no point capacity";
+
+/// Allowable normal force of a floor (per foot: the rated concentrated
+/// load; without one, the total: rated uniform load × area; neither:
+/// infinite, and the floor is unchecked) and its deflection limit, m.
 pub fn floor_allowable(f: &Floor) -> (Allowable, f64) {
-    let tributary_m2 = f.span[0].value * f.span[1].value;
-    let uniform = f.rated_uniform.map(|q| q.value * tributary_m2);
+    let area_m2 = f.area_m2();
+    let uniform = f.rated_uniform.map(|q| q.value * area_m2);
     let point = f.rated_point.map(|p| p.value);
+    let total = |u: f64| {
+        format!(
+            "total normal force against rated uniform load x panel area {} m^2 = {} (a necessary, not sufficient, check)",
+            format_number(area_m2, 4),
+            kn(u)
+        )
+    };
     let (force_n, explanation) = match (uniform, point) {
-        (Some(u), Some(p)) if p <= u => {
-            (p, format!("rated concentrated load {} governs over rated uniform load x panel area = {}", kn(p), kn(u)))
-        }
-        (Some(u), Some(p)) => {
-            (u, format!("rated uniform load x panel area {} governs over rated concentrated load {}", kn(u), kn(p)))
-        }
+        (Some(u), Some(p)) => (p, format!("each foot against the rated concentrated load {}; {}", kn(p), total(u))),
+        (None, Some(p)) => (p, format!("each foot against the rated concentrated load {}; no uniform rating", kn(p))),
         (Some(u), None) => {
-            (u, format!("rated uniform load x panel area {} m^2 = {}", format_number(tributary_m2, 4), kn(u)))
+            (u, format!("feet UNCHECKED without a rated concentrated load ({NEEDS_RATED_POINT}); {}", total(u)))
         }
-        (None, Some(p)) => (p, format!("rated concentrated load {}", kn(p))),
-        (None, None) => (f64::INFINITY, "no rating given".to_string()),
+        (None, None) => (f64::INFINITY, format!("no rating given: UNCHECKED ({NEEDS_RATED_POINT})")),
     };
     let short = f.span[0].value.min(f.span[1].value);
     (Allowable { force_n, explanation }, short / f.deflection_limit)

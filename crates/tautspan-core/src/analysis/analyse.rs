@@ -164,7 +164,8 @@ pub fn assumptions(s: &Scenario) -> Vec<String> {
         format!("Gravity {} m/s^2 acting along -y.", format_number(s.gravity_m_s2(), 6)),
         "Members are axial springs k = E A / L0; rope, chain and cable carry tension only, rods carry both; large-displacement equilibrium by damped Newton on the tangent stiffness.".to_string(),
         "Members' own weight is lumped half at each end node.".to_string(),
-        "A node on a floor is held sideways (friction or fixing assumed) and carried vertically by a compression-only spring from plate bending at the slab centre: w = alpha P a^2 / D, D = E t^3 / 12(1 - nu^2) (Timoshenko & Woinowsky-Krieger).".to_string(),
+        "Floors: each foot rests on its panel (a plate of D = E t^3 / 12(1 - nu^2)) and the feet are coupled through it: w_i = sum_j C_ij P_j, C from the Navier series (simply supported, T&W section 28) or a Rayleigh-Ritz solution (clamped), normalised so a load at the panel centre gives T&W's tabulated alpha; each foot is compression-only (a foot the rig would lift carries nothing; the plate under it still deflects from the others).".to_string(),
+        "Floor feet are held sideways; each foot's friction_required = |horizontal reaction| / normal force is checked against the floor's friction_limit (default 0.20: EN 1993-1-8 section 6.2.2(6), base plate on sand-cement mortar). Each foot is checked against rated_point (without it, unchecked); the feet's total against rated_uniform x panel area (necessary, not sufficient); the largest deflection over the panel (grid and refinement; series accuracy about 1e-4 simply supported, 1 % clamped) against span / limit.".to_string(),
         format!("Swing: at every angle theta of the arc the line pulls with T = m g (3 cos theta - 2 cos theta0) along its direction (rigid line, energy and centripetal balance; e.g. Meriam & Kraige, Dynamics, normal-tangential coordinates); the network is solved quasi-statically for theta from -theta0 to +theta0 in the swing's plane (azimuth about y from +x; 90 deg swings towards +z), on a grid of at most {} deg refined until each item's peak is found to 0.1 %; each item is reported at its own peak and the angle where it occurs. Releases above 90 deg are refused: the line goes slack and the mass falls, which is a drop.", format_number(super::swing_arc::GRID_STEP_DEG, 2)),
         "Drop: F = W (1 + sqrt(1 + 2 k h / W)) with k the static path stiffness at the mass (Timoshenko & Gere, impact); sudden load: factor 2. Member mass, damping and hysteresis ignored (fibre ropes peak lower).".to_string(),
         "Allowable = rated strength x efficiency / design factor, or a working load limit (given, or for grade 80 chain the EN 818-2 table's); rods in tension on yield x area; rods in compression on their buckling resistance chi A f_y / design factor (EN 1993-1-1 6.3.1, EN 1999-1-1 6.3.1, EN 1993-1-4 5.4.2; gamma_M1 = 1), buckling length K L with K = 1 (pinned both ends) unless given.".to_string(),
@@ -173,7 +174,17 @@ pub fn assumptions(s: &Scenario) -> Vec<String> {
         "Rated parts: each fitting on a member carries the member's force; a fitting at a joint carries the resultant of the members above the joint (the load hung from it), at a support the reaction; an anchor's rating is checked on the reaction's magnitude. A WLL given as a mass (\"1 t\") is its weight at standard gravity 9.80665 m/s^2 (ISO 80000-3). Eye bolts: the angle between the bolt's axis and the pull, shoulder eye bolts derated by the published table (next larger angle's row between rows), plain eye bolts in line (5 deg) only.".to_string(),
         "Limits: the largest drop height comes from a root search on the full network to 1e-7 on the load factor; the largest release angle (at most 90 deg) from a root search on the release angle, each step a full sweep of the arc, to 1e-6 rad; each item's own limit is interpolated between the solved load factors or release angles, or extrapolated linearly beyond them (an estimate for items far from their allowable).".to_string(),
         format!("Near limit from utilisation {}; dynamic/static ratio warning above {}.", format_number(s.near_limit, 3), format_number(s.dynamic_ratio_warning, 3)),
-    ];
+    ]
+    .into_iter()
+    .chain(s.floors.iter().filter(|f| !f.origin_given && !f.feet.is_empty()).map(|f| {
+        format!(
+            "Floor {}: no origin given, so the panel is centred under its feet's centroid, corner at (x, z) = ({} m, {} m); give `origin` for the panel's real place (feet near an edge carry more).",
+            f.id,
+            format_number(f.origin[0].value, 4),
+            format_number(f.origin[1].value, 4)
+        )
+    }))
+    .collect::<Vec<String>>();
     let (multiplier, why) = s.duty.multiplier();
     v.push(if multiplier == 1.0 {
         "Duty: standard (nobody under the load, no persons lifted); give `duty: OverPeople` or `duty: LiftingPersons` for higher design factors.".to_string()

@@ -3,6 +3,7 @@
 
 use super::allowable::{floor_allowable, member_allowable_n};
 use super::fittings::{anchor_rating, member_fittings, node_fittings, part_utilisations};
+use super::floor_check::floor_results;
 use super::results::{FloorResult, LoadPathResult, MemberResult, NodeResult, State, SupportResult};
 use super::strut::{Compression, compression};
 use crate::library::Carries;
@@ -63,28 +64,11 @@ impl Allowables {
 
 use super::fittings::state_of;
 
-/// Floor normal force and largest deflection per floor.
-fn floor_loads(s: &Scenario, eq: &Equilibrium) -> Vec<(f64, f64, bool)> {
-    let mut out = vec![(0.0, 0.0, false); s.floors.len()];
-    for (i, n) in s.nodes.iter().enumerate() {
-        if let Support::Floor(f) = n.support {
-            let force = eq.floor_force_n[i];
-            let defl = (n.position[1].value - eq.positions_m[i][1]).max(0.0);
-            out[f].0 += force;
-            out[f].1 = f64::max(out[f].1, if force > 0.0 { defl } else { 0.0 });
-            out[f].2 |= force <= 0.0;
-        }
-    }
-    out
-}
-
 /// Utilisation of each member then each floor.
 pub fn utilisations(s: &Scenario, a: &Allowables, eq: &Equilibrium) -> Vec<f64> {
     let mut u: Vec<f64> =
         eq.member_force_n.iter().enumerate().map(|(i, f)| f.abs() / a.member_for_limits(i, *f)).collect();
-    for (k, (force, defl, _)) in floor_loads(s, eq).iter().enumerate() {
-        u.push(f64::max(force / a.floor_n[k], defl / a.floor_deflection_m[k]));
-    }
+    u.extend(floor_results(s, a, eq, 0.0).iter().map(|f| f.utilisation));
     // rated parts after the floors, in the order of `CaseResult::parts`
     u.extend(part_utilisations(s, eq));
     u
@@ -159,29 +143,8 @@ pub fn evaluate(s: &Scenario, net: &Network, a: &Allowables, loads: &[[f64; 3]],
             }
         })
         .collect();
-    let floors = floor_loads(s, eq)
-        .iter()
-        .enumerate()
-        .map(|(k, &(force, defl, lifted))| {
-            let utilisation = f64::max(force / a.floor_n[k], defl / a.floor_deflection_m[k]);
-            let any_node = s.nodes.iter().any(|n| n.support == Support::Floor(k));
-            FloorResult {
-                id: s.floors[k].id.clone(),
-                normal_force_n: force,
-                deflection_m: defl,
-                allowable_n: a.floor_n[k],
-                deflection_limit_m: a.floor_deflection_m[k],
-                utilisation,
-                state: if any_node && lifted && force <= 0.0 {
-                    State::Slack
-                } else {
-                    state_of(utilisation, s.near_limit)
-                },
-                reason: None,
-                peak_at_deg: None,
-            }
-        })
-        .collect();
+    let load_scale_n: f64 = loads.iter().flatten().map(|v| v.abs()).sum();
+    let floors = floor_results(s, a, eq, load_scale_n);
     let nodes = s
         .nodes
         .iter()

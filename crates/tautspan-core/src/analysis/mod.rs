@@ -6,6 +6,7 @@ mod analyse;
 mod curves;
 mod evaluate;
 mod fittings;
+mod floor_check;
 pub mod formulas;
 mod limits;
 pub mod results;
@@ -15,7 +16,7 @@ mod strut;
 mod swing_arc;
 mod warnings;
 
-pub use allowable::{Allowable, floor_allowable, member_allowable, member_allowable_n};
+pub use allowable::{Allowable, NEEDS_RATED_POINT, floor_allowable, member_allowable, member_allowable_n};
 pub use analyse::{Prior, analyse, analyse_from, assumptions};
 pub use curves::{ReleaseCurve, release_curve, single_line_swing};
 pub use evaluate::Allowables;

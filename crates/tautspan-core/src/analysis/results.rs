@@ -107,20 +107,53 @@ pub struct FittingResult {
     pub reason: Option<String>,
 }
 
+/// One foot (a node resting on a floor) in one case.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct FootResult {
+    /// Node id.
+    pub node: String,
+    /// Normal force the slab carries at this foot, N (0 when lifted off).
+    pub normal_force_n: f64,
+    /// Horizontal reaction the foot needs (|(R_x, R_z)|), N.
+    pub horizontal_n: f64,
+    /// Friction coefficient the foot needs, |horizontal| ÷ normal force
+    /// (None when the foot carries no normal force).
+    pub friction_required: Option<f64>,
+    /// Normal force ÷ pad area, Pa (None without a pad).
+    pub bearing_pressure_pa: Option<f64>,
+    /// Normal force ÷ the rated concentrated load (None without one).
+    pub utilisation: Option<f64>,
+    /// State: over also when it needs more friction than the floor's limit.
+    pub state: State,
+    /// Why the foot is `unchecked` or over on friction, when it is.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub reason: Option<String>,
+}
+
 /// One floor in one case.
 #[derive(Debug, Clone, PartialEq, Serialize)]
 pub struct FloorResult {
     /// Floor id.
     pub id: String,
-    /// Normal force of all nodes resting on it, N.
+    /// Normal force of all its feet together, N.
     pub normal_force_n: f64,
-    /// Deflection at the node (largest, if several), m.
+    /// Largest deflection over the whole panel, m.
     pub deflection_m: f64,
-    /// Allowable force (governing rating), N.
+    /// Where the largest deflection is, (x, z) in plan, m.
+    pub deflection_at_m: [f64; 2],
+    /// Allowable force: the rated concentrated load per foot where given,
+    /// else the rated uniform load × panel area (a total), N.
     pub allowable_n: f64,
+    /// Rated uniform load × panel area, N (the total check), where given.
+    pub total_allowable_n: Option<f64>,
+    /// Friction coefficient the feet may rely on.
+    pub friction_limit: f64,
+    /// Per foot.
+    pub feet: Vec<FootResult>,
     /// Deflection limit, m.
     pub deflection_limit_m: f64,
-    /// Larger of force ÷ allowable and deflection ÷ limit.
+    /// Largest of each foot's force ÷ rated concentrated load, the total ÷
+    /// rated uniform load × area, and deflection ÷ limit.
     pub utilisation: f64,
     /// State.
     pub state: State,

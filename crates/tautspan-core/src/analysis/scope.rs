@@ -69,7 +69,11 @@ const CHECKED: &[Entry] = &[
         applies: has_drop,
     },
     Entry {
-        text: "floors: normal force against the rated loads given, and deflection against span / limit",
+        text: "floors: feet coupled through the plate (Navier series simply supported, Ritz clamped), compression-only per foot; each foot against rated_point (unchecked without it); the feet's total against rated_uniform x area (necessary, not sufficient); the largest deflection over the panel against span / limit",
+        applies: has_floor,
+    },
+    Entry {
+        text: "floors: the friction each foot needs (|horizontal| / normal) against friction_limit (default 0.20, EN 1993-1-8 6.2.2(6))",
         applies: has_floor,
     },
     Entry {
@@ -101,7 +105,7 @@ const NOT_CHECKED: &[Entry] = &[
         applies: always,
     },
     Entry {
-        text: "floors: punching shear, cracking, continuity and the structure below the panel",
+        text: "floors: punching shear, cracking, continuity over supports, bearing pressure under pads (shown, not checked), plate stiffness between panels and the structure below the panel",
         applies: has_floor,
     },
 ];

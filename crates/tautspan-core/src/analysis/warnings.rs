@@ -173,6 +173,38 @@ pub fn case_warnings(s: &Scenario, case: &Case, r: &CaseResult, static_r: Option
         }
     }
     for f in &r.floors {
+        for foot in f.feet.iter().filter(|x| x.state == State::Over) {
+            match (&foot.reason, foot.utilisation) {
+                (Some(why), _) => push(&f.id, msg(format_args!("floor {}, case {}: {}", f.id, r.id, why))),
+                (None, Some(u)) => push(
+                    &f.id,
+                    msg(format_args!(
+                        "floor {}, foot {}: normal force {} against the rated concentrated load {}: utilisation {} (over by {})",
+                        f.id,
+                        foot.node,
+                        Kn(foot.normal_force_n),
+                        Kn(f.allowable_n),
+                        Sig(u, 3),
+                        Pct(u - 1.0)
+                    )),
+                ),
+                (None, None) => {}
+            }
+        }
+        if f.state != State::Slack {
+            for foot in f.feet.iter().filter(|x| x.state == State::Slack) {
+                push(
+                    &f.id,
+                    msg(format_args!("floor {}: foot {} lifts off in case {}; normal force 0", f.id, foot.node, r.id)),
+                );
+            }
+        }
+        // the panel's own checks: the total against the uniform rating, the deflection
+        let panel_util =
+            f64::max(f.total_allowable_n.map_or(0.0, |t| f.normal_force_n / t), f.deflection_m / f.deflection_limit_m);
+        if f.state == State::Over && panel_util <= 1.0 + 1e-9 {
+            continue;
+        }
         match f.state {
             State::Slack => {
                 push(&f.id, msg(format_args!("floor {}: contact lifts off in case {}; normal force 0", f.id, r.id)))
@@ -180,14 +212,14 @@ pub fn case_warnings(s: &Scenario, case: &Case, r: &CaseResult, static_r: Option
             State::Over => push(
                 &f.id,
                 msg(format_args!(
-                    "floor {}: normal force {} against allowable {}, deflection {} mm against limit {} mm: utilisation {} (over by {})",
+                    "floor {}: total normal force {} against rated uniform x area {}, largest deflection {} mm against limit {} mm: utilisation {} (over by {})",
                     f.id,
                     Kn(f.normal_force_n),
-                    Kn(f.allowable_n),
+                    f.total_allowable_n.map_or_else(|| "none given".to_string(), |t| Kn(t).to_string()),
                     Sig(f.deflection_m * 1e3, 3),
                     Sig(f.deflection_limit_m * 1e3, 3),
-                    Sig(f.utilisation, 3),
-                    Pct(f.utilisation - 1.0)
+                    Sig(panel_util, 3),
+                    Pct(panel_util - 1.0)
                 )),
             ),
             State::Near => push(

@@ -300,6 +300,12 @@ pub struct FloorDto {
     /// Deflection limit as span / this number (default 360, common practice for floors).
     #[serde(default, skip_serializing_if = "Option::is_none")]
     pub deflection_limit: Option<f64>,
+    /// The panel's corner in plan (x, z); omitted = centred under its feet.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub origin: Option<(Qty, Qty)>,
+    /// Friction coefficient a foot may rely on (default 0.20, EN 1993-1-8 §6.2.2(6)).
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub friction_limit: Option<f64>,
 }
 
 /// A mass as written.

@@ -3,11 +3,15 @@
 
 mod buckling;
 mod chain;
+pub(crate) mod dense;
 mod duty;
 mod eye_bolt;
 mod fibre_rope;
 mod material;
 mod member_kind;
+mod plate_clamped;
+mod plate_navier;
+mod plate_panel;
 mod slab;
 mod termination;
 mod textile_sling;
@@ -23,6 +27,9 @@ pub use eye_bolt::{EYE_BOLT_SOURCE, EyeBoltRow, PLAIN_EYE_BOLT, SHOULDER_EYE_BOL
 pub use fibre_rope::{default_elongation_at_20pct, fibre_axial_stiffness_n, fibre_linear_mass_kg_m};
 pub use material::{Material, MaterialData};
 pub use member_kind::{Carries, DefaultFactor, MemberKind};
+pub use plate_clamped::{ClampedPlate, RITZ_TERMS};
+pub use plate_navier::{FIELD_TERMS, FLEXIBILITY_TERMS, NavierField, navier_flexibility};
+pub use plate_panel::PlatePanel;
 pub use slab::{Edges, flexural_rigidity, point_load_coefficient, point_stiffness_n_per_m};
 pub use termination::{Termination, UNSTATED_TERMINATION_EFFICIENCY};
 pub use textile_sling::TextileSling;

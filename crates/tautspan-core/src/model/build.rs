@@ -4,7 +4,10 @@
 //! first) and each names its field path; the file layer adds line and column.
 
 use super::build_fittings::{Host, build_fittings, build_rated};
-use super::scenario::{Case, DesignFactor, Floor, Mass, Member, Node, Rating, Scenario, Strut, Support};
+use super::floor_feet::place_feet;
+use super::scenario::{
+    Case, DEFAULT_FRICTION_LIMIT, DesignFactor, Floor, Mass, Member, Node, Rating, Scenario, Strut, Support,
+};
 use crate::file::{CaseDto, FloorDto, MemberDto, Qty, RatingDto, ScenarioDto, SectionDto, SupportDto};
 use crate::library::{
     ChainGrade, Construction, Material, MemberKind, ROPE_GRADES, chain_area_m2, chain_linear_mass_kg_m,
@@ -182,6 +185,11 @@ pub fn build(dto: &ScenarioDto) -> Result<Scenario, Vec<Problem>> {
             rated: build_rated(&mut ctx, i, &n.rated, support),
             fittings: build_fittings(&mut ctx, "nodes", i, Host::Node, &n.fittings),
         });
+    }
+
+    let mut floors = floors;
+    for (path, message) in place_feet(&mut floors, &nodes) {
+        ctx.err(path, message);
     }
 
     let node_ref = |ctx: &mut Ctx, id: &str, path: String, what: &str| -> Option<usize> {
@@ -396,12 +404,6 @@ fn build_floor(ctx: &mut Ctx, i: usize, f: &FloorDto) -> Option<Floor> {
     };
     let rated_uniform = ctx.opt_qty(&f.rated_uniform, p("rated_uniform"), Dimension::Pressure, Sign::Positive);
     let rated_point = ctx.opt_qty(&f.rated_point, p("rated_point"), Dimension::Force, Sign::Positive);
-    if f.rated_uniform.is_none() && f.rated_point.is_none() {
-        ctx.err(
-            p("rated_point"),
-            "a floor needs a rating: give `rated_point` (e.g. \"8.9 kN\") and/or `rated_uniform` (e.g. \"2.4 kPa\")",
-        );
-    }
     let pad = match &f.pad {
         Some((a, b)) => {
             let a = ctx.qty(a, p("pad.0"), Dimension::Length, Sign::Positive);
@@ -416,6 +418,18 @@ fn build_floor(ctx: &mut Ctx, i: usize, f: &FloorDto) -> Option<Floor> {
         }
         None => 360.0,
     };
+    let origin = match &f.origin {
+        Some((x, z)) => {
+            let x = ctx.qty(x, p("origin.0"), Dimension::Length, Sign::Any);
+            let z = ctx.qty(z, p("origin.1"), Dimension::Length, Sign::Any);
+            Some([x?, z?])
+        }
+        None => None,
+    };
+    let friction_limit = match f.friction_limit {
+        Some(v) => Some(ctx.number(v, p("friction_limit"), 0.0, 2.0, "a friction coefficient between 0 and 2")?),
+        None => None,
+    };
     let (sx, sz, t, e, nu) = (sx?, sz?, t?, modulus?, poisson?);
     Some(Floor {
         id: f.id.clone(),
@@ -429,6 +443,17 @@ fn build_floor(ctx: &mut Ctx, i: usize, f: &FloorDto) -> Option<Floor> {
         pad: pad.map(|[a, b]| [Length::new::<meter>(a), Length::new::<meter>(b)]),
         deflection_limit,
         stiffness_n_per_m: point_stiffness_n_per_m(f.edges, sx, sz, t, e, nu),
+        origin: origin
+            .map_or([Length::new::<meter>(0.0); 2], |[x, z]| [Length::new::<meter>(x), Length::new::<meter>(z)]),
+        origin_given: origin.is_some(),
+        friction_limit: friction_limit.unwrap_or(DEFAULT_FRICTION_LIMIT),
+        friction_source: if friction_limit.is_some() {
+            "given in the file"
+        } else {
+            "EN 1993-1-8:2005 §6.2.2(6), C_f,d for a base plate on sand-cement mortar"
+        },
+        feet: Vec::new(),
+        plate: None,
     })
 }
 

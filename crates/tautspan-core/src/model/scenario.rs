@@ -2,7 +2,9 @@
 //! quantity a `uom` quantity, every library lookup done, and each derived
 //! value carrying a note of where it came from so reports can explain it.
 
-use crate::library::{ChainGrade, Construction, Curve, DefaultFactor, Duty, Edges, Material, MemberKind, Section};
+use crate::library::{
+    ChainGrade, Construction, Curve, DefaultFactor, Duty, Edges, Material, MemberKind, PlatePanel, Section,
+};
 use uom::si::f64::{Acceleration, Angle, Area, Force, Length, LinearMassDensity, Mass as MassQ, Pressure};
 
 /// How a node is held.
@@ -144,8 +146,41 @@ pub struct Floor {
     pub pad: Option<[Length; 2]>,
     /// Deflection limit as span / this.
     pub deflection_limit: f64,
-    /// Point-load spring stiffness at the centre, N/m.
+    /// Point-load spring stiffness at the centre, N/m (T&W's tabulated α).
     pub stiffness_n_per_m: f64,
+    /// The panel's corner (x, z) in plan.
+    pub origin: [Length; 2],
+    /// False when the file gave no origin and the panel was centred under
+    /// its feet's centroid (said in the assumptions).
+    pub origin_given: bool,
+    /// Friction coefficient a foot may rely on sideways.
+    pub friction_limit: f64,
+    /// Where [`Floor::friction_limit`] came from.
+    pub friction_source: &'static str,
+    /// The feet: nodes resting on this floor, ascending.
+    pub feet: Vec<usize>,
+    /// The plate with its feet (None when no node rests on it).
+    pub plate: Option<PlatePanel>,
+}
+
+/// EN 1993-1-8:2005 §6.2.2(6): coefficient of friction between a base plate
+/// and a sand-cement mortar bed, C_f,d = 0.20.
+pub const DEFAULT_FRICTION_LIMIT: f64 = 0.20;
+
+impl Floor {
+    /// The spring rate of foot `node` alone on the panel (1 / C_ii), N/m; the
+    /// centre value where the node is not one of the feet.
+    pub fn foot_stiffness_n_per_m(&self, node: usize) -> f64 {
+        match (&self.plate, self.feet.iter().position(|&f| f == node)) {
+            (Some(p), Some(i)) => 1.0 / p.flexibility_m_per_n()[i * self.feet.len() + i],
+            _ => self.stiffness_n_per_m,
+        }
+    }
+
+    /// Panel area, m².
+    pub fn area_m2(&self) -> f64 {
+        self.span[0].value * self.span[1].value
+    }
 }
 
 /// A mass hung at a node.

@@ -5,7 +5,7 @@
 
 use super::scenario::{Scenario, Support};
 use crate::library::Carries;
-use crate::solve::{AxialLaw, Fixity, NetMember, NetNode, Network};
+use crate::solve::{AxialLaw, Fixity, NetMember, NetNode, NetPlate, Network};
 
 /// The loads of a scenario split so a dynamic case can scale one mass.
 #[derive(Debug, Clone, PartialEq)]
@@ -40,7 +40,7 @@ pub fn to_network(s: &Scenario) -> (Network, NetworkLoads) {
             fixity: match n.support {
                 Support::Joint => Fixity::Free,
                 Support::Anchor => Fixity::Fixed,
-                Support::Floor(f) => Fixity::Floor { stiffness_n_per_m: s.floors[f].stiffness_n_per_m },
+                Support::Floor(f) => Fixity::Floor { stiffness_n_per_m: s.floors[f].foot_stiffness_n_per_m(i) },
             },
             load_n: [0.0; 3],
             mass_kg: 0.0,
@@ -77,5 +77,18 @@ pub fn to_network(s: &Scenario) -> (Network, NetworkLoads) {
         })
         .collect();
     let total_n = nodes.iter().map(|n| n.load_n).collect();
-    (Network { nodes, members }, NetworkLoads { total_n, mass_weight_n })
+    // a panel of one foot is that foot's own spring; two or more are coupled
+    let plates = s
+        .floors
+        .iter()
+        .filter(|f| f.feet.len() > 1)
+        .filter_map(|f| {
+            Some(NetPlate {
+                name: f.id.clone(),
+                nodes: f.feet.clone(),
+                flexibility_m_per_n: f.plate.as_ref()?.flexibility_m_per_n().to_vec(),
+            })
+        })
+        .collect();
+    (Network { nodes, members, plates }, NetworkLoads { total_n, mass_weight_n })
 }

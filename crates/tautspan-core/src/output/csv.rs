@@ -100,6 +100,34 @@ pub fn check_csv_rows(file: &str, a: &Analysis) -> String {
                 .join(","),
             );
             out.push('\n');
+            for x in &f.feet {
+                // a foot: force its normal force, allowable the rated
+                // concentrated load (empty without one), item "floor/node"
+                out.push_str(
+                    &[
+                        field(file),
+                        field(&c.id),
+                        field(&c.kind),
+                        field(&format!("{}/{}", f.id, x.node)),
+                        "foot".into(),
+                        num(x.normal_force_n),
+                        if x.utilisation.is_some() { num(f.allowable_n) } else { String::new() },
+                        opt(x.utilisation),
+                        x.state.as_str().into(),
+                        String::new(),
+                        String::new(),
+                        String::new(),
+                        String::new(),
+                        lim.0.clone(),
+                        lim.1.clone(),
+                        String::new(),
+                        String::new(),
+                        String::new(),
+                    ]
+                    .join(","),
+                );
+                out.push('\n');
+            }
         }
         // rated parts after the floors, as in the comparison
         let first = c.members.len() + c.floors.len();

@@ -61,9 +61,20 @@ fn case_json(c: &CaseResult) -> Value {
         c.floors
             .iter()
             .map(|f| {
+                let feet: Vec<Value> = f
+                    .feet
+                    .iter()
+                    .map(|x| {
+                        json!({ "node": x.node, "normal_force_n": num(x.normal_force_n), "horizontal_n": num(x.horizontal_n),
+                                "friction_required": x.friction_required.map(num),
+                                "bearing_pressure_pa": x.bearing_pressure_pa.map(num),
+                                "utilisation": x.utilisation.map(num), "state": x.state.as_str(), "reason": x.reason })
+                    })
+                    .collect();
                 json!({ "id": f.id, "normal_force_n": num(f.normal_force_n), "deflection_m": num(f.deflection_m),
                         "allowable_n": num(f.allowable_n), "utilisation": num(f.utilisation), "state": f.state.as_str(), "reason": f.reason,
-                        "peak_at_deg": f.peak_at_deg.map(num) })
+                        "deflection_at_m": f.deflection_at_m.map(num), "total_allowable_n": f.total_allowable_n.map(num),
+                        "friction_limit": num(f.friction_limit), "feet": feet, "peak_at_deg": f.peak_at_deg.map(num) })
             })
             .collect(),
     );

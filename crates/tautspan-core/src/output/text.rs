@@ -154,6 +154,32 @@ fn case_text(c: &CaseResult, out: &mut String) {
             &rows,
             &[false, true, true, true, true, true, false],
         )));
+        let feet: Vec<Vec<String>> = c
+            .floors
+            .iter()
+            .flat_map(|f| {
+                f.feet.iter().map(move |x| {
+                    vec![
+                        f.id.clone(),
+                        x.node.clone(),
+                        kn(x.normal_force_n),
+                        kn(x.horizontal_n),
+                        x.friction_required.map_or_else(|| "-".to_string(), |m| format_number(m, 3)),
+                        format_number(f.friction_limit, 3),
+                        x.bearing_pressure_pa.map_or_else(|| "-".to_string(), |p| format_number(p / 1e3, 4)),
+                        x.utilisation.map_or_else(|| "-".to_string(), pct),
+                        x.state.as_str().to_string(),
+                    ]
+                })
+            })
+            .collect();
+        if !feet.is_empty() {
+            out.push_str(&indent(&table(
+                &["floor", "foot", "normal kN", "horizontal kN", "friction", "limit", "bearing kPa", "util %", "state"],
+                &feet,
+                &[false, false, true, true, true, true, true, true, false],
+            )));
+        }
     }
     let parts: Vec<Vec<String>> = c
         .part_ids()

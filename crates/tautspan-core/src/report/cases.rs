@@ -160,7 +160,32 @@ fn floors(c: &CaseResult, units: UnitSystem) -> String {
         })
         .collect();
     let head = ["Floor", "Normal force", "Allowable", "Deflection", "Deflection limit", "Utilisation", "State"];
-    table("case-floors", &head, &rows)
+    let feet: Vec<Vec<String>> = c
+        .floors
+        .iter()
+        .flat_map(|f| {
+            f.feet.iter().map(move |x| {
+                vec![
+                    format!("<b>{}</b>", escape(&f.id)),
+                    escape(&x.node),
+                    units.force(x.normal_force_n),
+                    units.force(x.horizontal_n),
+                    x.friction_required
+                        .map_or_else(|| NONE.to_string(), |m| format!("{m:.3} (limit {:.2})", f.friction_limit)),
+                    x.bearing_pressure_pa.map_or_else(|| NONE.to_string(), |p| units.floor_pressure(p)),
+                    x.utilisation.map_or_else(|| NONE.to_string(), percent),
+                    state_word(x.state),
+                ]
+            })
+        })
+        .collect();
+    let feet_head =
+        ["Floor", "Foot", "Normal force", "Horizontal", "Friction needed", "Bearing pressure", "Utilisation", "State"];
+    let mut out = table("case-floors", &head, &rows);
+    if !feet.is_empty() {
+        out.push_str(&table("case-feet", &feet_head, &feet));
+    }
+    out
 }
 
 fn load_paths(c: &CaseResult) -> String {

@@ -22,7 +22,7 @@ pub fn floors(scenario: &Scenario, units: UnitSystem) -> String {
             "inputs-floors",
             &[
                 "Floor",
-                "Spans x × z",
+                "Panel: spans x × z, place, friction",
                 "Thickness",
                 "Modulus",
                 "Poisson",
@@ -48,9 +48,21 @@ fn floor_row(f: &Floor, units: UnitSystem) -> Vec<String> {
     let point = f
         .rated_point
         .map_or_else(|| "point: none given".to_string(), |p| format!("point {}", units.force_input(p.value)));
+    let origin = format!(
+        "corner ({}, {}){}",
+        units.length(f.origin[0].value),
+        units.length(f.origin[1].value),
+        if f.origin_given { "" } else { ", centred under its feet (no origin given)" }
+    );
     vec![
         format!("<b>{}</b>", escape(&f.id)),
-        format!("{} × {}", units.length(f.span[0].value), units.length(f.span[1].value)),
+        format!(
+            "{} × {}<br>{origin}<br>friction limit {} ({})",
+            units.length(f.span[0].value),
+            units.length(f.span[1].value),
+            number(f.friction_limit),
+            escape(f.friction_source)
+        ),
         units.small_length(f.thickness.value),
         units.modulus(f.modulus.value),
         number(f.poisson),

@@ -6,9 +6,13 @@
 //! Member law: `T = k (L − L0)`, `k = EA / L0`, zero for a tension-only
 //! member when `L ≤ L0`. Tangent of one member, in the 3 × 3 block form
 //! `[[Kb, −Kb], [−Kb, Kb]]`: `Kb = k e⊗e` (material, when the member is
-//! active) `+ (T / L)(I − e⊗e)` (geometric). Floor: compression-only spring
-//! `F = k_f max(0, y0 − y)` on the node's y coordinate.
+//! active) `+ (T / L)(I − e⊗e)` (geometric). Floor: a lone foot is the
+//! compression-only spring `F = k_f max(0, y0 − y)` on the node's y
+//! coordinate; the feet of one panel are coupled through the plate
+//! ([`contact`](super::contact)): potential `½ P·p`, gradient `−P` on the
+//! feet's y, tangent `(C_AA)⁻¹` on the feet in contact A.
 
+use super::contact::{contact_forces, in_contact};
 use super::model::{FloorData, MemberData, Model, NONE};
 
 /// The state of one member at a configuration.
@@ -58,9 +62,24 @@ pub(crate) struct Inertia<'a> {
     pub target_m: &'a [f64],
 }
 
-/// Floor penetration `y0 − y` (positive in contact), m.
-fn penetration(f: &FloorData, pos: &[[f64; 3]]) -> f64 {
-    f.y0_m - pos[f.node][1]
+impl FloorData {
+    /// Penetrations `y0 − y` of the feet (positive pressed in), m.
+    fn penetrations(&self, pos: &[[f64; 3]]) -> Vec<f64> {
+        self.nodes.iter().zip(&self.y0_m).map(|(&n, y0)| y0 - pos[n][1]).collect()
+    }
+
+    /// The feet's normal forces at penetrations `p`, N (≥ 0).
+    pub(crate) fn forces(&self, p: &[f64]) -> Vec<f64> {
+        match self.single_k {
+            Some(k) => vec![if p[0] > 0.0 { k * p[0] } else { 0.0 }],
+            None => contact_forces(&self.flex, p),
+        }
+    }
+
+    /// The feet's normal forces at positions `pos`, N.
+    pub(crate) fn forces_at(&self, pos: &[[f64; 3]]) -> Vec<f64> {
+        self.forces(&self.penetrations(pos))
+    }
 }
 
 impl Model {
@@ -81,12 +100,19 @@ impl Model {
             scale += u + s.force_n.abs() * s.length_m;
         }
         for f in &self.floors {
-            let p = penetration(f, pos);
-            if p > 0.0 {
-                let u = 0.5 * f.k_n_per_m * p * p;
-                phi += u;
-                scale += u + f.k_n_per_m * p * pos[f.node][1].abs();
+            let p = f.penetrations(pos);
+            if let Some(k) = f.single_k {
+                if p[0] > 0.0 {
+                    let u = 0.5 * k * p[0] * p[0];
+                    phi += u;
+                    scale += u + k * p[0] * pos[f.nodes[0]][1].abs();
+                }
+                continue;
             }
+            let force = f.forces(&p);
+            let u = 0.5 * force.iter().zip(&p).map(|(a, b)| a * b).sum::<f64>();
+            phi += u;
+            scale += u + force.iter().zip(&f.nodes).map(|(a, &n)| a * pos[n][1].abs()).sum::<f64>();
         }
         for (dof, load) in loads_dof.iter().enumerate() {
             let x = self.dof_value(pos, dof);
@@ -166,15 +192,41 @@ impl Model {
             scale += du.abs() + m.k_n_per_m * dl.abs() * (e0.abs() + e1.abs() + l0 * f64::EPSILON);
         }
         for f in &self.floors {
-            let dy = step[f.dof];
-            if dy == 0.0 {
+            if let Some(k) = f.single_k {
+                let dy = step[f.dofs[0]];
+                if dy == 0.0 {
+                    continue;
+                }
+                let p0 = f.penetrations(pos)[0];
+                let p1 = p0 - dy;
+                let du = one_sided(p0, p1, -dy, k);
+                dphi += du;
+                scale += du.abs() + k * dy.abs() * (p0.abs() + p1.abs() + pos[f.nodes[0]][1].abs() * f64::EPSILON);
                 continue;
             }
-            let p0 = penetration(f, pos);
-            let p1 = p0 - dy;
-            let du = one_sided(p0, p1, -dy, f.k_n_per_m);
+            let dp: Vec<f64> = f.dofs.iter().map(|&d| -step[d]).collect();
+            if dp.iter().all(|v| *v == 0.0) {
+                continue;
+            }
+            let p0 = f.penetrations(pos);
+            let p1: Vec<f64> = p0.iter().zip(&dp).map(|(a, b)| a + b).collect();
+            let (f0, f1) = (f.forces(&p0), f.forces(&p1));
+            // Φ1 − Φ0 = ½(P0 + P1)·Δp + ½(P1·p0 − P0·p1); the bracket is zero
+            // while the contact set stays the same (P = (C_AA)⁻¹ p there, symmetric)
+            let dot = |a: &[f64], b: &[f64]| a.iter().zip(b).map(|(x, y)| x * y).sum::<f64>();
+            let mut du = 0.5 * f0.iter().zip(&f1).zip(&dp).map(|((a, b), d)| (a + b) * d).sum::<f64>();
+            let same = f0.iter().zip(&f1).all(|(a, b)| (*a > 0.0) == (*b > 0.0));
+            if !same {
+                du += 0.5 * (dot(&f1, &p0) - dot(&f0, &p1));
+            }
             dphi += du;
-            scale += du.abs() + f.k_n_per_m * dy.abs() * (p0.abs() + p1.abs() + pos[f.node][1].abs() * f64::EPSILON);
+            scale += du.abs()
+                + f0.iter()
+                    .zip(&f1)
+                    .zip(&dp)
+                    .zip(&f.nodes)
+                    .map(|(((a, b), d), &n)| (a.abs() + b.abs()) * (d.abs() + pos[n][1].abs() * f64::EPSILON))
+                    .sum::<f64>();
         }
         for (l, s) in loads_dof.iter().zip(step) {
             dphi -= l * s;
@@ -227,10 +279,20 @@ impl Model {
             }
         }
         for f in &self.floors {
-            let p = penetration(f, pos);
-            if p > 0.0 {
-                grad[f.dof] -= f.k_n_per_m * p;
-                mag[f.dof] += f.k_n_per_m * (p + pos[f.node][1].abs());
+            let p = f.penetrations(pos);
+            if let Some(k) = f.single_k {
+                if p[0] > 0.0 {
+                    grad[f.dofs[0]] -= k * p[0];
+                    mag[f.dofs[0]] += k * (p[0] + pos[f.nodes[0]][1].abs());
+                }
+                continue;
+            }
+            let force = f.forces(&p);
+            for (i, &d) in f.dofs.iter().enumerate() {
+                if force[i] > 0.0 {
+                    grad[d] -= force[i];
+                    mag[d] += force[i] + f.rate_n_per_m[i] * pos[f.nodes[i]][1].abs();
+                }
             }
         }
         if let Some(inn) = inertia {
@@ -275,8 +337,26 @@ impl Model {
             }
         }
         for f in &self.floors {
-            if penetration(f, pos) >= 0.0 {
-                values[self.diag_slots[f.dof]] += f.k_n_per_m;
+            let p = f.penetrations(pos);
+            if let Some(k) = f.single_k {
+                if p[0] >= 0.0 {
+                    values[self.diag_slots[f.dofs[0]]] += k;
+                }
+                continue;
+            }
+            let force = f.forces(&p);
+            let active: Vec<usize> =
+                in_contact(&f.flex, &p, &force).iter().enumerate().filter(|(_, a)| **a).map(|(i, _)| i).collect();
+            let (n, m) = (f.nodes.len(), active.len());
+            let sub: Vec<f64> = active.iter().flat_map(|&r| active.iter().map(move |&c| f.flex[r * n + c])).collect();
+            let Some(k) = crate::library::dense::inverse(&sub, m) else { continue };
+            for (a, &i) in active.iter().enumerate() {
+                for (b, &j) in active.iter().enumerate() {
+                    // each lower-triangle slot once: (i, j) with dof_i ≥ dof_j
+                    if f.dofs[i] >= f.dofs[j] {
+                        values[f.slots[i * n + j]] += k[a * m + b];
+                    }
+                }
             }
         }
         if let Some(inn) = inertia {

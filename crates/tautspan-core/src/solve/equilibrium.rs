@@ -55,8 +55,9 @@ impl Equilibrium {
         }
         let mut floor_force_n = vec![0.0; n_nodes];
         for f in &model.floors {
-            let p = f.y0_m - positions_m[f.node][1];
-            floor_force_n[f.node] = if p > 0.0 { f.k_n_per_m * p } else { 0.0 };
+            for (&node, force) in f.nodes.iter().zip(f.forces_at(&positions_m)) {
+                floor_force_n[node] = force;
+            }
         }
         let mut reaction_n = vec![[0.0; 3]; n_nodes];
         for (i, dofs) in model.node_dofs.iter().enumerate() {
@@ -67,7 +68,9 @@ impl Equilibrium {
             }
         }
         for f in &model.floors {
-            reaction_n[f.node][1] = floor_force_n[f.node];
+            for &node in &f.nodes {
+                reaction_n[node][1] = floor_force_n[node];
+            }
         }
         Self { positions_m, member_force_n, member_length_m, floor_force_n, reaction_n, iterations, residual_n }
     }

@@ -4,6 +4,7 @@
 
 mod assemble;
 mod compliance;
+mod contact;
 mod envelope;
 mod equilibrium;
 mod error;
@@ -19,7 +20,7 @@ mod validate;
 pub use equilibrium::Equilibrium;
 pub use error::SolveError;
 pub use load_path::{LoadPath, load_paths, load_paths_from};
-pub use network::{AxialLaw, Fixity, NetMember, NetNode, Network};
+pub use network::{AxialLaw, Fixity, NetMember, NetNode, NetPlate, Network};
 pub use newmark::{SimulateOptions, Simulation, SimulationStart, simulate};
 pub use newton::SolveOptions;
 pub use static_solver::{StaticSolver, solve_static};

@@ -25,15 +25,26 @@ pub(crate) struct MemberData {
     pub tension_only: bool,
 }
 
-/// A floor contact: compression-only spring on the node's y coordinate.
+/// A floor panel's feet: compression-only contacts on the feet's y
+/// coordinates, coupled through the plate's flexibility (see
+/// [`contact`](super::contact)). A floor node on no panel is a panel of one
+/// foot with its own spring rate.
 #[derive(Debug, Clone)]
 pub(crate) struct FloorData {
-    pub node: usize,
-    /// Index of the node's y dof.
-    pub dof: usize,
-    pub k_n_per_m: f64,
-    /// Drawn height (the unloaded floor surface), m.
-    pub y0_m: f64,
+    pub nodes: Vec<usize>,
+    /// Index of each foot's y dof.
+    pub dofs: Vec<usize>,
+    /// Drawn heights (the unloaded floor surface), m.
+    pub y0_m: Vec<f64>,
+    /// Flexibility at the feet, row-major n × n, m/N.
+    pub flex: Vec<f64>,
+    /// A lone foot's spring rate, N/m: the law `F = k max(0, p)` exactly.
+    pub single_k: Option<f64>,
+    /// Per foot, a rate for the damping scale and the time step (1 / C_ii), N/m.
+    pub rate_n_per_m: Vec<f64>,
+    /// Value slot of each (i, j) of the coupling block, row-major n × n
+    /// (the lower-triangle entry of the pair).
+    pub slots: Vec<usize>,
 }
 
 /// Dof numbering, member data and sparsity pattern of one network.
@@ -86,7 +97,7 @@ impl Model {
         let mut dof_node = Vec::new();
         let mut dof_axis = Vec::new();
         let mut mass_per_dof_kg = Vec::new();
-        let mut floors = Vec::new();
+        let mut floors: Vec<FloorData> = Vec::new();
         for (i, node) in net.nodes.iter().enumerate() {
             let axes: &[usize] = match node.fixity {
                 Fixity::Free if in_plane => &[0, 1],
@@ -100,12 +111,39 @@ impl Model {
                 dof_axis.push(ax);
                 mass_per_dof_kg.push(node.mass_kg);
             }
-            if let Fixity::Floor { stiffness_n_per_m } = node.fixity {
+        }
+        let mut on_plate = vec![false; net.nodes.len()];
+        for plate in &net.plates {
+            for &i in &plate.nodes {
+                on_plate[i] = true;
+            }
+            let n = plate.nodes.len();
+            floors.push(FloorData {
+                nodes: plate.nodes.clone(),
+                dofs: plate.nodes.iter().map(|&i| node_dofs[i][1]).collect(),
+                y0_m: plate.nodes.iter().map(|&i| net.nodes[i].position_m[1]).collect(),
+                flex: plate.flexibility_m_per_n.clone(),
+                single_k: None,
+                // the stiffest each foot can be with every foot in contact
+                rate_n_per_m: match crate::library::dense::inverse(&plate.flexibility_m_per_n, n) {
+                    Some(k) => (0..n).map(|i| k[i * n + i]).collect(),
+                    None => (0..n).map(|i| 1.0 / plate.flexibility_m_per_n[i * n + i]).collect(),
+                },
+                slots: Vec::new(),
+            });
+        }
+        for (i, node) in net.nodes.iter().enumerate() {
+            if let Fixity::Floor { stiffness_n_per_m } = node.fixity
+                && !on_plate[i]
+            {
                 floors.push(FloorData {
-                    node: i,
-                    dof: node_dofs[i][1],
-                    k_n_per_m: stiffness_n_per_m,
-                    y0_m: node.position_m[1],
+                    nodes: vec![i],
+                    dofs: vec![node_dofs[i][1]],
+                    y0_m: vec![node.position_m[1]],
+                    flex: vec![1.0 / stiffness_n_per_m],
+                    single_k: Some(stiffness_n_per_m),
+                    rate_n_per_m: vec![stiffness_n_per_m],
+                    slots: Vec::new(),
                 });
             }
         }
@@ -137,6 +175,15 @@ impl Model {
                 }
             }
         }
+        for f in &floors {
+            for &r in &f.dofs {
+                for &c in &f.dofs {
+                    if r > c {
+                        triplets.push(Triplet::new(r, c, 0.0));
+                    }
+                }
+            }
+        }
         let matrix = SparseColMat::<usize, f64>::try_new_from_triplets(n, n, &triplets)
             .map_err(|e| SolveError::Factorisation { reason: format!("{e:?}") })?;
         let slot = |r: usize, c: usize| -> usize {
@@ -161,6 +208,14 @@ impl Model {
                 s
             })
             .collect();
+        for f in &mut floors {
+            f.slots = f
+                .dofs
+                .iter()
+                .flat_map(|&r| f.dofs.iter().map(move |&c| (r.max(c), r.min(c))))
+                .map(|(r, c)| slot(r, c))
+                .collect();
+        }
 
         let mut rate_sum = vec![0.0; net.nodes.len()];
         for m in &members {
@@ -168,7 +223,9 @@ impl Model {
             rate_sum[m.ends[1]] += m.k_n_per_m;
         }
         for f in &floors {
-            rate_sum[f.node] += f.k_n_per_m;
+            for (&node, k) in f.nodes.iter().zip(&f.rate_n_per_m) {
+                rate_sum[node] += k;
+            }
         }
         let stiffness_scale_n_per_m = rate_sum.iter().copied().fold(0.0, f64::max).max(f64::MIN_POSITIVE);
 

@@ -25,6 +25,9 @@ pub enum Fixity {
     /// Resting on a floor slab: x and z held (friction or fixing assumed), y
     /// carried by a compression-only spring about the drawn height. When the
     /// rig would lift the node, contact opens and the spring force is zero.
+    /// A node listed in one of [`Network::plates`] is carried by that
+    /// plate's coupled flexibility instead, and its own stiffness here is
+    /// only a rate for the time step (give `1 / C_ii`).
     Floor {
         /// Spring stiffness of the slab at the node (from plate bending), N/m.
         stiffness_n_per_m: f64,
@@ -61,6 +64,20 @@ pub struct NetMember {
     pub law: AxialLaw,
 }
 
+/// A floor panel carrying several floor nodes (its feet) through plate
+/// bending: the deflection under foot i is `w_i = Σ_j C_ij P_j`, each foot
+/// compression-only (a lifted foot carries nothing; the plate under it
+/// still deflects from the others).
+#[derive(Debug, Clone, PartialEq)]
+pub struct NetPlate {
+    /// Name for messages (the scenario's floor id).
+    pub name: String,
+    /// The feet: indices into [`Network::nodes`], each with [`Fixity::Floor`].
+    pub nodes: Vec<usize>,
+    /// Flexibility at the feet, row-major n × n, m/N (symmetric positive definite).
+    pub flexibility_m_per_n: Vec<f64>,
+}
+
 /// A whole rig as the solver sees it.
 #[derive(Debug, Clone, PartialEq, Default)]
 pub struct Network {
@@ -68,4 +85,7 @@ pub struct Network {
     pub nodes: Vec<NetNode>,
     /// Members.
     pub members: Vec<NetMember>,
+    /// Floor panels coupling their feet. Floor nodes in none of them are
+    /// independent springs.
+    pub plates: Vec<NetPlate>,
 }

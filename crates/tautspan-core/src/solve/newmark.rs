@@ -110,7 +110,9 @@ fn automatic_time_step(model: &Model, net: &Network) -> Option<f64> {
         rate[m.ends[1]] += m.k_n_per_m;
     }
     for f in &model.floors {
-        rate[f.node] += f.k_n_per_m;
+        for (&node, k) in f.nodes.iter().zip(&f.rate_n_per_m) {
+            rate[node] += k;
+        }
     }
     let omega2 =
         net.nodes.iter().zip(&rate).filter(|(n, _)| n.mass_kg > 0.0).map(|(n, k)| k / n.mass_kg).fold(0.0, f64::max);

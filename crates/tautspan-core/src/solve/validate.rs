@@ -32,6 +32,34 @@ pub(crate) fn validate_network(net: &Network) -> Result<(), SolveError> {
             return Err(invalid(item, "floor stiffness must be finite and positive"));
         }
     }
+    let mut on_plate = vec![false; net.nodes.len()];
+    for plate in &net.plates {
+        let item = format!("floor {}", plate.name);
+        let n = plate.nodes.len();
+        if plate.flexibility_m_per_n.len() != n * n {
+            return Err(invalid(
+                item,
+                format!("flexibility has {} entries for {n} feet", plate.flexibility_m_per_n.len()),
+            ));
+        }
+        for &i in &plate.nodes {
+            let Some(node) = net.nodes.get(i) else {
+                return Err(invalid(item, format!("foot index {i} out of range for {} nodes", net.nodes.len())));
+            };
+            if !matches!(node.fixity, Fixity::Floor { .. }) {
+                return Err(invalid(item, format!("foot {} does not rest on a floor", node.name)));
+            }
+            if std::mem::replace(&mut on_plate[i], true) {
+                return Err(invalid(item, format!("foot {} is on more than one floor panel", node.name)));
+            }
+        }
+        let c = &plate.flexibility_m_per_n;
+        let symmetric =
+            (0..n).all(|i| (0..n).all(|j| (c[i * n + j] - c[j * n + i]).abs() <= 1e-9 * c[i * n + i].abs()));
+        if !c.iter().all(|v| v.is_finite()) || !symmetric || crate::library::dense::cholesky(c, n).is_none() {
+            return Err(invalid(item, "flexibility must be finite, symmetric and positive definite"));
+        }
+    }
     for member in &net.members {
         let item = format!("member {}", member.name);
         let [a, b] = member.ends;
