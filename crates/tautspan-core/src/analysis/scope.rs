@@ -46,6 +46,14 @@ fn has_parts(s: &Scenario) -> bool {
         || s.nodes.iter().any(|n| !n.fittings.is_empty() || n.rated.is_some())
 }
 
+fn has_hitch(s: &Scenario) -> bool {
+    s.members.iter().any(|m| m.hitch.is_some())
+}
+
+fn has_bend(s: &Scenario) -> bool {
+    s.members.iter().any(|m| m.bend.is_some())
+}
+
 fn has_unrated_anchor(s: &Scenario) -> bool {
     s.nodes.iter().any(|n| n.support == Support::Anchor && n.rated.is_none())
 }
@@ -80,9 +88,25 @@ const CHECKED: &[Entry] = &[
         text: "fittings entered: WLL against the member force (at a node: the resultant of the members above it); eye bolts derated by angle; hoists against their side-pull limit where given; anchors with a rating against the reaction",
         applies: has_parts,
     },
+    Entry {
+        text: "sling hitches entered: the member's allowable x the mode factor of its hitch under the scenario's rules (EN 13414-1 / EN 1492-1 / EN 818-4; under ASME, the B30.9 choke-angle reduction on chokers)",
+        applies: has_hitch,
+    },
+    Entry {
+        text: "wire rope bent over a pin or sheave where bent_over is given: the D/d efficiency on the allowable",
+        applies: has_bend,
+    },
 ];
 
 const NOT_CHECKED: &[Entry] = &[
+    Entry {
+        text: "hitches not entered: every sling is taken as a straight pull (mode factor 1); the rules for mode factors are EN unless `rules: ASME` is given",
+        applies: always,
+    },
+    Entry {
+        text: "bending of wire rope over pins, sheaves, hooks and load edges where bent_over is not given; edge protection; multi-leg sling ratings by leg count",
+        applies: always,
+    },
     Entry {
         text: "fittings and hardware not entered in the scenario (shackles, hooks, links, eye bolts, clamps, hoists), and the fit, wear and side loading of those entered beyond their WLL and the angles named",
         applies: always,
