@@ -369,7 +369,11 @@ fn choker_sling_in_json_carries_its_mode_factor() {
             assert!(((force - 5482.1) / 5482.1).abs() < 1e-2, "{force}");
         }
         assert!(
-            v["scope"]["checked"].as_array().expect("checked").iter().any(|c| c.as_str().is_some_and(|s| s.contains("sling hitches"))),
+            v["scope"]["checked"]
+                .as_array()
+                .expect("checked")
+                .iter()
+                .any(|c| c.as_str().is_some_and(|s| s.contains("sling hitches"))),
             "{}",
             v["scope"]
         );
