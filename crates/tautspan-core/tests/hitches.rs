@@ -153,3 +153,20 @@ fn a_hitched_member_is_a_sling_leg() {
         hitched.cases[0].warnings
     );
 }
+
+// The report's member strength table gets a hitch column where a member has
+// a hitch, with the factor and its source (EN 13414-1, from memory); the
+// efficiency cell carries the D/d note (0.9 x 0.86 = 0.774).
+#[test]
+fn report_inputs_show_the_hitch_and_the_bend() {
+    let text = line(&format!("{WIRE}, diameter: \"16 mm\", bent_over: \"160 mm\", hitch: Choker"), "");
+    let l = load_scenario(&text).unwrap();
+    let doc = tautspan_core::report::html(&l.scenario, &analyse(&l.scenario), "2025-03-14");
+    assert!(doc.contains("Hitch (mode factor)"));
+    assert!(doc.contains("EN 13414-1 / EN 1492-1 / EN 818-4 mode factor, choked (from memory)"));
+    assert!(doc.contains("D/d 10"), "the bend's note is in the efficiency cell");
+    assert!(doc.contains("0.774"));
+    let plain = load_scenario(&line(WIRE, "")).unwrap();
+    let doc = tautspan_core::report::html(&plain.scenario, &analyse(&plain.scenario), "2025-03-14");
+    assert!(!doc.contains("Hitch (mode factor)"));
+}

@@ -198,10 +198,8 @@ pub fn assumptions(s: &Scenario) -> Vec<String> {
         if s.rules == crate::library::Rules::En { " (the default; give `rules: ASME` for the B30.9 choke-angle reduction)" } else { "" },
         if s.rules == crate::library::Rules::Asme { ", a choker's also by the ASME B30.9 choke-angle reduction (over 120 deg 1.00, 90-120 0.87, 60-89 0.74, 30-59 0.62; from memory; a choker needs its choke_angle)" } else { "" },
     ));
-    if !hitched {
-        if let Some(last) = v.last_mut() {
-            last.push_str(" No member in this scenario has a hitch.");
-        }
+    if !hitched && let Some(last) = v.last_mut() {
+        last.push_str(" No member in this scenario has a hitch.");
     }
     if s.members.iter().any(|m| m.bend.is_some()) {
         v.push(format!("Wire rope bent over a pin or sheave (bent_over D, nominal diameter d): efficiency from D/d on the curve {:?}, linear between points, 0.95 held above D/d 40, D/d below 1 refused ({}); it multiplies the termination efficiency (and a working load limit).", crate::library::BEND_CURVE, crate::library::BEND_SOURCE));

@@ -137,8 +137,6 @@ pub enum HitchField {
     ChokeAngle,
     /// `basket_angle`.
     BasketAngle,
-    /// `hitch`.
-    Hitch,
 }
 
 fn row(h: Hitch) -> &'static ModeRow {
@@ -173,14 +171,6 @@ pub fn mode_factor(
     let base = row(hitch);
     match (hitch, rules) {
         (Hitch::Basket, _) => match basket_angle_deg {
-            None => Ok(ModeFactor {
-                hitch,
-                factor: base.factor,
-                note: format!(
-                    "{} {} ({}); the member is the whole basket's pull",
-                    base.label, base.factor, base.source
-                ),
-            }),
             Some(a) if !(0.0..=EN_BASKET_ANGLED.0).contains(&a) => Err((
                 HitchField::BasketAngle,
                 format!(
@@ -188,7 +178,7 @@ pub fn mode_factor(
                     EN_BASKET_ANGLED.0
                 ),
             )),
-            Some(a) if a == 0.0 => Ok(ModeFactor {
+            None | Some(0.0) => Ok(ModeFactor {
                 hitch,
                 factor: base.factor,
                 note: format!(

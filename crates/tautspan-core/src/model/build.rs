@@ -978,7 +978,6 @@ fn build_hitch(ctx: &mut Ctx, i: usize, m: &MemberDto, kind: MemberKind, rules: 
             let name = match field {
                 HitchField::ChokeAngle => "choke_angle",
                 HitchField::BasketAngle => "basket_angle",
-                HitchField::Hitch => "hitch",
             };
             ctx.err(p(name), why);
             None
