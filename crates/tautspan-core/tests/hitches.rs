@@ -88,7 +88,7 @@ fn results_carry_the_mode_factor_and_bend_efficiency() {
     let plain = analysed(&line(WIRE, ""));
     assert_eq!(plain.cases[0].members[0].mode_factor, None);
     assert!(plain.scope.checked.iter().all(|c| !c.contains("hitches entered")));
-    assert!(a.scope.checked.iter().any(|c| c.contains("sling hitches entered")), "{:?}", a.scope.checked);
+    assert!(a.scope.checked.iter().any(|c| c.contains("sling hitches entered, rules EN")), "{:?}", a.scope.checked);
     assert!(a.assumptions.iter().any(|s| s.contains("Rules for sling mode factors: EN")), "{:?}", a.assumptions);
 }
 

@@ -244,6 +244,7 @@ pub fn case_warnings(s: &Scenario, case: &Case, r: &CaseResult, static_r: Option
         }
     }
     w.extend(part_warnings(s, r));
+    w.extend(super::multi_leg::multi_leg_warnings(s, r, &legs));
     w
 }
 
