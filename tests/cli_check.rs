@@ -322,3 +322,66 @@ fn strut_without_section_is_unchecked_and_exits_1() {
     assert!(((n - 35.52e3) / 35.52e3).abs() < 5e-3, "{n}");
     assert!(v["cases"][0]["members"][0]["buckling_resistance_n"].as_f64().is_some());
 }
+
+/// A two-leg choker sling from two anchors 2 m apart to the load 2 m below
+/// them: legs atan(2/1) = 63.43 deg from horizontal. By statics each leg
+/// carries W / (2 sin 63.43 deg) = 9806.65 / 1.78885 = 5482.1 N for 1000 kg.
+/// Each leg: MBS 100 kN x ferrule 0.90 (EN 13414-1, from memory) / 5
+/// (ASME B30.9) = 18 kN x choke 0.8 (EN 13414-1 mode factor, from memory)
+/// = 14.4 kN; under `rules: ASME` with a 90 deg choke angle x 0.87 (ASME
+/// B30.9, from memory) = 12.528 kN. Tolerances: 1e-9 on the allowable
+/// (table arithmetic), 1 % on the force (large-displacement solve; the legs
+/// stretch 5e-4).
+#[test]
+fn choker_sling_in_json_carries_its_mode_factor() {
+    let rig = |head: &str, hitch: &str| {
+        let leg = |id: &str, from: &str| {
+            format!(
+                r#"Member(id: "{id}", ends: ("{from}", "M"), kind: WireRope, area: "100 mm^2", modulus: "100 GPa",
+                      rating: BreakingStrength("100 kN"), termination: FerruleSecured, linear_mass: "0 kg/m", {hitch})"#
+            )
+        };
+        format!(
+            r#"Scenario(format: 1, title: "two-leg choker", {head}
+    nodes: [ Node(id: "A", at: ("-1 m", "4 m"), support: Anchor), Node(id: "B", at: ("1 m", "4 m"), support: Anchor),
+             Node(id: "M", at: ("0 m", "2 m")) ],
+    members: [ {}, {} ],
+    masses: [ Mass(id: "load", at: "M", mass: "1000 kg") ],
+    cases: [ Static(id: "s") ])"#,
+            leg("west", "A"),
+            leg("east", "B")
+        )
+    };
+    for (head, hitch, allowable, mode) in [
+        ("", "hitch: Choker", 14.4e3, 0.8),
+        ("rules: ASME,", r#"hitch: Choker, choke_angle: "90 deg""#, 12.528e3, 0.8 * 0.87),
+    ] {
+        let f = tmp_file("choker.ron", &rig(head, hitch));
+        let out = run(&["check", "--format", "json", f.to_str().expect("path")]);
+        assert_eq!(out.status.code(), Some(0), "{}", String::from_utf8_lossy(&out.stderr));
+        let v: serde_json::Value = serde_json::from_slice(&out.stdout).expect("json");
+        for m in v["cases"][0]["members"].as_array().expect("members") {
+            let a = m["allowable_n"].as_f64().expect("allowable");
+            assert!(((a - allowable) / allowable).abs() < 1e-9, "{head} {a}");
+            let got = m["mode_factor"].as_f64().expect("mode_factor");
+            assert!((got - mode).abs() < 1e-12, "{got}");
+            let force = m["force_n"].as_f64().expect("force");
+            assert!(((force - 5482.1) / 5482.1).abs() < 1e-2, "{force}");
+        }
+        assert!(
+            v["scope"]["checked"]
+                .as_array()
+                .expect("checked")
+                .iter()
+                .any(|c| c.as_str().is_some_and(|s| s.contains("sling hitches"))),
+            "{}",
+            v["scope"]
+        );
+    }
+    // under ASME a choker without its angle is refused, located, exit 2
+    let f = tmp_file("choker-no-angle.ron", &rig("rules: ASME,", "hitch: Choker"));
+    let out = run(&["check", "--format", "json", f.to_str().expect("path")]);
+    assert_eq!(out.status.code(), Some(2));
+    let err = String::from_utf8_lossy(&out.stderr);
+    assert!(err.contains("members[0].choke_angle") && err.contains("choke_angle"), "{err}");
+}

@@ -416,6 +416,15 @@ fn result(ui: &mut Ui, input: &InspectorInput<'_>, member_id: &str) {
         ui.label(RichText::new(format!("Unchecked: {reason}")).color(crate::qty_field::ERROR));
     }
     crate::parts_view::fittings(ui, &r.fittings, u);
+    let model = solved.scenario.members.iter().find(|m| m.id == member_id);
+    if let Some(f) = r.mode_factor {
+        let note = model.and_then(|m| m.hitch.as_ref()).map_or_else(String::new, |h| h.note.clone());
+        ui.label(format!("Hitch mode factor {f:.3} on the allowable")).on_hover_text(note);
+    }
+    if let Some(e) = r.bend_efficiency {
+        let note = model.and_then(|m| m.bend.as_ref()).map_or_else(String::new, |b| b.note.clone());
+        ui.label(format!("Bent over a pin: D/d efficiency {e:.3}")).on_hover_text(note);
+    }
     if let (Some(e), Some(b)) = (r.euler_n, r.buckling_resistance_n) {
         ui.label(format!(
             "Euler load {}, buckling resistance χ·A·f_y {}",

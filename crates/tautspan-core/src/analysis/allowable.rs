@@ -30,11 +30,36 @@ fn kn(v: f64) -> String {
 /// Allowable axial force of a member, N (the number of [`member_allowable`]
 /// without its derivation, for the solves that need only the number).
 pub fn member_allowable_n(m: &Member) -> f64 {
+    let mode = mode_factor(m);
     match m.rating {
-        Rating::BreakingStrength(f) => f.value * m.efficiency / m.design_factor.value,
-        Rating::WorkingLoadLimit(f) => f.value / m.design_factor.duty_multiplier,
-        Rating::Yield(fy) => fy.value * m.area.value / m.design_factor.value,
+        Rating::BreakingStrength(f) => f.value * m.efficiency / m.design_factor.value * mode,
+        Rating::WorkingLoadLimit(f) => f.value * bend_efficiency(m) / m.design_factor.duty_multiplier * mode,
+        Rating::Yield(fy) => fy.value * m.area.value / m.design_factor.value * mode,
     }
+}
+
+/// The hitch's mode factor on the allowable (1 without a hitch).
+pub fn mode_factor(m: &Member) -> f64 {
+    m.hitch.as_ref().map_or(1.0, |h| h.factor)
+}
+
+/// The D/d bending efficiency (1 when not bent over a pin). With a
+/// breaking strength it is part of `efficiency`; a working load limit,
+/// which holds the termination but not a tight bend, is multiplied by it.
+pub fn bend_efficiency(m: &Member) -> f64 {
+    m.bend.as_ref().map_or(1.0, |b| b.efficiency)
+}
+
+/// The words for the hitch and, on a working load limit, the bend.
+fn extra(m: &Member, wll: bool) -> String {
+    let mut s = String::new();
+    if wll && let Some(b) = &m.bend {
+        s.push_str(&format!("; x D/d efficiency {}: {}", format_number(b.efficiency, 3), b.note));
+    }
+    if let Some(h) = &m.hitch {
+        s.push_str(&format!("; x mode factor {}: {}", format_number(h.factor, 3), h.note));
+    }
+    s
 }
 
 /// Allowable axial force of a member.
@@ -54,23 +79,39 @@ pub fn member_allowable(m: &Member) -> Allowable {
             Allowable {
                 force_n: a,
                 explanation: format!(
-                    "minimum breaking strength {} x efficiency {} / {} = {}; strength: {}; efficiency: {}",
+                    "minimum breaking strength {} x efficiency {} / {}{} = {}; strength: {}; efficiency: {}",
                     kn(f.value),
                     format_number(m.efficiency, 3),
                     df_src,
+                    if m.hitch.is_some() {
+                        format!(" x mode factor {}", format_number(mode_factor(m), 3))
+                    } else {
+                        String::new()
+                    },
                     kn(a),
                     m.rating_note,
                     m.efficiency_note
-                ),
+                ) + &extra(m, false).replace("; x D/d", "; D/d"),
             }
         }
         Rating::WorkingLoadLimit(f) if df.duty_multiplier != 1.0 => Allowable {
             force_n: member_allowable_n(m),
             explanation: format!(
-                "working load limit {} / {} for the duty ({}) = {} ({})",
+                "working load limit {} / {} for the duty ({}){} = {} ({})",
                 kn(f.value),
                 format_number(df.duty_multiplier, 3),
                 df.default.source,
+                extra(m, true),
+                kn(member_allowable_n(m)),
+                m.rating_note
+            ),
+        },
+        Rating::WorkingLoadLimit(f) if m.hitch.is_some() || m.bend.is_some() => Allowable {
+            force_n: member_allowable_n(m),
+            explanation: format!(
+                "working load limit {}{} = {} ({})",
+                kn(f.value),
+                extra(m, true),
                 kn(member_allowable_n(m)),
                 m.rating_note
             ),

@@ -191,6 +191,19 @@ pub fn assumptions(s: &Scenario) -> Vec<String> {
     } else {
         format!("Duty: {}: default design factors x {} and working load limits / {} ({why}).", s.duty.label(), format_number(multiplier, 3), format_number(multiplier, 3))
     });
+    let hitched = s.members.iter().any(|m| m.hitch.is_some());
+    v.push(format!(
+        "Rules for sling mode factors: {}{}: a member's `hitch` multiplies its allowable by the mode factor (straight 1.0, choker 0.8, basket with parallel legs 2.0, basket 0-45 deg from vertical 1.4; EN 13414-1 / EN 1492-1 / EN 818-4, from memory){}; a basket modelled as one member is the whole basket's pull (both parts together).",
+        s.rules.label(),
+        if s.rules == crate::library::Rules::En { " (the default; give `rules: ASME` for the B30.9 choke-angle reduction)" } else { "" },
+        if s.rules == crate::library::Rules::Asme { ", a choker's also by the ASME B30.9 choke-angle reduction (over 120 deg 1.00, 90-120 0.87, 60-89 0.74, 30-59 0.62; from memory; a choker needs its choke_angle)" } else { "" },
+    ));
+    if !hitched && let Some(last) = v.last_mut() {
+        last.push_str(" No member in this scenario has a hitch.");
+    }
+    if s.members.iter().any(|m| m.bend.is_some()) {
+        v.push(format!("Wire rope bent over a pin or sheave (bent_over D, nominal diameter d): efficiency from D/d on the curve {:?}, linear between points, 0.95 held above D/d 40, D/d below 1 refused ({}); it multiplies the termination efficiency (and a working load limit).", crate::library::BEND_CURVE, crate::library::BEND_SOURCE));
+    }
     v
 }
 

@@ -9,6 +9,7 @@ mod fittings;
 mod floor_check;
 pub mod formulas;
 mod limits;
+mod multi_leg;
 pub mod results;
 mod scope;
 mod simulate_case;

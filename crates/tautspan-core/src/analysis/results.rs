@@ -64,6 +64,12 @@ pub struct MemberResult {
     /// Why the member is `unchecked`, when it is.
     #[serde(skip_serializing_if = "Option::is_none")]
     pub reason: Option<String>,
+    /// The hitch's mode factor on the allowable, where the member has a hitch.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub mode_factor: Option<f64>,
+    /// The D/d efficiency of a wire rope bent over a pin, where given.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub bend_efficiency: Option<f64>,
     /// A rod's Euler load `π² E I / (K L)²`, N; `None` where not a strut
     /// or its buckling cannot be found.
     pub euler_n: Option<f64>,

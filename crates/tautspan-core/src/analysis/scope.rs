@@ -3,6 +3,7 @@
 //! "safe". The entries are data, one per item with the condition under which
 //! it applies to a scenario.
 
+use crate::library::Rules;
 use crate::model::{Case, Scenario, Support};
 use serde::Serialize;
 
@@ -46,6 +47,18 @@ fn has_parts(s: &Scenario) -> bool {
         || s.nodes.iter().any(|n| !n.fittings.is_empty() || n.rated.is_some())
 }
 
+fn has_hitch_en(s: &Scenario) -> bool {
+    s.rules == Rules::En && s.members.iter().any(|m| m.hitch.is_some())
+}
+
+fn has_hitch_asme(s: &Scenario) -> bool {
+    s.rules == Rules::Asme && s.members.iter().any(|m| m.hitch.is_some())
+}
+
+fn has_bend(s: &Scenario) -> bool {
+    s.members.iter().any(|m| m.bend.is_some())
+}
+
 fn has_unrated_anchor(s: &Scenario) -> bool {
     s.nodes.iter().any(|n| n.support == Support::Anchor && n.rated.is_none())
 }
@@ -80,9 +93,29 @@ const CHECKED: &[Entry] = &[
         text: "fittings entered: WLL against the member force (at a node: the resultant of the members above it); eye bolts derated by angle; hoists against their side-pull limit where given; anchors with a rating against the reaction",
         applies: has_parts,
     },
+    Entry {
+        text: "sling hitches entered, rules EN: the member's allowable x the mode factor of its hitch (EN 13414-1 / EN 1492-1 / EN 818-4)",
+        applies: has_hitch_en,
+    },
+    Entry {
+        text: "sling hitches entered, rules ASME: the member's allowable x the mode factor of its hitch, chokers also x the ASME B30.9 choke-angle reduction",
+        applies: has_hitch_asme,
+    },
+    Entry {
+        text: "wire rope bent over a pin or sheave where bent_over is given: the D/d efficiency on the allowable",
+        applies: has_bend,
+    },
 ];
 
 const NOT_CHECKED: &[Entry] = &[
+    Entry {
+        text: "hitches not entered: every sling is taken as a straight pull (mode factor 1); the rules for mode factors are EN unless `rules: ASME` is given",
+        applies: always,
+    },
+    Entry {
+        text: "bending of wire rope over pins, sheaves, hooks and load edges where bent_over is not given; edge protection; 3- and 4-leg slings: the EN 818-4 / EN 13414-2 two-leg rating is shown as advice at each gathering point beside the solved leg forces, not checked (each leg is checked on its own solved force)",
+        applies: always,
+    },
     Entry {
         text: "fittings and hardware not entered in the scenario (shackles, hooks, links, eye bolts, clamps, hoists), and the fit, wear and side loading of those entered beyond their WLL and the angles named",
         applies: always,

@@ -244,6 +244,7 @@ pub fn case_warnings(s: &Scenario, case: &Case, r: &CaseResult, static_r: Option
         }
     }
     w.extend(part_warnings(s, r));
+    w.extend(super::multi_leg::multi_leg_warnings(s, r, &legs));
     w
 }
 
@@ -263,7 +264,7 @@ const LEVEL: f64 = 1e-6;
 /// link). A gathering point has no level member at it. So guys (whose lower
 /// end hangs nothing), level ties and spreaders, and the inner members of a
 /// net (joints with several lines up and down or level ones) are not legs.
-/// (A member's `hitch`, when the file format has one, will also make it a leg.)
+/// A taut tension member with a `hitch` is a sling leg wherever it is.
 pub fn sling_legs(s: &Scenario, r: &CaseResult) -> Vec<bool> {
     let n = s.nodes.len();
     let pos = |k: usize| r.nodes.get(k).map_or_else(|| s.position_m(k), |x| x.position_m);
@@ -335,7 +336,9 @@ pub fn sling_legs(s: &Scenario, r: &CaseResult) -> Vec<bool> {
         }
     }
     taut.iter()
-        .map(|t| match *t {
+        .zip(&s.members)
+        .map(|(t, m)| match *t {
+            Some(_) if m.hitch.is_some() => true,
             Some((lo, hi, true)) if hangs[lo] => {
                 let at_lower = legs_up[lo] >= 2 && down[lo] <= 1 && level[lo] == 0;
                 let at_upper = legs_down[hi] >= 2 && up[hi] <= 1 && level[hi] == 0;

@@ -240,6 +240,18 @@ pub struct MemberDto {
     /// Wire rope: how its ends are made, for the termination efficiency (EN 13414-1).
     #[serde(default, skip_serializing_if = "Option::is_none")]
     pub termination: Option<crate::library::Termination>,
+    /// A sling's hitch (`Straight`, `Choker`, `Basket`): a mode factor on the allowable (not on rods).
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub hitch: Option<crate::library::Hitch>,
+    /// A choker's choke angle (e.g. `"120 deg"`), for the ASME B30.9 reduction under `rules: ASME`.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub choke_angle: Option<Qty>,
+    /// A basket's legs from vertical (0 to 45 deg); omitted = legs parallel.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub basket_angle: Option<Qty>,
+    /// Wire rope bent over a pin or sheave of this diameter D: the D/d efficiency (needs `diameter`).
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub bent_over: Option<Qty>,
     /// Fibre rope used as a textile sling (EN 1492-1/-2/-4): design factor 7.
     #[serde(default, skip_serializing_if = "Option::is_none")]
     pub sling: Option<crate::library::TextileSling>,
@@ -398,6 +410,9 @@ pub struct ScenarioDto {
     /// Over people or lifting persons: raises the default design factors (default standard).
     #[serde(default, skip_serializing_if = "Option::is_none")]
     pub duty: Option<crate::library::Duty>,
+    /// Rule set for sling mode factors (`EN` or `ASME`); omitted = EN.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub rules: Option<crate::library::Rules>,
     /// Nodes.
     #[serde(default)]
     pub nodes: Vec<NodeDto>,

@@ -1,12 +1,14 @@
 //! The member library: kinds, materials, rope constructions, chain grades,
 //! fibre rope stiffness, floor slabs. Every value carries its source.
 
+mod bend;
 mod buckling;
 mod chain;
 pub(crate) mod dense;
 mod duty;
 mod eye_bolt;
 mod fibre_rope;
+mod hitch;
 mod material;
 mod member_kind;
 mod plate_clamped;
@@ -17,6 +19,7 @@ mod termination;
 mod textile_sling;
 mod wire_rope;
 
+pub use bend::{BEND_CURVE, BEND_SOURCE, bend_efficiency};
 pub use buckling::{
     ALUMINIUM_CLASSES, Buckling, Curve, CurveError, STAINLESS_HOLLOW, STEEL_CURVES, Section, buckling, curve_for,
     euler_load_n, reduction_factor, steel_tube_class_4,
@@ -25,6 +28,7 @@ pub use chain::{ChainGrade, chain_area_m2, chain_linear_mass_kg_m};
 pub use duty::Duty;
 pub use eye_bolt::{EYE_BOLT_SOURCE, EyeBoltRow, PLAIN_EYE_BOLT, SHOULDER_EYE_BOLT, eye_bolt_fraction};
 pub use fibre_rope::{default_elongation_at_20pct, fibre_axial_stiffness_n, fibre_linear_mass_kg_m};
+pub use hitch::{Hitch, HitchField, ModeFactor, Rules, mode_factor};
 pub use material::{Material, MaterialData};
 pub use member_kind::{Carries, DefaultFactor, MemberKind};
 pub use plate_clamped::{ClampedPlate, RITZ_TERMS};

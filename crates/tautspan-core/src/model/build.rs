@@ -6,9 +6,10 @@
 use super::build_fittings::{Host, build_fittings, build_rated};
 use super::floor_feet::place_feet;
 use super::scenario::{
-    Case, DEFAULT_FRICTION_LIMIT, DesignFactor, Floor, Mass, Member, Node, Rating, Scenario, Strut, Support,
+    Bend, Case, DEFAULT_FRICTION_LIMIT, DesignFactor, Floor, Mass, Member, Node, Rating, Scenario, Strut, Support,
 };
 use crate::file::{CaseDto, FloorDto, MemberDto, Qty, RatingDto, ScenarioDto, SectionDto, SupportDto};
+use crate::library::{BEND_SOURCE, HitchField, ModeFactor, Rules, bend_efficiency, mode_factor};
 use crate::library::{
     ChainGrade, Construction, Material, MemberKind, ROPE_GRADES, chain_area_m2, chain_linear_mass_kg_m,
     default_elongation_at_20pct, fibre_axial_stiffness_n, fibre_linear_mass_kg_m, point_stiffness_n_per_m,
@@ -230,7 +231,9 @@ pub fn build(dto: &ScenarioDto) -> Result<Scenario, Vec<Problem>> {
             );
             continue;
         }
-        if let Some(mut member) = build_member(&mut ctx, i, m, dto.duty.unwrap_or_default()) {
+        if let Some(mut member) =
+            build_member(&mut ctx, i, m, dto.duty.unwrap_or_default(), dto.rules.unwrap_or_default())
+        {
             member.ends = [a, b];
             if drawn + member.slack.value <= 1e-9 {
                 ctx.err(
@@ -358,6 +361,7 @@ pub fn build(dto: &ScenarioDto) -> Result<Scenario, Vec<Problem>> {
         near_limit,
         dynamic_ratio_warning,
         duty: dto.duty.unwrap_or_default(),
+        rules: dto.rules.unwrap_or_default(),
         nodes,
         members,
         floors,
@@ -502,7 +506,7 @@ const AREA_AGREEMENT: f64 = 0.005;
 /// a free end lengthens it (2.0): give `effective_length_factor` then.
 pub const DEFAULT_EFFECTIVE_LENGTH_FACTOR: f64 = 1.0;
 
-fn build_member(ctx: &mut Ctx, i: usize, m: &MemberDto, duty: Duty) -> Option<Member> {
+fn build_member(ctx: &mut Ctx, i: usize, m: &MemberDto, duty: Duty, rules: Rules) -> Option<Member> {
     let p = |s: &'static str| Field { section: "members", index: i, name: s };
     let kind = m.kind;
     let section = m.section.as_ref().and_then(|s| build_section(ctx, i, s));
@@ -880,7 +884,13 @@ fn build_member(ctx: &mut Ctx, i: usize, m: &MemberDto, duty: Duty) -> Option<Me
     if m.knot_efficiency.is_some() {
         parts.push(format!("knot {ke} (CI 1401: knots can cut strength by up to half)"));
     }
+    let bend = build_bend(ctx, i, m, kind, diameter);
+    if let Some(b) = &bend {
+        parts.push(b.note.clone());
+    }
+    let be = bend.as_ref().map_or(1.0, |b| b.efficiency);
     let efficiency_note = if parts.is_empty() { "none applied".to_string() } else { parts.join(" x ") };
+    let hitch = build_hitch(ctx, i, m, kind, rules);
 
     let strut = if kind == MemberKind::Rod {
         let effective_length_factor = match m.effective_length_factor {
@@ -919,7 +929,7 @@ fn build_member(ctx: &mut Ctx, i: usize, m: &MemberDto, duty: Duty) -> Option<Me
         rating,
         rating_note,
         design_factor,
-        efficiency: te * ke,
+        efficiency: te * ke * be,
         efficiency_note,
         slack: Length::new::<meter>(slack),
         linear_mass: LinearMassDensity::new::<kilogram_per_meter>(linear_mass),
@@ -932,5 +942,85 @@ fn build_member(ctx: &mut Ctx, i: usize, m: &MemberDto, duty: Duty) -> Option<Me
         material,
         fittings: build_fittings(ctx, "members", i, Host::Member, &m.fittings),
         strut,
+        hitch,
+        bend,
     })
+}
+
+/// A sling's hitch: only on tension members, its mode factor under the
+/// scenario's rules (library/hitch.rs).
+fn build_hitch(ctx: &mut Ctx, i: usize, m: &MemberDto, kind: MemberKind, rules: Rules) -> Option<ModeFactor> {
+    let p = |s: &'static str| Field { section: "members", index: i, name: s };
+    let Some(hitch) = m.hitch else {
+        for (given, name) in [(m.choke_angle.is_some(), "choke_angle"), (m.basket_angle.is_some(), "basket_angle")] {
+            if given {
+                ctx.err(p(name), format!("`{name}` needs a `hitch` on the member"));
+            }
+        }
+        return None;
+    };
+    if kind == MemberKind::Rod {
+        ctx.err(
+            p("hitch"),
+            "a hitch is how a sling is rigged; a rod is no sling (hitches apply to wire rope, fibre rope, chain and cable)",
+        );
+        return None;
+    }
+    let deg = 180.0 / std::f64::consts::PI;
+    let choke = ctx.opt_qty(&m.choke_angle, p("choke_angle"), Dimension::Angle, Sign::NonNegative).map(|a| a * deg);
+    let basket = ctx.opt_qty(&m.basket_angle, p("basket_angle"), Dimension::Angle, Sign::NonNegative).map(|a| a * deg);
+    if (m.choke_angle.is_some() && choke.is_none()) || (m.basket_angle.is_some() && basket.is_none()) {
+        return None;
+    }
+    match mode_factor(rules, hitch, choke, basket) {
+        Ok(f) => Some(f),
+        Err((field, why)) => {
+            let name = match field {
+                HitchField::ChokeAngle => "choke_angle",
+                HitchField::BasketAngle => "basket_angle",
+            };
+            ctx.err(p(name), why);
+            None
+        }
+    }
+}
+
+/// A wire rope bent over a pin or sheave of diameter D: the D/d efficiency
+/// (library/bend.rs); needs the rope's nominal diameter d.
+fn build_bend(ctx: &mut Ctx, i: usize, m: &MemberDto, kind: MemberKind, d: Option<f64>) -> Option<Bend> {
+    let p = |s: &'static str| Field { section: "members", index: i, name: s };
+    let q = m.bent_over.as_ref()?;
+    if !matches!(kind, MemberKind::WireRope | MemberKind::Cable) {
+        ctx.err(
+            p("bent_over"),
+            format!("the D/d bending efficiency is for wire rope or cable, not for {}", kind.label()),
+        );
+        return None;
+    }
+    let pin = ctx.qty(q, p("bent_over"), Dimension::Length, Sign::Positive)?;
+    let Some(d) = d else {
+        ctx.err(
+            p("bent_over"),
+            "the D/d efficiency needs the rope's nominal diameter d: give `diameter` (e.g. \"16 mm\")",
+        );
+        return None;
+    };
+    let ratio = pin / d;
+    match bend_efficiency(ratio) {
+        Ok(e) => Some(Bend {
+            pin: Length::new::<meter>(pin),
+            ratio,
+            efficiency: e,
+            note: format!(
+                "bent over D {} mm, D/d {} -> {} ({BEND_SOURCE})",
+                format_number(pin * 1e3, 4),
+                format_number(ratio, 3),
+                format_number(e, 3)
+            ),
+        }),
+        Err(why) => {
+            ctx.err(p("bent_over"), why);
+            None
+        }
+    }
 }

@@ -3,7 +3,8 @@
 //! value carrying a note of where it came from so reports can explain it.
 
 use crate::library::{
-    ChainGrade, Construction, Curve, DefaultFactor, Duty, Edges, Material, MemberKind, PlatePanel, Section,
+    ChainGrade, Construction, Curve, DefaultFactor, Duty, Edges, Material, MemberKind, ModeFactor, PlatePanel, Rules,
+    Section,
 };
 use uom::si::f64::{Acceleration, Angle, Area, Force, Length, LinearMassDensity, Mass as MassQ, Pressure};
 
@@ -94,7 +95,7 @@ pub struct Member {
     pub rating_note: String,
     /// Design factor.
     pub design_factor: DesignFactor,
-    /// Termination efficiency × knot efficiency (1 when none given).
+    /// Termination efficiency × knot efficiency × D/d bending efficiency (1 when none given).
     pub efficiency: f64,
     /// What the efficiency is made of, for explanations.
     pub efficiency_note: String,
@@ -121,6 +122,23 @@ pub struct Member {
     pub fittings: Vec<super::fitting::Fitting>,
     /// Rods: what the buckling check needs; `None` for tension-only kinds.
     pub strut: Option<Strut>,
+    /// A sling's hitch and its mode factor on the allowable, where given.
+    pub hitch: Option<ModeFactor>,
+    /// Wire rope bent over a pin or sheave: its D/d efficiency (already in `efficiency`).
+    pub bend: Option<Bend>,
+}
+
+/// A wire rope bent over a pin or sheave.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Bend {
+    /// Pin or sheave diameter D.
+    pub pin: Length,
+    /// D/d.
+    pub ratio: f64,
+    /// Efficiency from the D/d curve.
+    pub efficiency: f64,
+    /// Its derivation with the source.
+    pub note: String,
 }
 
 /// A floor slab.
@@ -278,6 +296,8 @@ pub struct Scenario {
     pub dynamic_ratio_warning: f64,
     /// Standard, over people or lifting persons.
     pub duty: Duty,
+    /// Rule set for sling mode factors.
+    pub rules: Rules,
     /// Nodes.
     pub nodes: Vec<Node>,
     /// Members.

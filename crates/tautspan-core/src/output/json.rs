@@ -51,6 +51,7 @@ fn case_json(c: &CaseResult) -> Value {
                         "length_m": num(m.length_m), "sling_angle_deg": num(m.sling_angle_deg),
                         "sag_m": num(m.sag_m), "wave_transit_s": m.wave_transit_s.map(num), "reason": m.reason,
                         "peak_at_deg": m.peak_at_deg.map(num),
+                        "mode_factor": m.mode_factor.map(num), "bend_efficiency": m.bend_efficiency.map(num),
                         "euler_n": m.euler_n.map(num), "buckling_resistance_n": m.buckling_resistance_n.map(num),
                         "fittings": m.fittings.iter().map(part_json).collect::<Vec<_>>() })
             })

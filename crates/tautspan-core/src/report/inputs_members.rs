@@ -1,7 +1,8 @@
 //! The members as the scenario gives them: kind, ends, size (diameter and
 //! area), material, construction or grade, E·A and how it was found, slack,
-//! own weight; then rating, efficiency, design factor with its source and the
-//! allowable the analysis derived.
+//! own weight; then rating, efficiency (with a D/d bend over a pin), the
+//! hitch's mode factor where any member has one, design factor with its
+//! source and the allowable the analysis derived.
 
 use super::escape::escape;
 use super::table::{NONE, table, with_note};
@@ -16,12 +17,22 @@ pub fn members(scenario: &Scenario, analysis: &Analysis, units: UnitSystem) -> S
     }
     let make_up: Vec<Vec<String>> = scenario.members.iter().map(|m| make_up_row(scenario, m, units)).collect();
     let struts = scenario.members.iter().any(|m| m.strut.is_some());
+    let hitches = scenario.members.iter().any(|m| m.hitch.is_some());
     let strength: Vec<Vec<String>> = scenario
         .members
         .iter()
         .enumerate()
         .map(|(i, m)| {
             let mut row = strength_row(analysis, m, units);
+            if hitches {
+                row.insert(
+                    3,
+                    match &m.hitch {
+                        Some(h) => with_note(&number(h.factor), &escape(&h.note)),
+                        None => NONE.to_string(),
+                    },
+                );
+            }
             if struts {
                 row.push(match m.strut {
                     Some(_) => escape(&compression_explanation(m, &compression(scenario, i))),
@@ -32,6 +43,9 @@ pub fn members(scenario: &Scenario, analysis: &Analysis, units: UnitSystem) -> S
         })
         .collect();
     let mut strength_head = vec!["Member", "Rating", "Efficiency", "Design factor", "Allowable"];
+    if hitches {
+        strength_head.insert(3, "Hitch (mode factor)");
+    }
     if struts {
         strength_head.push("In compression (buckling)");
     }
