@@ -10,9 +10,12 @@ use tautspan_gui::{Document, Prefs, TautspanApp, blank_scenario};
 
 /// A harness on the whole app. After each frame it waits for the solve
 /// worker's answer to the current revision, so every test step sees the
-/// results of what it just did (the app itself never waits).
+/// results of what it just did (the app itself never waits). The worker's
+/// answer asks for a repaint of its own, which can land a frame after the
+/// one that waited for it: a few more steps than kittest's default 4 let
+/// the app settle without making a test depend on thread timing.
 pub fn harness(app: TautspanApp) -> Harness<'static, TautspanApp> {
-    let mut h = Harness::builder().with_size([1400.0, 900.0]).build_ui_state(
+    let mut h = Harness::builder().with_size([1400.0, 900.0]).with_max_steps(16).build_ui_state(
         |ui, app: &mut TautspanApp| {
             app.frame(ui);
             assert!(app.wait_for_results(), "the solve worker answers within a minute");
