@@ -40,11 +40,26 @@ pub const PEAK_TOLERANCE: f64 = 5e-4;
 /// At most this many angles per sweep.
 pub const MAX_SAMPLES: usize = 400;
 
+/// The narrowest interval the refinement halves, radians (0.01°): on a
+/// smooth peak the tolerance is met long before; at a kink the sampled
+/// peak is then within slope × 0.01° of the kink's value.
+pub const MIN_INTERVAL_RAD: f64 = 1.745e-4;
+
+/// In the release-limit search only items within this fraction of the
+/// sweep's highest utilisation are refined: the others cannot govern, and
+/// their own limits are estimates interpolated between sweeps.
+pub const LIMIT_FOCUS: f64 = 0.9;
+
+/// The first grid's spacing in the release-limit search, degrees: coarser
+/// than the case's own sweep; the focused refinement finds the governing
+/// peak to the same tolerance.
+pub const LIMIT_GRID_STEP_DEG: f64 = 10.0;
+
 /// Angles closer than this are one, radians (about 0.0006°).
 const SAME_ANGLE_RAD: f64 = 1e-5;
 
-/// The release-angle limit is closed to this, radians (about 0.00006°).
-const LIMIT_TOLERANCE_RAD: f64 = 1e-6;
+/// The release-angle limit is closed to this, radians (about 0.0006°).
+const LIMIT_TOLERANCE_RAD: f64 = 1e-5;
 
 /// One solved angle of the arc.
 #[derive(Debug, Clone)]
@@ -187,7 +202,7 @@ impl Sweeper<'_> {
 
 /// Angles at which the arc asks for more samples: for each item, the
 /// parabola through its peak sample and two neighbours.
-fn refinements(s: &Scenario, samples: &[ArcSample]) -> Vec<f64> {
+fn refinements(s: &Scenario, samples: &[ArcSample], focus: f64) -> Vec<f64> {
     let n_items = samples.first().map_or(0, |x| x.util.len());
     let th: Vec<f64> = samples.iter().map(|x| x.theta_rad).collect();
     let n = th.len();
@@ -195,14 +210,17 @@ fn refinements(s: &Scenario, samples: &[ArcSample]) -> Vec<f64> {
     if n < 3 {
         return out;
     }
-    let overall: f64 = (0..n_items)
-        .flat_map(|k| measures(s, samples, k))
-        .filter(|v| v.is_finite())
-        .fold(0.0, |m, v| f64::max(m, v.abs()));
-    for k in 0..n_items {
-        let m = measures(s, samples, k);
-        let b = argmax(&m);
+    let all: Vec<Vec<f64>> = (0..n_items).map(|k| measures(s, samples, k)).collect();
+    let overall: f64 = all.iter().flatten().filter(|v| v.is_finite()).fold(0.0, |m, v| f64::max(m, v.abs()));
+    // the highest utilisation, for the focus: items far below it cannot govern
+    let top_util = samples.iter().flat_map(|x| x.util.iter().copied()).filter(|u| u.is_finite()).fold(0.0, f64::max);
+    for (k, m) in all.iter().enumerate() {
+        let b = argmax(m);
         if !(m[b].is_finite()) || m[b] <= 1e-9 * overall {
+            continue;
+        }
+        let item_top = samples[b].util.get(k).copied().unwrap_or(f64::NAN);
+        if focus > 0.0 && item_top.is_finite() && item_top < focus * top_util {
             continue;
         }
         let c = b.clamp(1, n - 2);
@@ -226,10 +244,12 @@ fn refinements(s: &Scenario, samples: &[ArcSample]) -> Vec<f64> {
             + y1 * (xv - x0) * (xv - x2) / ((x1 - x0) * (x1 - x2))
             + y2 * (xv - x0) * (xv - x1) / ((x2 - x0) * (x2 - x1));
         if yv > m[b] + PEAK_TOLERANCE * m[b].abs() {
-            if b > 0 {
+            // intervals narrower than MIN_INTERVAL_RAD are not halved again:
+            // a kink (a member going slack) is then pinned to within it
+            if b > 0 && th[b] - th[b - 1] > MIN_INTERVAL_RAD {
                 out.push(0.5 * (th[b - 1] + th[b]));
             }
-            if b + 1 < n {
+            if b + 1 < n && th[b + 1] - th[b] > MIN_INTERVAL_RAD {
                 out.push(0.5 * (th[b] + th[b + 1]));
             }
         }
@@ -253,11 +273,45 @@ pub fn sweep(
     setup: SwingSetup,
     start: &Equilibrium,
 ) -> Result<Arc, String> {
+    sweep_planned(solver, s, a, loads, setup, start, Plan { focus: 0.0, grid_deg: GRID_STEP_DEG, prior: None })
+}
+
+/// How a sweep is made: which items are refined, the first grid's spacing,
+/// and a sweep of a nearby release to start each solve from.
+#[derive(Clone, Copy)]
+struct Plan<'a> {
+    /// Refine only the items within this fraction of the highest utilisation (0: every item).
+    focus: f64,
+    /// The first grid's largest spacing, degrees.
+    grid_deg: f64,
+    /// A sweep at a nearby release: each solve starts from its nearest angle.
+    prior: Option<&'a Arc>,
+}
+
+/// The prior sweep's state nearest angle `theta`.
+fn nearest<'a>(prior: Option<&'a Arc>, theta: f64) -> Option<&'a [[f64; 3]]> {
+    let p = prior?;
+    let x = p.samples.iter().min_by(|a, b| (a.theta_rad - theta).abs().total_cmp(&(b.theta_rad - theta).abs()))?;
+    Some(&x.eq.positions_m)
+}
+
+/// As [`sweep`], made as `plan` says.
+fn sweep_planned(
+    solver: &mut StaticSolver,
+    s: &Scenario,
+    a: &Allowables,
+    loads: &NetworkLoads,
+    setup: SwingSetup,
+    start: &Equilibrium,
+    plan: Plan<'_>,
+) -> Result<Arc, String> {
+    let focus = plan.focus;
     let r = setup.release_rad;
     let mut sw = Sweeper { solver, s, a, loads, setup };
-    let n_half = ((r.to_degrees() / GRID_STEP_DEG).ceil() as usize).max(4);
+    let n_half = ((r.to_degrees() / plan.grid_deg).ceil() as usize).max(4);
     let mut samples: Vec<ArcSample> = Vec::new();
-    let zero = sw.solve_at(0.0, &start.positions_m, &start.positions_m)?;
+    let zero_start = nearest(plan.prior, 0.0).unwrap_or(&start.positions_m);
+    let zero = sw.solve_at(0.0, zero_start, &start.positions_m)?;
     if r <= SAME_ANGLE_RAD {
         return Ok(Arc { release_rad: r, samples: vec![zero] });
     }
@@ -269,7 +323,11 @@ pub fn sweep(
         let mut prev = zero.eq.positions_m.clone();
         for i in 1..=n_half {
             let theta = side * r * i as f64 / n_half as f64;
-            let x = sw.solve_at(theta, &prev, &zero.eq.positions_m)?;
+            let x = match nearest(plan.prior, theta) {
+                // from the nearby sweep's state at about this angle, else from the angle before
+                Some(p) => sw.solve_at(theta, p, &prev)?,
+                None => sw.solve_at(theta, &prev, &zero.eq.positions_m)?,
+            };
             prev = x.eq.positions_m.clone();
             if side > 0.0 { right.push(x) } else { left.push(x) }
         }
@@ -279,7 +337,7 @@ pub fn sweep(
     samples.push(zero);
     samples.extend(right);
     for _ in 0..16 {
-        let more = refinements(s, &samples);
+        let more = refinements(s, &samples, focus);
         if more.is_empty() || samples.len() + more.len() > MAX_SAMPLES {
             break;
         }
@@ -342,14 +400,17 @@ pub fn release_limits(
         vec![(0.0, hang.iter().map(|u| if u.is_finite() { *u } else { 0.0 }).collect())];
     pts.push((case_arc.release_rad, case_arc.item_max()));
     let half_pi = std::f64::consts::FRAC_PI_2;
+    let mut last: Option<Arc> = None;
     let mut eval = |rel: f64, pts: &mut Vec<(f64, Vec<f64>)>| -> Result<f64, String> {
         if let Some(p) = pts.iter().find(|p| (p.0 - rel).abs() < SAME_ANGLE_RAD) {
             return Ok(p.1.iter().copied().fold(0.0, f64::max) - 1.0);
         }
-        let arc = sweep(solver, s, a, loads, SwingSetup { release_rad: rel, ..setup }, start)?;
+        let plan = Plan { focus: LIMIT_FOCUS, grid_deg: LIMIT_GRID_STEP_DEG, prior: last.as_ref().or(Some(case_arc)) };
+        let arc = sweep_planned(solver, s, a, loads, SwingSetup { release_rad: rel, ..setup }, start, plan)?;
         let m = arc.item_max();
         let g = m.iter().copied().fold(0.0, f64::max) - 1.0;
         pts.push((rel, m));
+        last = Some(arc);
         Ok(g)
     };
     let g0 = eval(0.0, &mut pts)?;
@@ -374,7 +435,7 @@ pub fn release_limits(
                     m = 0.5 * (lo + hi);
                 }
                 let gm = eval(m, &mut pts)?;
-                if gm.abs() < 1e-9 {
+                if gm.abs() < 1e-7 {
                     lo = m;
                     hi = m;
                     break;
