@@ -289,7 +289,7 @@ struct Plan<'a> {
 }
 
 /// The prior sweep's state nearest angle `theta`.
-fn nearest<'a>(prior: Option<&'a Arc>, theta: f64) -> Option<&'a [[f64; 3]]> {
+fn nearest(prior: Option<&Arc>, theta: f64) -> Option<&[[f64; 3]]> {
     let p = prior?;
     let x = p.samples.iter().min_by(|a, b| (a.theta_rad - theta).abs().total_cmp(&(b.theta_rad - theta).abs()))?;
     Some(&x.eq.positions_m)
