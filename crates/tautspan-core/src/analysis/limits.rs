@@ -14,6 +14,7 @@
 //! their allowable).
 
 use super::evaluate::{Allowables, utilisations};
+use super::illinois::{Bracket, illinois};
 use crate::model::{NetworkLoads, Scenario};
 use crate::solve::{Equilibrium, SolveOptions, StaticSolver};
 
@@ -147,7 +148,7 @@ pub fn search_limits(
 
 fn critical(sr: &mut Search<'_>) -> Option<f64> {
     let g1 = sr.max_util(1.0)? - 1.0;
-    let (mut lo, mut glo, mut hi, mut ghi);
+    let (mut lo, mut glo, hi, ghi);
     if g1 > 0.0 {
         let g0 = sr.max_util(0.0)? - 1.0;
         if g0 > 0.0 {
@@ -198,36 +199,9 @@ fn critical(sr: &mut Search<'_>) -> Option<f64> {
             }
         }
     }
-    let mut side = 0i8;
-    for _ in 0..60 {
-        if hi - lo <= 1e-7 * hi {
-            break;
-        }
-        let mut m = hi - ghi * (hi - lo) / (ghi - glo);
-        if !(m > lo && m < hi) {
-            m = 0.5 * (lo + hi);
-        }
-        let gm = sr.max_util(m)? - 1.0;
-        if gm.abs() < 1e-9 {
-            return Some(m);
-        }
-        if gm > 0.0 {
-            hi = m;
-            ghi = gm;
-            if side == 1 {
-                glo *= 0.5;
-            }
-            side = 1;
-        } else {
-            lo = m;
-            glo = gm;
-            if side == -1 {
-                ghi *= 0.5;
-            }
-            side = -1;
-        }
-    }
-    Some(0.5 * (lo + hi))
+    let b = Bracket { lo, g_lo: glo, hi, g_hi: ghi };
+    let out = illinois(b, |lo, hi| hi - lo <= 1e-7 * hi, 1e-9, |m| sr.max_util(m).map(|u| u - 1.0).ok_or(())).ok()?;
+    Some(0.5 * (out.lo + out.hi))
 }
 
 fn item_factor(samples: &[Sample], k: usize) -> Option<f64> {

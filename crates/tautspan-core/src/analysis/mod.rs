@@ -8,6 +8,7 @@ mod evaluate;
 mod fittings;
 mod floor_check;
 pub mod formulas;
+mod illinois;
 mod limits;
 mod multi_leg;
 pub mod results;

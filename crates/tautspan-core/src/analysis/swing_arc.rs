@@ -21,11 +21,12 @@
 //!
 //! The release-angle limit uses the same sweep: the largest θ0 in
 //! [0, 90°] whose arc keeps every item within its allowable, by Illinois
-//! false position on θ0 (each evaluation a full sweep), and each item's own
+//! false position on θ0 (`illinois.rs`) (each evaluation a full sweep), and each item's own
 //! limit by linear interpolation between the sweeps that straddle it.
 
 use super::evaluate::{Allowables, utilisations};
 use super::formulas::swing_tension_factor;
+use super::illinois::{Bracket, illinois};
 use crate::model::{NetworkLoads, Scenario};
 use crate::solve::{Equilibrium, SolveOptions, StaticSolver};
 
@@ -423,41 +424,14 @@ pub fn release_limits(
         } else {
             // Illinois false position on the release angle
             let gc = eval(case_arc.release_rad, &mut pts)?;
-            let (mut lo, mut glo, mut hi, mut ghi) =
-                if gc > 0.0 { (0.0, g0, case_arc.release_rad, gc) } else { (case_arc.release_rad, gc, half_pi, g90) };
-            let mut side = 0i8;
-            for _ in 0..60 {
-                if hi - lo <= LIMIT_TOLERANCE_RAD {
-                    break;
-                }
-                let mut m = hi - ghi * (hi - lo) / (ghi - glo);
-                if !(m > lo && m < hi) {
-                    m = 0.5 * (lo + hi);
-                }
-                let gm = eval(m, &mut pts)?;
-                if gm.abs() < 1e-7 {
-                    lo = m;
-                    hi = m;
-                    break;
-                }
-                if gm > 0.0 {
-                    hi = m;
-                    ghi = gm;
-                    if side == 1 {
-                        glo *= 0.5;
-                    }
-                    side = 1;
-                } else {
-                    lo = m;
-                    glo = gm;
-                    if side == -1 {
-                        ghi *= 0.5;
-                    }
-                    side = -1;
-                }
-            }
+            let b = if gc > 0.0 {
+                Bracket { lo: 0.0, g_lo: g0, hi: case_arc.release_rad, g_hi: gc }
+            } else {
+                Bracket { lo: case_arc.release_rad, g_lo: gc, hi: half_pi, g_hi: g90 }
+            };
+            let out = illinois(b, |lo, hi| hi - lo <= LIMIT_TOLERANCE_RAD, 1e-7, |m| eval(m, &mut pts))?;
             // the lower end of the bracket is the one known to be within
-            Some(lo.min(hi))
+            Some(out.lo)
         }
     };
     if !pts.iter().any(|p| (p.0 - half_pi).abs() < SAME_ANGLE_RAD) && critical.is_some() {
