@@ -47,6 +47,8 @@ fn hung_net() -> Network {
             axial_stiffness_n: 2e5,
             rest_length_m: 1.0,
             law: AxialLaw::TensionOnly,
+            via: Vec::new(),
+            segment_factors: Vec::new(),
         });
     };
     for row in 1..=n {

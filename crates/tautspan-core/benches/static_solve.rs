@@ -52,6 +52,8 @@ fn grid(n: usize) -> Network {
                         axial_stiffness_n: 1e6,
                         rest_length_m: 0.98,
                         law: AxialLaw::TensionOnly,
+                        via: Vec::new(),
+                        segment_factors: Vec::new(),
                     });
                 }
             }

@@ -51,6 +51,8 @@ fn coupled_feet_contact_and_lift_off() {
             axial_stiffness_n: 2e8,
             rest_length_m: 1.0,
             law: AxialLaw::TensionAndCompression,
+            via: Vec::new(),
+            segment_factors: Vec::new(),
         });
         net.plates.push(NetPlate { name: "slab".into(), nodes: vec![0, 1], flexibility_m_per_n: c.clone() });
         let eq = solve_static(&net, &SolveOptions::default()).unwrap();

@@ -35,6 +35,8 @@ fn line(mass_kg: f64, ea_n: f64, rest_m: f64, at: [f64; 3]) -> Network {
             axial_stiffness_n: ea_n,
             rest_length_m: rest_m,
             law: AxialLaw::TensionOnly,
+            via: Vec::new(),
+            segment_factors: Vec::new(),
         }],
         plates: Vec::new(),
     }

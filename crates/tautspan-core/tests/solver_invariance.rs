@@ -27,6 +27,8 @@ fn connect(net: &mut Network, members: &[(usize, usize, f64, f64, AxialLaw)], pr
             axial_stiffness_n: ea,
             rest_length_m: rest,
             law,
+            via: Vec::new(),
+            segment_factors: Vec::new(),
         });
     }
 }
@@ -129,6 +131,8 @@ fn rotation_about_vertical_keeps_floor_results() {
         axial_stiffness_n: 1e5,
         rest_length_m: rest,
         law: AxialLaw::TensionOnly,
+        via: Vec::new(),
+        segment_factors: Vec::new(),
     });
     let base = solve_static(&net, &tight()).unwrap();
     let r = rotation([0.0, 1.0, 0.0], 1.1);
@@ -195,6 +199,8 @@ fn random_network() -> impl Strategy<Value = Network> {
                     axial_stiffness_n: 1e6,
                     rest_length_m: rest,
                     law: AxialLaw::TensionOnly,
+                    via: Vec::new(),
+                    segment_factors: Vec::new(),
                 });
             }
             if link && j > 0 {
@@ -205,6 +211,8 @@ fn random_network() -> impl Strategy<Value = Network> {
                     axial_stiffness_n: 5e5,
                     rest_length_m: rest,
                     law: AxialLaw::TensionOnly,
+                    via: Vec::new(),
+                    segment_factors: Vec::new(),
                 });
             }
         }
@@ -226,6 +234,8 @@ fn random_network() -> impl Strategy<Value = Network> {
                 axial_stiffness_n: 1e5,
                 rest_length_m: dist(p, fp) * 0.99,
                 law: AxialLaw::TensionOnly,
+                via: Vec::new(),
+                segment_factors: Vec::new(),
             });
         }
         net

@@ -27,6 +27,8 @@ fn member(net: &Network, name: &str, a: usize, b: usize, ea: f64, slack_m: f64, 
         axial_stiffness_n: ea,
         rest_length_m: dist(net.nodes[a].position_m, net.nodes[b].position_m) + slack_m,
         law,
+        via: Vec::new(),
+        segment_factors: Vec::new(),
     }
 }
 fn rope(net: &Network, name: &str, a: usize, b: usize, ea: f64) -> NetMember {

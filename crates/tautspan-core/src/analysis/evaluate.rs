@@ -4,7 +4,7 @@
 use super::allowable::{floor_allowable, member_allowable_n};
 use super::fittings::{anchor_rating, member_fittings, node_fittings, part_utilisations};
 use super::floor_check::floor_results;
-use super::results::{FloorResult, LoadPathResult, MemberResult, NodeResult, State, SupportResult};
+use super::results::{FloorResult, LoadPathResult, MemberResult, NodeResult, SegmentResult, State, SupportResult};
 use super::strut::{Compression, compression};
 use crate::library::Carries;
 use crate::model::{Scenario, Support};
@@ -97,9 +97,32 @@ pub fn evaluate(s: &Scenario, net: &Network, a: &Allowables, loads: &[[f64; 3]],
         .map(|(i, m)| {
             let force = eq.member_force_n[i];
             let length = eq.member_length_m[i];
-            let [pa, pb] = [eq.positions_m[m.ends[0]], eq.positions_m[m.ends[1]]];
+            // a rope over sheaves: the angle of its first span (from the dead end)
+            let (a0, b0, _) = m.segments()[0];
+            let [pa, pb] = [eq.positions_m[a0], eq.positions_m[b0]];
+            let span0 = ((pb[0] - pa[0]).powi(2) + (pb[1] - pa[1]).powi(2) + (pb[2] - pa[2]).powi(2)).sqrt();
             let dy = (pb[1] - pa[1]).abs();
-            let angle = if length > 0.0 { (dy / length).clamp(0.0, 1.0).asin().to_degrees() } else { 0.0 };
+            let angle = if span0 > 0.0 { (dy / span0).clamp(0.0, 1.0).asin().to_degrees() } else { 0.0 };
+            // per span: (its sling angle, its result)
+            let spans: Vec<(f64, SegmentResult)> = match &m.run {
+                None => Vec::new(),
+                Some(_) => m
+                    .segments()
+                    .iter()
+                    .map(|&(a, b, w)| {
+                        let (pa, pb) = (eq.positions_m[a], eq.positions_m[b]);
+                        let l = ((pb[0] - pa[0]).powi(2) + (pb[1] - pa[1]).powi(2) + (pb[2] - pa[2]).powi(2)).sqrt();
+                        let ang = if l > 0.0 { ((pb[1] - pa[1]).abs() / l).clamp(0.0, 1.0).asin().to_degrees() } else { 0.0 };
+                        let r = SegmentResult {
+                            from: s.nodes[a].id.clone(),
+                            to: s.nodes[b].id.clone(),
+                            force_n: force * w,
+                            length_m: l,
+                        };
+                        (ang, r)
+                    })
+                    .collect(),
+            };
             let allowable = a.member_for(i, force);
             let allowable_n = allowable.unwrap_or(a.member_n[i]);
             let utilisation = force.abs() / allowable_n;
@@ -114,8 +137,17 @@ pub fn evaluate(s: &Scenario, net: &Network, a: &Allowables, loads: &[[f64; 3]],
                 _ => None,
             };
             // d = w⊥ L² / (8 T), w⊥ = μ g cos α (Irvine, Cable Structures, parabolic sag)
-            let w_across = m.linear_mass.value * s.gravity_m_s2() * angle.to_radians().cos();
-            let sag_m = if force > 0.0 && w_across > 0.0 { w_across * length * length / (8.0 * force) } else { 0.0 };
+            let sag_of = |len: f64, angle_deg: f64, t: f64| {
+                let w_across = m.linear_mass.value * s.gravity_m_s2() * angle_deg.to_radians().cos();
+                if t > 0.0 && w_across > 0.0 { w_across * len * len / (8.0 * t) } else { 0.0 }
+            };
+            // a rope over sheaves: the largest of its spans' sags
+            let sag_m = if spans.is_empty() {
+                sag_of(length, angle, force)
+            } else {
+                spans.iter().map(|(ang, g)| sag_of(g.length_m, *ang, g.force_n)).fold(0.0, f64::max)
+            };
+            let segments: Vec<SegmentResult> = spans.into_iter().map(|(_, g)| g).collect();
             // a plumb member has none; cos 90° is not exactly 0 in floating point
             let sag_m = if sag_m < 1e-9 { 0.0 } else { sag_m };
             MemberResult {
@@ -142,6 +174,7 @@ pub fn evaluate(s: &Scenario, net: &Network, a: &Allowables, loads: &[[f64; 3]],
                 buckling_resistance_n: a.member_compression[i].resistance_n(),
                 peak_at_deg: None,
                 fittings: member_fittings(s, i, eq),
+                segments,
             }
         })
         .collect();

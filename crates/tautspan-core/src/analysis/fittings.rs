@@ -101,7 +101,8 @@ pub fn member_fittings(s: &Scenario, i: usize, eq: &Equilibrium) -> Vec<FittingR
         return Vec::new();
     }
     let force = eq.member_force_n[i];
-    let [a, b] = m.ends;
+    // a rope over sheaves: its first span, where the dead end's parts sit
+    let [a, b] = if m.run.is_some() { m.segments().first().map_or(m.ends, |&(a, b, _)| [a, b]) } else { m.ends };
     let u = unit(eq.positions_m[a], eq.positions_m[b]).unwrap_or([0.0, 1.0, 0.0]);
     m.fittings
         .iter()
@@ -156,16 +157,26 @@ pub fn node_load_n(s: &Scenario, n: usize, eq: &Equilibrium) -> Option<[f64; 3]>
     let mut sum = [0.0; 3];
     let mut any = false;
     for (i, m) in s.members.iter().enumerate() {
-        let other = match m.ends {
-            [a, b] if a == n => b,
-            [a, b] if b == n => a,
-            _ => continue,
+        // a rope's spans at a sheave count one by one, each with its own tension
+        let spans = if m.run.is_some() {
+            m.segments()
+        } else if m.ends.contains(&n) {
+            vec![(m.ends[0], m.ends[1], 1.0)]
+        } else {
+            continue;
         };
-        let Some(u) = unit(p, eq.positions_m[other]) else { continue };
-        if u[1] > LEVEL_TOLERANCE {
-            any = true;
-            for k in 0..3 {
-                sum[k] += eq.member_force_n[i] * u[k];
+        for (a, b, w) in spans {
+            let other = match (a, b) {
+                (a, b) if a == n => b,
+                (a, b) if b == n => a,
+                _ => continue,
+            };
+            let Some(u) = unit(p, eq.positions_m[other]) else { continue };
+            if u[1] > LEVEL_TOLERANCE {
+                any = true;
+                for k in 0..3 {
+                    sum[k] += eq.member_force_n[i] * w * u[k];
+                }
             }
         }
     }

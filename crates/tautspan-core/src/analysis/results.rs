@@ -81,6 +81,23 @@ pub struct MemberResult {
     pub peak_at_deg: Option<f64>,
     /// Rated parts in series with the member, each on the member's force.
     pub fittings: Vec<FittingResult>,
+    /// A rope over sheaves: each span between its end, sheaves and end, with
+    /// its own tension (equal over frictionless sheaves); empty for a member.
+    #[serde(skip_serializing_if = "Vec::is_empty")]
+    pub segments: Vec<SegmentResult>,
+}
+
+/// One span of a rope over sheaves in one case.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct SegmentResult {
+    /// Node id the span starts at.
+    pub from: String,
+    /// Node id it ends at.
+    pub to: String,
+    /// Tension in the span, N.
+    pub force_n: f64,
+    /// Length between the node centres in the solved geometry, m.
+    pub length_m: f64,
 }
 
 /// One rated part (a fitting on a member or at a node, or an anchor's

@@ -157,6 +157,118 @@ pub struct NodeDto {
     /// Fittings at the node (e.g. a master link), checked on the resultant of the members above it.
     #[serde(default, skip_serializing_if = "Vec::is_empty")]
     pub fittings: Vec<super::fitting::FittingDto>,
+    /// A sheave at the node: ropes (`ropes`) may run over it.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub sheave: Option<SheaveDto>,
+}
+
+/// A sheave as written.
+#[derive(Debug, Clone, PartialEq, Eq, Serialize, Deserialize)]
+#[serde(rename = "Sheave", deny_unknown_fields)]
+pub struct SheaveDto {
+    /// Tread diameter D (for the rope's D/d efficiency).
+    pub diameter: Qty,
+    /// Its bearing (friction factor per sheave); omitted = frictionless.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub bearing: Option<crate::library::Bearing>,
+}
+
+/// One continuous rope running from its first node over sheave nodes to its
+/// last: one spring, one tension (see `ropes` in the README).
+#[derive(Debug, Clone, PartialEq, Default, Serialize, Deserialize)]
+#[serde(rename = "Rope", deny_unknown_fields)]
+pub struct RopeDto {
+    /// Unique id (shared with the members' ids).
+    pub id: String,
+    /// The nodes it runs through, from the dead end to the lead line; every
+    /// node between the two ends carries a sheave.
+    pub path: Vec<String>,
+    /// Kind: wire rope, fibre rope or cable.
+    pub kind: crate::library::MemberKind,
+    /// Unstretched length of the whole rope; omitted = the drawn length.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub length: Option<Qty>,
+    /// Which way it runs over its sheaves (the bearings' friction); omitted = hoisting.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub motion: Option<crate::library::RopeMotion>,
+    /// Load-carrying area (metallic area for wire rope).
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub area: Option<Qty>,
+    /// Nominal diameter (needed for wire rope: the D/d efficiency over the sheaves).
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub diameter: Option<Qty>,
+    /// Wire rope construction, e.g. `"6x19 IWRC"`.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub construction: Option<String>,
+    /// Rope grade (`"1770"`, N/mm²).
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub grade: Option<String>,
+    /// Material name from the library.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub material: Option<String>,
+    /// Young's modulus.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub modulus: Option<Qty>,
+    /// Fibre rope: elastic elongation in percent at `elongation_at_pct` of break.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub elongation_pct: Option<f64>,
+    /// Fibre rope: the load, in percent of break, at which `elongation_pct` holds.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub elongation_at_pct: Option<f64>,
+    /// Fibre rope: braided or laid.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub braided: Option<bool>,
+    /// Rated strength.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub rating: Option<RatingDto>,
+    /// Design factor on rated strength; omitted = the kind's default.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub design_factor: Option<f64>,
+    /// Wire rope: how its ends are made.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub termination: Option<crate::library::Termination>,
+    /// Termination efficiency, 0–1, instead of `termination`.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub termination_efficiency: Option<f64>,
+    /// Own weight per length.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub linear_mass: Option<Qty>,
+    /// True where the rope may go slack in some case without that being a fault.
+    #[serde(default, skip_serializing_if = "std::ops::Not::not")]
+    pub may_go_slack: bool,
+    /// Fittings in series (e.g. the dead end's shackle, the hoist the lead runs to).
+    #[serde(default, skip_serializing_if = "Vec::is_empty")]
+    pub fittings: Vec<super::fitting::FittingDto>,
+}
+
+impl RopeDto {
+    /// The member fields of the rope, for the checks a member gets; its ends
+    /// are the path's first and last nodes.
+    pub fn as_member(&self) -> MemberDto {
+        let end = |k: usize| self.path.get(k).cloned().unwrap_or_default();
+        MemberDto {
+            id: self.id.clone(),
+            ends: (end(0), end(self.path.len().saturating_sub(1))),
+            kind: self.kind,
+            area: self.area.clone(),
+            diameter: self.diameter.clone(),
+            construction: self.construction.clone(),
+            grade: self.grade.clone(),
+            material: self.material.clone(),
+            modulus: self.modulus.clone(),
+            elongation_pct: self.elongation_pct,
+            elongation_at_pct: self.elongation_at_pct,
+            braided: self.braided,
+            rating: self.rating.clone(),
+            design_factor: self.design_factor,
+            termination: self.termination,
+            termination_efficiency: self.termination_efficiency,
+            linear_mass: self.linear_mass.clone(),
+            may_go_slack: self.may_go_slack,
+            fittings: self.fittings.clone(),
+            ..MemberDto::default()
+        }
+    }
 }
 
 /// A member's rated strength, as written.
@@ -419,6 +531,9 @@ pub struct ScenarioDto {
     /// Members.
     #[serde(default)]
     pub members: Vec<MemberDto>,
+    /// Ropes running over sheaves, each one continuous spring.
+    #[serde(default, skip_serializing_if = "Vec::is_empty")]
+    pub ropes: Vec<RopeDto>,
     /// Floor slabs.
     #[serde(default, skip_serializing_if = "Vec::is_empty")]
     pub floors: Vec<FloorDto>,

@@ -7,8 +7,8 @@ mod locate;
 mod read;
 mod write;
 
-pub use dto::SectionDto;
 pub use dto::{CaseDto, FloorDto, MassDto, MemberDto, NodeDto, Position, Qty, RatingDto, ScenarioDto, SupportDto};
+pub use dto::{RopeDto, SectionDto, SheaveDto};
 pub use error::{FileError, FileErrors};
 pub use fitting::{Direction, FittingDto};
 pub use locate::{Location, SpanIndex};

@@ -4,6 +4,7 @@
 //! first) and each names its field path; the file layer adds line and column.
 
 use super::build_fittings::{Host, build_fittings, build_rated};
+use super::build_ropes::{build_ropes, build_sheave};
 use super::floor_feet::place_feet;
 use super::scenario::{
     Bend, Case, DEFAULT_FRICTION_LIMIT, DesignFactor, Floor, Mass, Member, Node, Rating, Scenario, Strut, Support,
@@ -141,6 +142,17 @@ pub fn build(dto: &ScenarioDto) -> Result<Scenario, Vec<Problem>> {
     let node_ids = ids(&mut ctx, dto.nodes.iter().map(|n| n.id.as_str()), "nodes", "node");
     let floor_ids = ids(&mut ctx, dto.floors.iter().map(|f| f.id.as_str()), "floors", "floor");
     let member_ids = ids(&mut ctx, dto.members.iter().map(|m| m.id.as_str()), "members", "member");
+    let rope_ids = ids(&mut ctx, dto.ropes.iter().map(|r| r.id.as_str()), "ropes", "rope");
+    for (id, &k) in &rope_ids {
+        if let Some(&first) = member_ids.get(id) {
+            ctx.err(
+                format!("ropes[{k}].id"),
+                format!(
+                    "rope id \"{id}\" is already a member's (members[{first}]); members and ropes share one list of ids"
+                ),
+            );
+        }
+    }
     let mass_ids = ids(&mut ctx, dto.masses.iter().map(|m| m.id.as_str()), "masses", "mass");
     let _ = ids(&mut ctx, dto.cases.iter().map(CaseDto::id), "cases", "case");
     let _ = member_ids;
@@ -185,6 +197,7 @@ pub fn build(dto: &ScenarioDto) -> Result<Scenario, Vec<Problem>> {
             support,
             rated: build_rated(&mut ctx, i, &n.rated, support),
             fittings: build_fittings(&mut ctx, "nodes", i, Host::Node, &n.fittings),
+            sheave: n.sheave.as_ref().and_then(|sh| build_sheave(&mut ctx, i, sh)),
         });
     }
 
@@ -232,7 +245,7 @@ pub fn build(dto: &ScenarioDto) -> Result<Scenario, Vec<Problem>> {
             continue;
         }
         if let Some(mut member) =
-            build_member(&mut ctx, i, m, dto.duty.unwrap_or_default(), dto.rules.unwrap_or_default())
+            build_member(&mut ctx, "members", i, m, dto.duty.unwrap_or_default(), dto.rules.unwrap_or_default())
         {
             member.ends = [a, b];
             if drawn + member.slack.value <= 1e-9 {
@@ -250,6 +263,15 @@ pub fn build(dto: &ScenarioDto) -> Result<Scenario, Vec<Problem>> {
             members.push(member);
         }
     }
+
+    members.extend(build_ropes(
+        &mut ctx,
+        &dto.ropes,
+        &nodes,
+        &node_ids,
+        dto.duty.unwrap_or_default(),
+        dto.rules.unwrap_or_default(),
+    ));
 
     let mut masses = Vec::with_capacity(dto.masses.len());
     for (i, m) in dto.masses.iter().enumerate() {
@@ -506,8 +528,17 @@ const AREA_AGREEMENT: f64 = 0.005;
 /// a free end lengthens it (2.0): give `effective_length_factor` then.
 pub const DEFAULT_EFFECTIVE_LENGTH_FACTOR: f64 = 1.0;
 
-fn build_member(ctx: &mut Ctx, i: usize, m: &MemberDto, duty: Duty, rules: Rules) -> Option<Member> {
-    let p = |s: &'static str| Field { section: "members", index: i, name: s };
+/// A member from its file type; `list` is `members` or `ropes` (where a
+/// rope's member fields are, for the error paths).
+pub(super) fn build_member(
+    ctx: &mut Ctx,
+    list: &'static str,
+    i: usize,
+    m: &MemberDto,
+    duty: Duty,
+    rules: Rules,
+) -> Option<Member> {
+    let p = |s: &'static str| Field { section: list, index: i, name: s };
     let kind = m.kind;
     let section = m.section.as_ref().and_then(|s| build_section(ctx, i, s));
     if kind != MemberKind::Rod {
@@ -940,10 +971,11 @@ fn build_member(ctx: &mut Ctx, i: usize, m: &MemberDto, duty: Duty, rules: Rules
         construction,
         chain_grade,
         material,
-        fittings: build_fittings(ctx, "members", i, Host::Member, &m.fittings),
+        fittings: build_fittings(ctx, list, i, Host::Member, &m.fittings),
         strut,
         hitch,
         bend,
+        run: None,
     })
 }
 

@@ -2,6 +2,7 @@
 
 mod build;
 mod build_fittings;
+mod build_ropes;
 mod fitting;
 mod floor_feet;
 mod load;
@@ -12,6 +13,6 @@ pub use build::{Problem, STANDARD_GRAVITY_M_S2, build};
 pub use fitting::{Fitting, FittingKind};
 pub use floor_feet::EDGE_CLEARANCE_M;
 pub use load::{Loaded, load_scenario};
-pub use scenario::{Bend, Strut};
+pub use scenario::{Bend, RopeRun, Sheave, Strut};
 pub use scenario::{Case, DEFAULT_FRICTION_LIMIT, DesignFactor, Floor, Mass, Member, Node, Rating, Scenario, Support};
 pub use to_network::{NetworkLoads, to_network};

@@ -3,8 +3,8 @@
 //! value carrying a note of where it came from so reports can explain it.
 
 use crate::library::{
-    ChainGrade, Construction, Curve, DefaultFactor, Duty, Edges, Material, MemberKind, ModeFactor, PlatePanel, Rules,
-    Section,
+    Bearing, ChainGrade, Construction, Curve, DefaultFactor, Duty, Edges, Material, MemberKind, ModeFactor, PlatePanel,
+    RopeMotion, Rules, Section,
 };
 use uom::si::f64::{Acceleration, Angle, Area, Force, Length, LinearMassDensity, Mass as MassQ, Pressure};
 
@@ -33,6 +33,31 @@ pub struct Node {
     pub rated: Option<super::fitting::Fitting>,
     /// Fittings at the node, checked on the resultant of the members above it.
     pub fittings: Vec<super::fitting::Fitting>,
+    /// A sheave at the node, where ropes may run over it.
+    pub sheave: Option<Sheave>,
+}
+
+/// A sheave at a node.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Sheave {
+    /// Tread diameter D.
+    pub diameter: Length,
+    /// Its bearing.
+    pub bearing: Bearing,
+}
+
+/// The route of a rope over its sheaves: it runs from the member's
+/// `ends[0]` over `via` to `ends[1]`.
+#[derive(Debug, Clone, PartialEq)]
+pub struct RopeRun {
+    /// The sheave nodes passed over, in order.
+    pub via: Vec<usize>,
+    /// Per segment, its tension ÷ the rope's largest (1 over frictionless sheaves).
+    pub segment_factors: Vec<f64>,
+    /// The sense the bearings' friction is taken in.
+    pub motion: RopeMotion,
+    /// How the tensions were found, with the source, for explanations.
+    pub note: String,
 }
 
 /// Rated strength as the allowable is derived from it.
@@ -126,6 +151,31 @@ pub struct Member {
     pub hitch: Option<ModeFactor>,
     /// Wire rope bent over a pin or sheave: its D/d efficiency (already in `efficiency`).
     pub bend: Option<Bend>,
+    /// A rope running over sheaves (from the file's `ropes`); `None` for a member.
+    pub run: Option<RopeRun>,
+}
+
+impl Member {
+    /// The nodes along the member: its first end, any sheaves, its last end.
+    pub fn path(&self) -> Vec<usize> {
+        let mut p = vec![self.ends[0]];
+        if let Some(r) = &self.run {
+            p.extend(&r.via);
+        }
+        p.push(self.ends[1]);
+        p
+    }
+
+    /// The segments `(from, to, factor)`: one for a member, one per span of a rope.
+    pub fn segments(&self) -> Vec<(usize, usize, f64)> {
+        let p = self.path();
+        (0..p.len() - 1)
+            .map(|i| {
+                let w = self.run.as_ref().and_then(|r| r.segment_factors.get(i)).copied().unwrap_or(1.0);
+                (p[i], p[i + 1], w)
+            })
+            .collect()
+    }
 }
 
 /// A wire rope bent over a pin or sheave.
@@ -300,7 +350,7 @@ pub struct Scenario {
     pub rules: Rules,
     /// Nodes.
     pub nodes: Vec<Node>,
-    /// Members.
+    /// Members, then the file's ropes (each a member with a [`RopeRun`]).
     pub members: Vec<Member>,
     /// Floors.
     pub floors: Vec<Floor>,
@@ -317,11 +367,17 @@ impl Scenario {
         [p[0].value, p[1].value, p[2].value]
     }
 
-    /// Drawn length of a member, m.
+    /// Drawn length of a member, m (a rope: the sum of its spans between sheave centres).
     pub fn drawn_length_m(&self, member: usize) -> f64 {
-        let [a, b] = self.members[member].ends;
-        let (pa, pb) = (self.position_m(a), self.position_m(b));
-        ((pb[0] - pa[0]).powi(2) + (pb[1] - pa[1]).powi(2) + (pb[2] - pa[2]).powi(2)).sqrt()
+        let m = &self.members[member];
+        let chord = |a: usize, b: usize| {
+            let (pa, pb) = (self.position_m(a), self.position_m(b));
+            ((pb[0] - pa[0]).powi(2) + (pb[1] - pa[1]).powi(2) + (pb[2] - pa[2]).powi(2)).sqrt()
+        };
+        match &m.run {
+            None => chord(m.ends[0], m.ends[1]),
+            Some(_) => m.segments().iter().map(|&(a, b, _)| chord(a, b)).sum(),
+        }
     }
 
     /// Unstretched length of a member, m.

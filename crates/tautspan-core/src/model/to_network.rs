@@ -60,9 +60,16 @@ pub fn to_network(s: &Scenario) -> (Network, NetworkLoads) {
         .map(|(i, m)| {
             let rest = s.rest_length_m(i);
             let own_kg = m.linear_mass.value * rest;
-            for &e in &m.ends {
-                nodes[e].load_n[1] -= 0.5 * own_kg * g;
-                nodes[e].mass_kg += 0.5 * own_kg;
+            // half of each span's share (by drawn length) at each of its ends
+            let drawn = s.drawn_length_m(i);
+            for (a, b, _) in m.segments() {
+                let (pa, pb) = (s.position_m(a), s.position_m(b));
+                let span = ((pb[0] - pa[0]).powi(2) + (pb[1] - pa[1]).powi(2) + (pb[2] - pa[2]).powi(2)).sqrt();
+                let share = if drawn > 0.0 { span / drawn } else { 1.0 };
+                for e in [a, b] {
+                    nodes[e].load_n[1] -= 0.5 * share * own_kg * g;
+                    nodes[e].mass_kg += 0.5 * share * own_kg;
+                }
             }
             NetMember {
                 name: m.id.clone(),
@@ -73,6 +80,8 @@ pub fn to_network(s: &Scenario) -> (Network, NetworkLoads) {
                     Carries::TensionAndCompression => AxialLaw::TensionAndCompression,
                     _ => AxialLaw::TensionOnly,
                 },
+                via: m.run.as_ref().map(|r| r.via.clone()).unwrap_or_default(),
+                segment_factors: m.run.as_ref().map(|r| r.segment_factors.clone()).unwrap_or_default(),
             }
         })
         .collect();

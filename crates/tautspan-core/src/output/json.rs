@@ -46,14 +46,22 @@ fn case_json(c: &CaseResult) -> Value {
         c.members
             .iter()
             .map(|m| {
-                json!({ "id": m.id, "force_n": num(m.force_n), "allowable_n": num(m.allowable_n),
+                let mut o = json!({ "id": m.id, "force_n": num(m.force_n), "allowable_n": num(m.allowable_n),
                         "utilisation": num(m.utilisation), "state": m.state.as_str(), "stretch_m": num(m.stretch_m),
                         "length_m": num(m.length_m), "sling_angle_deg": num(m.sling_angle_deg),
                         "sag_m": num(m.sag_m), "wave_transit_s": m.wave_transit_s.map(num), "reason": m.reason,
                         "peak_at_deg": m.peak_at_deg.map(num),
                         "mode_factor": m.mode_factor.map(num), "bend_efficiency": m.bend_efficiency.map(num),
                         "euler_n": m.euler_n.map(num), "buckling_resistance_n": m.buckling_resistance_n.map(num),
-                        "fittings": m.fittings.iter().map(part_json).collect::<Vec<_>>() })
+                        "fittings": m.fittings.iter().map(part_json).collect::<Vec<_>>() });
+                if !m.segments.is_empty() {
+                    o["segments"] = m
+                        .segments
+                        .iter()
+                        .map(|g| json!({ "from": g.from, "to": g.to, "force_n": num(g.force_n), "length_m": num(g.length_m) }))
+                        .collect();
+                }
+                o
             })
             .collect(),
     );

@@ -13,7 +13,7 @@
 //! feet's y, tangent `(C_AA)⁻¹` on the feet in contact A.
 
 use super::contact::{contact_forces, in_contact};
-use super::model::{FloorData, MemberData, Model, NONE};
+use super::model::{FloorData, MemberData, Model, NONE, RunData};
 
 /// The state of one member at a configuration.
 #[derive(Debug, Clone, Copy)]
@@ -30,8 +30,35 @@ pub(crate) struct MemberState {
     pub material: bool,
 }
 
-/// Length, force and direction of a member at positions `pos`.
+/// The vector from `a` to `b` and its length.
+fn chord(pos: &[[f64; 3]], a: usize, b: usize) -> ([f64; 3], f64) {
+    let d = [pos[b][0] - pos[a][0], pos[b][1] - pos[a][1], pos[b][2] - pos[a][2]];
+    (d, (d[0] * d[0] + d[1] * d[1] + d[2] * d[2]).sqrt())
+}
+
+/// A rope's segments at `pos`: per segment its unit vector, length and factor.
+pub(crate) fn run_segments<'a>(
+    run: &'a RunData,
+    pos: &'a [[f64; 3]],
+) -> impl Iterator<Item = ([f64; 3], f64, f64)> + 'a {
+    run.segments.iter().map(move |&(a, b, w)| {
+        let (d, l) = chord(pos, run.nodes[a], run.nodes[b]);
+        let e = if l > 0.0 { [d[0] / l, d[1] / l, d[2] / l] } else { [0.0; 3] };
+        (e, l, w)
+    })
+}
+
+/// Length, force and direction of a member at positions `pos`. For a rope
+/// over sheaves the length is the weighted length `Λ = Σ w_i L_i` and the
+/// direction is zero (each segment has its own, see [`run_segments`]).
 pub(crate) fn member_state(m: &MemberData, pos: &[[f64; 3]]) -> MemberState {
+    if let Some(run) = &m.run {
+        let length_m: f64 = run_segments(run, pos).map(|(_, l, w)| w * l).sum();
+        let stretch = length_m - m.rest_m;
+        let (force_n, material) =
+            if m.tension_only && stretch <= 0.0 { (0.0, stretch == 0.0) } else { (m.k_n_per_m * stretch, true) };
+        return MemberState { length_m, force_n, e: [0.0; 3], material };
+    }
     let a = pos[m.ends[0]];
     let b = pos[m.ends[1]];
     let d = [b[0] - a[0], b[1] - a[1], b[2] - a[2]];
@@ -171,19 +198,45 @@ impl Model {
                 (false, false) => 0.0,
             }
         };
-        for m in &self.members {
-            let (a, b) = (m.ends[0], m.ends[1]);
+        // the change of a chord's length, accurate when far below the length
+        let chord_change = |a: usize, b: usize| -> Option<(f64, f64)> {
             let d = [pos[b][0] - pos[a][0], pos[b][1] - pos[a][1], pos[b][2] - pos[a][2]];
             let dd = [delta[b][0] - delta[a][0], delta[b][1] - delta[a][1], delta[b][2] - delta[a][2]];
             if dd == [0.0; 3] {
-                continue;
+                return None;
             }
             let l0 = (d[0] * d[0] + d[1] * d[1] + d[2] * d[2]).sqrt();
             let d1 = [d[0] + dd[0], d[1] + dd[1], d[2] + dd[2]];
             let l1 = (d1[0] * d1[0] + d1[1] * d1[1] + d1[2] * d1[2]).sqrt();
             let num =
                 2.0 * (d[0] * dd[0] + d[1] * dd[1] + d[2] * dd[2]) + (dd[0] * dd[0] + dd[1] * dd[1] + dd[2] * dd[2]);
-            let dl = if l0 + l1 > 0.0 { num / (l0 + l1) } else { 0.0 };
+            Some((l0, if l0 + l1 > 0.0 { num / (l0 + l1) } else { 0.0 }))
+        };
+        for m in &self.members {
+            let (l0, dl) = match &m.run {
+                Some(run) => {
+                    let (mut l0, mut dl, mut moved) = (0.0, 0.0, false);
+                    for &(a, b, w) in &run.segments {
+                        let (na, nb) = (run.nodes[a], run.nodes[b]);
+                        match chord_change(na, nb) {
+                            Some((l, d)) => {
+                                moved = true;
+                                l0 += w * l;
+                                dl += w * d;
+                            }
+                            None => l0 += w * chord(pos, na, nb).1,
+                        }
+                    }
+                    if !moved {
+                        continue;
+                    }
+                    (l0, dl)
+                }
+                None => match chord_change(m.ends[0], m.ends[1]) {
+                    Some(v) => v,
+                    None => continue,
+                },
+            };
             let e0 = l0 - m.rest_m;
             let e1 = e0 + dl;
             let du =
@@ -267,6 +320,19 @@ impl Model {
         for m in &self.members {
             let s = member_state(m, pos);
             let roundoff = s.force_n.abs() + m.k_n_per_m * s.length_m;
+            if let Some(run) = &m.run {
+                for ((e, _, w), &(a, b, _)) in run_segments(run, pos).zip(&run.segments) {
+                    for (node, sign) in [(run.nodes[a], -1.0), (run.nodes[b], 1.0)] {
+                        for (&d, c) in self.node_dofs[node].iter().zip(e) {
+                            if d != NONE {
+                                grad[d] += sign * s.force_n * w * c;
+                                mag[d] += roundoff;
+                            }
+                        }
+                    }
+                }
+                continue;
+            }
             for (end, sign) in [(0usize, -1.0), (1usize, 1.0)] {
                 let dofs = self.node_dofs[m.ends[end]];
                 for (&d, e) in dofs.iter().zip(s.e) {
@@ -312,6 +378,10 @@ impl Model {
     pub(crate) fn tangent(&self, pos: &[[f64; 3]], inertia: Option<Inertia<'_>>, values: &mut [f64]) {
         values.fill(0.0);
         for (m, slots) in self.members.iter().zip(&self.member_slots) {
+            if let Some(run) = &m.run {
+                run_tangent(m, run, pos, values);
+                continue;
+            }
             let s = member_state(m, pos);
             let kmat = if s.material { m.k_n_per_m } else { 0.0 };
             let kgeo = if s.length_m > 0.0 { s.force_n / s.length_m } else { 0.0 };
@@ -365,6 +435,48 @@ impl Model {
                     values[self.diag_slots[dof]] += inn.scale_per_s2 * m;
                 }
             }
+        }
+    }
+}
+
+/// A rope's tangent into `values`: the material term `κ g gᵀ` with
+/// `g = ∂Λ/∂x` (each segment adds `± w_i e_i` at its two nodes), which
+/// couples every node of the path, plus each segment's geometric term
+/// `(T w_i / L_i)(I − e_i e_iᵀ)`.
+fn run_tangent(m: &MemberData, run: &RunData, pos: &[[f64; 3]], values: &mut [f64]) {
+    let s = member_state(m, pos);
+    let n = 3 * run.nodes.len();
+    let mut g = vec![0.0; n];
+    let mut block = vec![0.0; n * n];
+    for ((e, l, w), &(a, b, _)) in run_segments(run, pos).zip(&run.segments) {
+        for ax in 0..3 {
+            g[3 * a + ax] -= w * e[ax];
+            g[3 * b + ax] += w * e[ax];
+        }
+        let kgeo = if l > 0.0 { s.force_n * w / l } else { 0.0 };
+        if kgeo == 0.0 {
+            continue;
+        }
+        for i in 0..3 {
+            for j in 0..3 {
+                let v = kgeo * (if i == j { 1.0 } else { 0.0 } - e[i] * e[j]);
+                block[(3 * a + i) * n + 3 * a + j] += v;
+                block[(3 * b + i) * n + 3 * b + j] += v;
+                block[(3 * a + i) * n + 3 * b + j] -= v;
+                block[(3 * b + i) * n + 3 * a + j] -= v;
+            }
+        }
+    }
+    if s.material {
+        for p in 0..n {
+            for q in 0..n {
+                block[p * n + q] += m.k_n_per_m * g[p] * g[q];
+            }
+        }
+    }
+    for (slot, v) in run.slots.iter().zip(&block) {
+        if *slot != NONE {
+            values[*slot] += v;
         }
     }
 }

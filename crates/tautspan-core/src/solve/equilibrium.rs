@@ -5,7 +5,7 @@
 //! normal force the slab carries (≥ 0); a reaction is the force the support
 //! exerts ON the rig, so at equilibrium Σ reactions = −Σ loads.
 
-use super::assemble::member_state;
+use super::assemble::{member_state, run_segments};
 use super::model::Model;
 
 /// A static equilibrium of a [`Network`](super::Network).
@@ -13,9 +13,10 @@ use super::model::Model;
 pub struct Equilibrium {
     /// Position of every node (held ones at their drawn positions), m.
     pub positions_m: Vec<[f64; 3]>,
-    /// Axial force per member, tension positive, N (0 for a slack rope).
+    /// Axial force per member, tension positive, N (0 for a slack rope); a
+    /// rope over sheaves: its largest segment tension (see `NetMember`).
     pub member_force_n: Vec<f64>,
-    /// Current length per member, m.
+    /// Current length per member, m (a rope over sheaves: the sum of its segments).
     pub member_length_m: Vec<f64>,
     /// Normal force per node carried by its floor, N (≥ 0; 0 for nodes not
     /// on a floor and for floor nodes whose contact has opened).
@@ -46,6 +47,19 @@ impl Equilibrium {
         let mut on_node = vec![[0.0; 3]; n_nodes];
         for m in &model.members {
             let s = member_state(m, &positions_m);
+            if let Some(run) = &m.run {
+                let mut length = 0.0;
+                for ((e, l, w), &(a, b, _)) in run_segments(run, &positions_m).zip(&run.segments) {
+                    for ax in 0..3 {
+                        on_node[run.nodes[a]][ax] += s.force_n * w * e[ax];
+                        on_node[run.nodes[b]][ax] -= s.force_n * w * e[ax];
+                    }
+                    length += l;
+                }
+                member_force_n.push(s.force_n);
+                member_length_m.push(length);
+                continue;
+            }
             for (ax, e) in s.e.iter().enumerate() {
                 on_node[m.ends[0]][ax] += s.force_n * e;
                 on_node[m.ends[1]][ax] -= s.force_n * e;

@@ -55,8 +55,10 @@ pub fn load_paths_from(net: &Network, eq: &Equilibrium, starts: &[usize], thresh
     for (i, m) in net.members.iter().enumerate() {
         let carries = eq.member_force_n.get(i).is_some_and(|f| f.abs() > threshold && *f != 0.0);
         if carries {
-            adjacent[m.ends[0]].push((i, m.ends[1]));
-            adjacent[m.ends[1]].push((i, m.ends[0]));
+            for (a, b, _) in m.segments() {
+                adjacent[a].push((i, b));
+                adjacent[b].push((i, a));
+            }
         }
     }
     let is_support = |i: usize| !matches!(net.nodes[i].fixity, Fixity::Free);

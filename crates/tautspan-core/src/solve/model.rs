@@ -23,6 +23,69 @@ pub(crate) struct MemberData {
     pub k_n_per_m: f64,
     pub rest_m: f64,
     pub tension_only: bool,
+    /// A rope over sheaves: `rest_m` is then the weighted rest length `Λ0`
+    /// and `k_n_per_m` the rate `κ` on it (see [`NetMember`](super::network::NetMember)).
+    pub run: Option<Box<RunData>>,
+}
+
+/// A rope's path as the kernels see it.
+#[derive(Debug, Clone)]
+pub(crate) struct RunData {
+    /// The distinct nodes of the path.
+    pub nodes: Vec<usize>,
+    /// Per segment: local indices (into `nodes`) of its two ends and its factor.
+    pub segments: Vec<(usize, usize, f64)>,
+    /// Value slot of each entry (p, q) of the run's 3u × 3u block (local
+    /// order node-major, x y z), or [`NONE`].
+    pub slots: Vec<usize>,
+}
+
+impl MemberData {
+    /// The kernel form of a network member; `drawn` are the drawn positions.
+    fn from_net(m: &super::network::NetMember, drawn: &[[f64; 3]]) -> Self {
+        let tension_only = matches!(m.law, AxialLaw::TensionOnly);
+        if !m.is_run() {
+            return Self {
+                ends: m.ends,
+                k_n_per_m: m.axial_stiffness_n / m.rest_length_m,
+                rest_m: m.rest_length_m,
+                tension_only,
+                run: None,
+            };
+        }
+        let mut nodes: Vec<usize> = Vec::new();
+        let mut local = |n: usize| match nodes.iter().position(|&x| x == n) {
+            Some(p) => p,
+            None => {
+                nodes.push(n);
+                nodes.len() - 1
+            }
+        };
+        let segs: Vec<(usize, usize, f64, f64)> = m
+            .segments()
+            .map(|(a, b, w)| {
+                let (pa, pb) = (drawn[a], drawn[b]);
+                let l = ((pb[0] - pa[0]).powi(2) + (pb[1] - pa[1]).powi(2) + (pb[2] - pa[2]).powi(2)).sqrt();
+                (local(a), local(b), w, l)
+            })
+            .collect();
+        // the unstretched length shared out over the segments as drawn
+        let drawn_total: f64 = segs.iter().map(|s| s.3).sum();
+        let scale = if drawn_total > 0.0 { m.rest_length_m / drawn_total } else { 1.0 };
+        let lambda0: f64 = segs.iter().map(|s| s.2 * s.3 * scale).sum();
+        let compliance: f64 = segs.iter().map(|s| s.2 * s.2 * s.3 * scale).sum::<f64>() / m.axial_stiffness_n;
+        Self {
+            ends: m.ends,
+            k_n_per_m: 1.0 / compliance,
+            rest_m: lambda0,
+            tension_only,
+            run: Some(Box::new(RunData {
+                nodes,
+                segments: segs.iter().map(|s| (s.0, s.1, s.2)).collect(),
+                slots: Vec::new(),
+            })),
+        }
+    }
 }
 
 /// A floor panel's feet: compression-only contacts on the feet's y
@@ -148,16 +211,8 @@ impl Model {
             }
         }
         let n = dof_node.len();
-        let members: Vec<MemberData> = net
-            .members
-            .iter()
-            .map(|m| MemberData {
-                ends: m.ends,
-                k_n_per_m: m.axial_stiffness_n / m.rest_length_m,
-                rest_m: m.rest_length_m,
-                tension_only: matches!(m.law, AxialLaw::TensionOnly),
-            })
-            .collect();
+        let drawn: Vec<[f64; 3]> = net.nodes.iter().map(|n| n.position_m).collect();
+        let mut members: Vec<MemberData> = net.members.iter().map(|m| MemberData::from_net(m, &drawn)).collect();
 
         let local = |m: &MemberData| -> [usize; 6] {
             let a = node_dofs[m.ends[0]];
@@ -165,7 +220,19 @@ impl Model {
             [a[0], a[1], a[2], b[0], b[1], b[2]]
         };
         let mut triplets: Vec<Triplet<usize, usize, f64>> = (0..n).map(|i| Triplet::new(i, i, 0.0)).collect();
+        let run_dofs = |run: &RunData| -> Vec<usize> { run.nodes.iter().flat_map(|&n| node_dofs[n]).collect() };
         for m in &members {
+            if let Some(run) = &m.run {
+                let g = run_dofs(run);
+                for &r in &g {
+                    for &c in &g {
+                        if r != NONE && c != NONE && r > c {
+                            triplets.push(Triplet::new(r, c, 0.0));
+                        }
+                    }
+                }
+                continue;
+            }
             let g = local(m);
             for &r in &g {
                 for &c in &g {
@@ -193,9 +260,22 @@ impl Model {
             sym.row_idx()[start..end].iter().position(|&row| row == r).map_or(NONE, |p| start + p)
         };
         let diag_slots: Vec<usize> = (0..n).map(|i| slot(i, i)).collect();
+        for m in &mut members {
+            if let Some(run) = &mut m.run {
+                let g = run_dofs(run);
+                run.slots = g
+                    .iter()
+                    .flat_map(|&r| g.iter().map(move |&c| (r, c)))
+                    .map(|(r, c)| if r != NONE && c != NONE && r >= c { slot(r, c) } else { NONE })
+                    .collect();
+            }
+        }
         let member_slots: Vec<[usize; 36]> = members
             .iter()
             .map(|m| {
+                if m.run.is_some() {
+                    return [NONE; 36];
+                }
                 let g = local(m);
                 let mut s = [NONE; 36];
                 for p in 0..6 {
@@ -219,8 +299,9 @@ impl Model {
 
         let mut rate_sum = vec![0.0; net.nodes.len()];
         for m in &members {
-            rate_sum[m.ends[0]] += m.k_n_per_m;
-            rate_sum[m.ends[1]] += m.k_n_per_m;
+            for n in m.touched() {
+                rate_sum[n] += m.k_n_per_m;
+            }
         }
         for f in &floors {
             for (&node, k) in f.nodes.iter().zip(&f.rate_n_per_m) {
@@ -229,7 +310,7 @@ impl Model {
         }
         let stiffness_scale_n_per_m = rate_sum.iter().copied().fold(0.0, f64::max).max(f64::MIN_POSITIVE);
 
-        let drawn_m: Vec<[f64; 3]> = net.nodes.iter().map(|n| n.position_m).collect();
+        let drawn_m = drawn;
         let mut lo = [f64::INFINITY; 3];
         let mut hi = [f64::NEG_INFINITY; 3];
         for p in &drawn_m {
@@ -299,6 +380,16 @@ impl Model {
                     out[node][ax] += step[dofs[ax]];
                 }
             }
+        }
+    }
+}
+
+impl MemberData {
+    /// The distinct nodes the member acts on (its two ends, or a rope's whole path).
+    pub(crate) fn touched(&self) -> Vec<usize> {
+        match &self.run {
+            Some(run) => run.nodes.clone(),
+            None => self.ends.to_vec(),
         }
     }
 }

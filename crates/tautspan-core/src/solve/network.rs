@@ -49,7 +49,18 @@ pub struct NetNode {
     pub mass_kg: f64,
 }
 
-/// A member of the network: an axial spring between two nodes.
+/// A member of the network: an axial spring between two nodes, or one
+/// continuous rope running from `ends[0]` over the sheave nodes `via` to
+/// `ends[1]`.
+///
+/// A rope is one spring: its length is the sum of its segments, its rate
+/// `EA / L0` over the whole unstretched length, and it carries one tension
+/// `T` along it; segment `i` pulls with `T · segment_factors[i]` (1 over
+/// frictionless sheaves; below 1 on the side a bearing's friction relieves).
+/// With factors `w_i` the rope's energy is `½ κ (Λ − Λ0)²` over the weighted
+/// length `Λ = Σ w_i L_i`, whose gradient pulls each segment with `T w_i`,
+/// `T = κ (Λ − Λ0)`; `κ = EA / Σ w_i² L0_i` makes the stretch of each
+/// segment `T w_i L0_i / EA` (and `EA / L0` when every factor is 1).
 #[derive(Debug, Clone, PartialEq)]
 pub struct NetMember {
     /// Name for messages (the scenario's member id).
@@ -62,6 +73,50 @@ pub struct NetMember {
     pub rest_length_m: f64,
     /// Tension only or tension and compression.
     pub law: AxialLaw,
+    /// Sheave nodes a rope passes over between its ends, in order (a block
+    /// of several sheaves may be passed more than once); empty for a plain
+    /// member.
+    pub via: Vec<usize>,
+    /// Per segment (`via.len() + 1` of them), its tension ÷ the member's
+    /// force, each in (0, 1]; empty means 1 for every segment.
+    pub segment_factors: Vec<f64>,
+}
+
+impl NetMember {
+    /// A plain member between two nodes.
+    pub fn straight(
+        name: impl Into<String>,
+        ends: [usize; 2],
+        axial_stiffness_n: f64,
+        rest_length_m: f64,
+        law: AxialLaw,
+    ) -> Self {
+        Self {
+            name: name.into(),
+            ends,
+            axial_stiffness_n,
+            rest_length_m,
+            law,
+            via: Vec::new(),
+            segment_factors: Vec::new(),
+        }
+    }
+
+    /// The nodes along the member: its first end, the sheaves, its last end.
+    pub fn path(&self) -> impl Iterator<Item = usize> + '_ {
+        std::iter::once(self.ends[0]).chain(self.via.iter().copied()).chain(std::iter::once(self.ends[1]))
+    }
+
+    /// The segments `(from, to, factor)` in order; one for a plain member.
+    pub fn segments(&self) -> impl Iterator<Item = (usize, usize, f64)> + '_ {
+        let nodes: Vec<usize> = self.path().collect();
+        (0..nodes.len() - 1).map(move |i| (nodes[i], nodes[i + 1], self.segment_factors.get(i).copied().unwrap_or(1.0)))
+    }
+
+    /// True for a rope over sheaves.
+    pub fn is_run(&self) -> bool {
+        !self.via.is_empty()
+    }
 }
 
 /// A floor panel carrying several floor nodes (its feet) through plate

@@ -106,8 +106,9 @@ pub struct Simulation {
 fn automatic_time_step(model: &Model, net: &Network) -> Option<f64> {
     let mut rate = vec![0.0; net.nodes.len()];
     for m in &model.members {
-        rate[m.ends[0]] += m.k_n_per_m;
-        rate[m.ends[1]] += m.k_n_per_m;
+        for n in m.touched() {
+            rate[n] += m.k_n_per_m;
+        }
     }
     for f in &model.floors {
         for (&node, k) in f.nodes.iter().zip(&f.rate_n_per_m) {

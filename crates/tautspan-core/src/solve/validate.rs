@@ -75,6 +75,21 @@ pub(crate) fn validate_network(net: &Network) -> Result<(), SolveError> {
         if !(member.rest_length_m.is_finite() && member.rest_length_m > 0.0) {
             return Err(invalid(item, "rest length must be finite and positive"));
         }
+        if let Some(&v) = member.via.iter().find(|&&v| v >= net.nodes.len()) {
+            return Err(invalid(item, format!("sheave index {v} out of range for {} nodes", net.nodes.len())));
+        }
+        if !member.segment_factors.is_empty() && member.segment_factors.len() != member.via.len() + 1 {
+            return Err(invalid(
+                item,
+                format!("{} segment factors for {} segments", member.segment_factors.len(), member.via.len() + 1),
+            ));
+        }
+        if member.segment_factors.iter().any(|w| !(w.is_finite() && *w > 0.0 && *w <= 1.0)) {
+            return Err(invalid(item, "segment factors must lie in (0, 1]"));
+        }
+        if member.segments().any(|(a, b, _)| a == b) {
+            return Err(invalid(item, "two consecutive nodes of its path are the same node"));
+        }
     }
     Ok(())
 }
@@ -113,10 +128,12 @@ impl Components {
             i
         }
         for m in &net.members {
-            let ra = find(&mut parent, m.ends[0]);
-            let rb = find(&mut parent, m.ends[1]);
-            if ra != rb {
-                parent[ra] = rb;
+            for (a, b, _) in m.segments() {
+                let ra = find(&mut parent, a);
+                let rb = find(&mut parent, b);
+                if ra != rb {
+                    parent[ra] = rb;
+                }
             }
         }
         let component: Vec<usize> = (0..n).map(|i| find(&mut parent, i)).collect();
