@@ -231,6 +231,8 @@ fn part(
     ui.horizontal(|ui| {
         ui.label(RichText::new(format!("Part {n}: {}", PartKind::of(f).label())).strong());
         if ui.button(format!("Remove part {n}")).clicked() {
+            // text half typed in this list belongs to places that move up
+            bufs.remove_under(&host.path());
             out.push(Command::edit(move |d| {
                 if let Some(l) = host.list_mut(d)
                     && k < l.len()

@@ -35,6 +35,12 @@ impl FieldBuffers {
     pub fn remove(&mut self, path: &str) {
         self.0.remove(path);
     }
+
+    /// Forget the unfinished text at a path and every path under it (a list
+    /// whose items move up when one is removed).
+    pub fn remove_under(&mut self, path: &str) {
+        self.0.retain(|p, _| !(p == path || (p.starts_with(path) && p[path.len()..].starts_with(['.', '[']))));
+    }
 }
 
 /// The colour of inline errors.
@@ -126,5 +132,24 @@ impl QtyField<'_> {
             }
         });
         ui.end_row();
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn a_list_forgets_its_items_text_and_nothing_else() {
+        let mut b = FieldBuffers::default();
+        b.put("members[0].fittings[1].wll", "2 tt");
+        b.put("members[0].fittings", "x");
+        b.put("members[0].fittings_extra", "y");
+        b.put("members[1].fittings[0].wll", "z");
+        b.remove_under("members[0].fittings");
+        assert_eq!(b.get("members[0].fittings[1].wll"), None);
+        assert_eq!(b.get("members[0].fittings"), None);
+        assert_eq!(b.get("members[0].fittings_extra"), Some("y"));
+        assert_eq!(b.get("members[1].fittings[0].wll"), Some("z"));
     }
 }
