@@ -25,7 +25,13 @@ pub const TERMINATIONS: [Termination; 5] = [
 
 /// A labelled choice from a few values in a grid row; the new value when
 /// the user picked another one.
-pub fn choice<T: PartialEq + Copy>(ui: &mut Ui, label: &str, salt: &str, current: T, options: &[(T, &str)]) -> Option<T> {
+pub fn choice<T: PartialEq + Copy>(
+    ui: &mut Ui,
+    label: &str,
+    salt: &str,
+    current: T,
+    options: &[(T, &str)],
+) -> Option<T> {
     let l = ui.label(label);
     let mut chosen = current;
     let text = options.iter().find(|(v, _)| *v == current).map_or("", |(_, t)| *t);
@@ -97,14 +103,14 @@ pub fn ui(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, bufs: &mut FieldBuf
     item_problems(ui, input.derived, &p("hitch"));
     item_problems(ui, input.derived, &p("termination"));
     egui::Grid::new("member-rigging").num_columns(2).show(ui, |ui| {
-        if sling || m.hitch.is_some() {
-            if let Some(h) = choice(ui, "Hitch", "hitch", m.hitch, &hitch_options()) {
-                out.push(Command::edit(move |d| {
-                    if let Some(m) = d.members.get_mut(i) {
-                        set_hitch(m, h);
-                    }
-                }));
-            }
+        if (sling || m.hitch.is_some())
+            && let Some(h) = choice(ui, "Hitch", "hitch", m.hitch, &hitch_options())
+        {
+            out.push(Command::edit(move |d| {
+                if let Some(m) = d.members.get_mut(i) {
+                    set_hitch(m, h);
+                }
+            }));
         }
         // under EN a choker has no angle reduction: the field shows only under
         // ASME, or when an angle is written (so the core's refusal is seen)
@@ -236,7 +242,8 @@ mod tests {
 
     #[test]
     fn a_new_hitch_drops_the_angle_only_the_old_one_reads() {
-        let mut m = MemberDto { hitch: Some(Hitch::Choker), choke_angle: Some(Qty::from("120 deg")), ..Default::default() };
+        let mut m =
+            MemberDto { hitch: Some(Hitch::Choker), choke_angle: Some(Qty::from("120 deg")), ..Default::default() };
         set_hitch(&mut m, Some(Hitch::Choker));
         assert!(m.choke_angle.is_some(), "the same hitch keeps its angle");
         set_hitch(&mut m, Some(Hitch::Basket));

@@ -382,7 +382,13 @@ fn axis_field(
 /// An anchor's rated load: typed as a force or a mass; empty clears it.
 /// Shown on anchors, and on any node that has one (the core's refusal then
 /// shows under it).
-pub fn anchor_rating(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, bufs: &mut FieldBuffers, out: &mut Vec<Command>) {
+pub fn anchor_rating(
+    ui: &mut Ui,
+    input: &InspectorInput<'_>,
+    i: usize,
+    bufs: &mut FieldBuffers,
+    out: &mut Vec<Command>,
+) {
     let n = &input.doc.dto.nodes[i];
     if n.support != tautspan_core::file::SupportDto::Anchor && n.rated.is_none() {
         return;

@@ -270,7 +270,9 @@ fn the_parts_edited_are_saved_and_read_back_unchanged() {
     let text = std::fs::read_to_string(&path).unwrap_or_else(|e| panic!("{e}"));
     let loaded = tautspan_core::model::load_scenario(&text).unwrap_or_else(|e| panic!("{e}\n{text}"));
     assert_eq!(loaded.dto, *dto, "read back unchanged");
-    for written in ["rules: ASME", "\"120 deg\"", "HandSplice", "\"400 mm\"", "\"3 deg\"", "\"swivel\"", "\"beam clamp\""] {
+    for written in
+        ["rules: ASME", "\"120 deg\"", "HandSplice", "\"400 mm\"", "\"3 deg\"", "\"swivel\"", "\"beam clamp\""]
+    {
         assert!(text.contains(written), "{written} in\n{text}");
     }
     let _ = std::fs::remove_dir_all(&dir);
