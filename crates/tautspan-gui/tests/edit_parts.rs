@@ -141,6 +141,30 @@ fn a_choker_takes_the_en_mode_factor_and_undo_restores_it() {
     assert!((member_result(&h).allowable_n - straight).abs() < 1e-9 * straight);
 }
 
+// Termination efficiencies as library/termination.rs cites them (EN 13414-1
+// / common practice, from memory): ferrule-secured 0.90; not stated, the
+// lowest common one, 0.80. The allowable scales with it: ratio 0.8 / 0.9.
+#[test]
+fn the_termination_is_picked_or_given_as_an_efficiency() {
+    let mut h = harness(plumb_app());
+    h.state_mut().selection = Selection::Member("line".to_string());
+    h.run();
+    let ferrule = member_result(&h).allowable_n;
+    pick(&mut h, "Termination", "efficiency of my own");
+    let m = &h.state().doc.dto.members[0];
+    assert_eq!((m.termination, m.termination_efficiency), (None, Some(0.8)));
+    let own = member_result(&h).allowable_n;
+    assert!((own / ferrule - 0.8 / 0.9).abs() < 1e-12, "{own} / {ferrule}");
+    assert!(h.query_by_role_and_label(Role::SpinButton, "Termination efficiency").is_some());
+    pick(&mut h, "Termination", "not stated");
+    let m = &h.state().doc.dto.members[0];
+    assert_eq!((m.termination, m.termination_efficiency), (None, None));
+    assert!((member_result(&h).allowable_n - own).abs() < 1e-12 * own, "the same 0.80");
+    pick(&mut h, "Termination", "ferrule-secured eye");
+    assert_eq!(h.state().doc.dto.members[0].termination, Some(Termination::FerruleSecured));
+    assert!((member_result(&h).allowable_n - ferrule).abs() < 1e-12 * ferrule);
+}
+
 // Under ASME rules a choker needs its choke angle (the core refuses it
 // without one); at 100 deg the ASME B30.9 reduction for 90-120 deg is 0.87
 // (from memory, as library/hitch.rs cites it): 0.8 × 0.87 = 0.696.
