@@ -77,11 +77,12 @@ fn scenario_fields(ui: &mut Ui, input: &InspectorInput<'_>, out: &mut Vec<Comman
     egui::Grid::new("scenario-fields").num_columns(2).show(ui, |ui| {
         // not stated reads as EN; a choice is written out
         let current = input.doc.dto.rules.unwrap_or_default();
-        let options = [(Rules::En, Rules::En.label()), (Rules::Asme, Rules::Asme.label())];
+        let options = [(Rules::En, "EN"), (Rules::Asme, "ASME")];
         if let Some(r) = crate::inspector_hitch::choice(ui, "Rules for hitches", "rules", current, &options) {
             out.push(Command::edit(move |d| d.rules = Some(r)));
         }
     });
+    ui.label(RichText::new(input.doc.dto.rules.unwrap_or_default().label()).small().weak());
     let label = ui.label("Notes");
     let mut notes = input.doc.dto.notes.clone();
     if ui.add(egui::TextEdit::multiline(&mut notes).desired_rows(3)).labelled_by(label.id).changed() {

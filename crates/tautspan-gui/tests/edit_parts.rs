@@ -172,7 +172,7 @@ fn the_termination_is_picked_or_given_as_an_efficiency() {
 fn an_asme_choker_without_its_angle_shows_the_cores_message() {
     let mut h = harness(plumb_app());
     let straight = member_result(&h).allowable_n;
-    pick(&mut h, "Rules for hitches", Rules::Asme.label());
+    pick(&mut h, "Rules for hitches", "ASME");
     assert_eq!(h.state().doc.dto.rules, Some(Rules::Asme));
     h.state_mut().selection = Selection::Member("line".to_string());
     h.run();
@@ -260,7 +260,7 @@ fn the_parts_edited_are_saved_and_read_back_unchanged() {
     let dir = temp_dir("parts");
     let path = dir.join("parts.ron");
     let mut h = harness(plumb_app());
-    pick(&mut h, "Rules for hitches", Rules::Asme.label());
+    pick(&mut h, "Rules for hitches", "ASME");
     h.state_mut().selection = Selection::Member("line".to_string());
     h.run();
     pick(&mut h, "Hitch", "choker");
