@@ -1,5 +1,5 @@
 //! The canvas: the elevation (x–y) of the rig, with the tools that place
-//! and move things. It reads the document and the analysis, and returns
+//! and move things, and a tooltip naming a member's fittings. It reads the document and the analysis, and returns
 //! commands; it never edits the document itself. Drawing is in
 //! `canvas_draw`.
 
@@ -100,6 +100,31 @@ fn hit(geo: &Geometry, view: &View, p: Pos2) -> Selection {
         }
     }
     Selection::None
+}
+
+/// The tooltip naming a member's fittings, when the pointer is on that
+/// member or its parts mark.
+fn parts_tip(geo: &Geometry, view: &View, over: &Selection, p: Pos2) -> Option<String> {
+    let on_mark = geo.members.iter().find(|m| {
+        !m.parts.is_empty()
+            && geo.node(&m.ends.0).zip(geo.node(&m.ends.1)).is_some_and(|(a, b)| {
+                let (sa, sb) = (view.to_screen(a.pos_m[0], a.pos_m[1]), view.to_screen(b.pos_m[0], b.pos_m[1]));
+                canvas_draw::parts_mark_at(sa, sb).distance(p) <= 8.0
+            })
+    });
+    let m = on_mark.or_else(|| match over {
+        Selection::Member(id) => geo.members.iter().find(|m| &m.id == id),
+        _ => None,
+    })?;
+    parts_text(&m.id, &m.parts)
+}
+
+/// The text naming a member's fittings (none without parts).
+pub fn parts_text(member: &str, parts: &[String]) -> Option<String> {
+    if parts.is_empty() {
+        return None;
+    }
+    Some(format!("Fittings on {member}:\n{}", parts.iter().map(|p| format!("• {p}")).collect::<Vec<_>>().join("\n")))
 }
 
 fn segment_distance(p: Pos2, a: Pos2, b: Pos2) -> f32 {
@@ -216,6 +241,9 @@ pub fn ui(ui: &mut Ui, state: &mut CanvasState, view: &mut View, input: &CanvasI
         if over != Selection::None {
             ui.ctx().set_cursor_icon(egui::CursorIcon::PointingHand);
         }
+        if let Some(text) = parts_tip(geo, view, &over, p) {
+            response.clone().on_hover_text_at_pointer(text);
+        }
     }
 
     let painter = ui.painter_at(rect);
@@ -287,5 +315,20 @@ fn select_tool(
             out.push(Command::SealUndo);
         }
         state.panning = false;
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn the_tooltip_names_each_part() {
+        assert_eq!(parts_text("leg", &[]), None);
+        let parts = vec!["shackle, WLL 3.25 t".to_string(), "swivel, WLL 20 kN".to_string()];
+        assert_eq!(
+            parts_text("leg", &parts).as_deref(),
+            Some("Fittings on leg:\n• shackle, WLL 3.25 t\n• swivel, WLL 20 kN")
+        );
     }
 }

@@ -1,6 +1,6 @@
 //! Painting the elevation: paper, grid and scale bar, floor slabs, members
 //! shaded by utilisation (dashed when slack, heavy and hatched when over),
-//! force labels, nodes with our own symbols, masses, the selected mass's
+//! a small diamond on members that carry fittings, force labels, nodes with our own symbols, masses, the selected mass's
 //! load path, the legend, and in the deflected view the drawn shape faint
 //! beneath with the caption. Positions come from the document (what the
 //! user drew) or, deflected, from the core's solved positions; forces from
@@ -99,6 +99,26 @@ fn anchor_symbol(painter: &Painter, p: Pos2, stroke: Stroke) {
     painter.line_segment([p + vec2(-8.0, -7.0), p + vec2(8.0, -7.0)], stroke);
 }
 
+/// Where a member's parts mark sits: a quarter of the way from its first
+/// end, clear of the force label at the middle.
+pub fn parts_mark_at(a: Pos2, b: Pos2) -> Pos2 {
+    a + (b - a) * 0.25
+}
+
+/// The mark of a member that carries fittings: a small white diamond with
+/// a dark edge, on the member; with more than one part, their number beside it.
+fn parts_mark(painter: &Painter, p: Pos2, count: usize) {
+    let r = 5.5;
+    painter.add(Shape::convex_polygon(
+        vec![p + vec2(0.0, -r), p + vec2(r, 0.0), p + vec2(0.0, r), p + vec2(-r, 0.0)],
+        Color32::WHITE,
+        Stroke::new(1.5, INK),
+    ));
+    if count > 1 {
+        painter.text(p + vec2(r + 2.0, 0.0), Align2::LEFT_CENTER, count.to_string(), FontId::proportional(10.0), INK);
+    }
+}
+
 fn draw_floor(painter: &Painter, view: &View, f: &GeoFloor, picked: bool) {
     let r = f.rect_screen(view);
     painter.rect_filled(r, 0.0, Color32::from_rgb(0xd8, 0xd3, 0xc4));
@@ -189,6 +209,9 @@ pub fn draw(
             if state == Some(State::Over) {
                 hatch_over(painter, sa, sb, CASING);
             }
+        }
+        if !m.parts.is_empty() {
+            parts_mark(painter, parts_mark_at(sa, sb), m.parts.len());
         }
         if input.labels
             && let Some(r) = result

@@ -1,5 +1,6 @@
 //! The drawing's geometry read from the document: nodes at their drawn
-//! positions, members by their end ids, masses, and the slabs under floor
+//! positions, members by their end ids (with their rated parts named),
+//! masses, and the slabs under floor
 //! nodes. Items that do not parse are left out (their fields say why). A
 //! drag moves one node a frame, so the geometry can follow such an edit in
 //! place instead of being read afresh.
@@ -28,6 +29,8 @@ pub struct GeoMember {
     pub id: String,
     /// End node ids.
     pub ends: (String, String),
+    /// The rated parts in series with it, as written (name or kind, WLL).
+    pub parts: Vec<String>,
 }
 
 /// A mass as drawn.
@@ -89,6 +92,10 @@ fn mass_kg(text: &str) -> Option<f64> {
     parse_quantity(text, Dimension::Mass, Sign::Positive).ok()
 }
 
+fn parts_of(fittings: &[tautspan_core::file::FittingDto]) -> Vec<String> {
+    fittings.iter().map(crate::inspector_parts::describe).collect()
+}
+
 /// The slabs under the floor nodes.
 fn floors_of(nodes: &[GeoNode], dto: &ScenarioDto) -> Vec<GeoFloor> {
     nodes
@@ -125,7 +132,11 @@ impl Geometry {
         let index = nodes.iter().enumerate().map(|(i, n)| (n.id.clone(), i)).collect();
         Geometry {
             index,
-            members: dto.members.iter().map(|m| GeoMember { id: m.id.clone(), ends: m.ends.clone() }).collect(),
+            members: dto
+                .members
+                .iter()
+                .map(|m| GeoMember { id: m.id.clone(), ends: m.ends.clone(), parts: parts_of(&m.fittings) })
+                .collect(),
             masses: dto
                 .masses
                 .iter()
@@ -158,6 +169,12 @@ impl Geometry {
         }
         for (g, m) in self.masses.iter_mut().zip(&dto.masses) {
             g.kg = mass_kg(&m.mass.0);
+        }
+        for (g, m) in self.members.iter_mut().zip(&dto.members) {
+            // the parts may have been edited in place (a WLL typed)
+            if !(g.parts.is_empty() && m.fittings.is_empty()) {
+                g.parts = parts_of(&m.fittings);
+            }
         }
         self.floors = floors_of(&self.nodes, dto);
         true

@@ -1,7 +1,9 @@
 //! The inspector: the fields of whatever is selected, unit-aware, with the
 //! validation problems of each field shown beside it. Nodes, masses and
-//! floor slabs are here; members, with their library pickers, are in
-//! `inspector_member`.
+//! floor slabs are here (an anchor's rated load and a node's fittings through
+//! `inspector_parts`); members, with their library pickers, are in
+//! `inspector_member`. With nothing selected: the scenario's title, notes and
+//! the rule set for hitches (EN or ASME).
 
 use crate::command::Command;
 use crate::derived::Derived;
@@ -12,7 +14,7 @@ use crate::selection::Selection;
 use crate::units_display::{Shown, UnitSystem};
 use egui::{RichText, Ui};
 use tautspan_core::file::{Qty, SupportDto};
-use tautspan_core::library::Edges;
+use tautspan_core::library::{Edges, Rules};
 use tautspan_core::units::{Dimension, Sign};
 
 /// Everything the inspector reads.
@@ -72,6 +74,15 @@ fn scenario_fields(ui: &mut Ui, input: &InspectorInput<'_>, out: &mut Vec<Comman
     if ui.text_edit_singleline(&mut title).labelled_by(label.id).changed() {
         out.push(Command::edit_merged("title", move |d| d.title = title));
     }
+    egui::Grid::new("scenario-fields").num_columns(2).show(ui, |ui| {
+        // not stated reads as EN; a choice is written out
+        let current = input.doc.dto.rules.unwrap_or_default();
+        let options = [(Rules::En, "EN"), (Rules::Asme, "ASME")];
+        if let Some(r) = crate::inspector_hitch::choice(ui, "Rules for hitches", "rules", current, &options) {
+            out.push(Command::edit(move |d| d.rules = Some(r)));
+        }
+    });
+    ui.label(RichText::new(input.doc.dto.rules.unwrap_or_default().label()).small().weak());
     let label = ui.label("Notes");
     let mut notes = input.doc.dto.notes.clone();
     if ui.add(egui::TextEdit::multiline(&mut notes).desired_rows(3)).labelled_by(label.id).changed() {
@@ -188,7 +199,9 @@ fn node(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, bufs: &mut FieldBuffe
             }));
         }
         ui.end_row();
+        crate::inspector_parts::anchor_rating(ui, input, i, bufs, out);
     });
+    crate::inspector_parts::fittings(ui, input, crate::inspector_parts::Host::Node(i), bufs, out);
     if let Some(r) = input.derived.case(input.case).and_then(|c| c.nodes.iter().find(|r| r.id == n.id)) {
         ui.separator();
         ui.label(format!(

@@ -1,7 +1,8 @@
 //! The inspector for a member: kind, size, library pickers (material, rope
 //! construction, rope grade, chain grade), rating, design factor with the
-//! kind's default and its source beside it, slack; then its result in the
-//! case shown, with the explanation on hover.
+//! kind's default and its source beside it, slack; its rigging
+//! (`inspector_hitch`) and fittings (`inspector_parts`); then its result in
+//! the case shown, with the explanation on hover.
 
 use crate::command::Command;
 use crate::inspector::{InspectorInput, item_problems};
@@ -201,6 +202,8 @@ pub fn ui(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, bufs: &mut FieldBuf
         }
         ui.end_row();
     });
+    crate::inspector_hitch::ui(ui, input, i, bufs, out);
+    crate::inspector_parts::fittings(ui, input, crate::inspector_parts::Host::Member(i), bufs, out);
     result(ui, input, &m.id);
 }
 

@@ -35,6 +35,12 @@ impl FieldBuffers {
     pub fn remove(&mut self, path: &str) {
         self.0.remove(path);
     }
+
+    /// Forget the unfinished text at a path and every path under it (a list
+    /// whose items move up when one is removed).
+    pub fn remove_under(&mut self, path: &str) {
+        self.0.retain(|p, _| !(p == path || (p.starts_with(path) && p[path.len()..].starts_with(['.', '[']))));
+    }
 }
 
 /// The colour of inline errors.
@@ -64,6 +70,23 @@ pub struct QtyField<'a> {
 impl QtyField<'_> {
     /// Draw the field in a two-column grid row; push an edit when the text parses.
     pub fn show(self, ui: &mut Ui, bufs: &mut FieldBuffers, derived: &Derived, out: &mut Vec<Command>, set: Setter) {
+        let (dimension, sign) = (self.dimension, self.sign);
+        let check = move |t: &str| parse_quantity(t, dimension, sign).map(|_| ()).map_err(|e| e.to_string());
+        self.show_checked(ui, bufs, derived, out, set, &check);
+    }
+
+    /// As [`QtyField::show`], with the core's own check of the text in place
+    /// of the parser for `dimension` (a rated load: a force, or a mass as on
+    /// the tag).
+    pub fn show_checked(
+        self,
+        ui: &mut Ui,
+        bufs: &mut FieldBuffers,
+        derived: &Derived,
+        out: &mut Vec<Command>,
+        set: Setter,
+        check: &dyn Fn(&str) -> Result<(), String>,
+    ) {
         let label = ui.label(self.label);
         let mut text =
             bufs.get(&self.path).map_or_else(|| self.current.map(|q| q.0.clone()).unwrap_or_default(), str::to_string);
@@ -76,7 +99,7 @@ impl QtyField<'_> {
                 let parsed = if self.optional && text.trim().is_empty() {
                     Ok(None)
                 } else {
-                    parse_quantity(&text, self.dimension, self.sign).map(|_| Some(Qty(text.trim().to_string())))
+                    check(&text).map(|()| Some(Qty(text.trim().to_string())))
                 };
                 match parsed {
                     Ok(q) => {
@@ -99,8 +122,8 @@ impl QtyField<'_> {
             }
             let typing = bufs.get(&self.path).map(str::to_string);
             if let Some(t) = typing {
-                if let Err(e) = parse_quantity(&t, self.dimension, self.sign) {
-                    ui.label(RichText::new(e.to_string()).color(ERROR).small());
+                if let Err(e) = check(&t) {
+                    ui.label(RichText::new(e).color(ERROR).small());
                 }
             } else {
                 for p in derived.problems_at(&self.path) {
@@ -109,5 +132,24 @@ impl QtyField<'_> {
             }
         });
         ui.end_row();
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn a_list_forgets_its_items_text_and_nothing_else() {
+        let mut b = FieldBuffers::default();
+        b.put("members[0].fittings[1].wll", "2 tt");
+        b.put("members[0].fittings", "x");
+        b.put("members[0].fittings_extra", "y");
+        b.put("members[1].fittings[0].wll", "z");
+        b.remove_under("members[0].fittings");
+        assert_eq!(b.get("members[0].fittings[1].wll"), None);
+        assert_eq!(b.get("members[0].fittings"), None);
+        assert_eq!(b.get("members[0].fittings_extra"), Some("y"));
+        assert_eq!(b.get("members[1].fittings[0].wll"), Some("z"));
     }
 }

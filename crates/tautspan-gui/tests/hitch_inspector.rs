@@ -1,5 +1,6 @@
 //! A choker sling bent over a pin in the member inspector: the hitch's mode
-//! factor and the D/d efficiency are shown beside the force (read-only).
+//! factor and the D/d efficiency are shown beside the force (they are edited
+//! in the same inspector: tests/edit_parts.rs).
 
 mod common;
 
