@@ -226,14 +226,80 @@ pub fn node_fittings(s: &Scenario, n: usize, eq: &Equilibrium) -> Vec<FittingRes
         .collect()
 }
 
-/// An anchor's rating checked on its reaction's magnitude.
+/// An across component below this share of the pull (0.006 deg) counts as
+/// in line: what the solve's roundoff and the elastic turning of stiff
+/// members leave of a pull drawn in line, not an allowance of any rating
+/// (a maker's side rating is `rated_across`).
+const ACROSS_ROUNDOFF: f64 = 1e-4;
+
+/// An anchor's rating checked on its reaction: on the magnitude where it
+/// holds in any direction; where it holds in a direction, the pull's
+/// component along it against the rating and the component across it
+/// against `rated_across` by the linear interaction
+/// `along / rated + across / rated_across` (common practice for combined
+/// loads on a rated point, conservative against any convex interaction);
+/// an across pull without a side rating, or a pull against the rated
+/// sense, is `unchecked`.
 pub fn anchor_rating(s: &Scenario, n: usize, eq: &Equilibrium) -> Option<FittingResult> {
-    let f = s.nodes[n].rated.as_ref()?;
+    let node = &s.nodes[n];
+    let f = node.rated.as_ref()?;
     let v = eq.reaction_n[n];
     let mag = (v[0] * v[0] + v[1] * v[1] + v[2] * v[2]).sqrt();
     let mut r = result(f, mag, s.near_limit);
     r.kind = "anchor".to_string();
-    r.source = format!("rated load {}; checked on the magnitude of the reaction, in any direction", f.wll_note);
+    let Some(d) = node.rated_direction else {
+        r.source = format!("rated load {}; checked on the magnitude of the reaction, in any direction", f.wll_note);
+        return Some(r);
+    };
+    // the rig's pull on the anchor is minus the reaction
+    let pull = v.map(|c| -c);
+    let along = pull[0] * d[0] + pull[1] * d[1] + pull[2] * d[2];
+    let across_v = [pull[0] - along * d[0], pull[1] - along * d[1], pull[2] - along * d[2]];
+    let across = (across_v[0] * across_v[0] + across_v[1] * across_v[1] + across_v[2] * across_v[2]).sqrt();
+    let angle = if mag > 0.0 { across.atan2(along).to_degrees() } else { 0.0 };
+    r.angle_deg = Some(angle);
+    let dir = format!("({}, {}, {})", format_number(d[0], 3), format_number(d[1], 3), format_number(d[2], 3));
+    let tiny = ACROSS_ROUNDOFF * mag;
+    if along < -tiny {
+        r.state = State::Unchecked;
+        r.utilisation = 0.0;
+        r.reason = Some(format!(
+            "anchor {} is pulled against its rated direction {dir} ({} the other way); its rating does not cover that",
+            node.id,
+            kn(-along)
+        ));
+        return Some(r);
+    }
+    let u_along = along.max(0.0) / f.wll.value;
+    match &node.rated_across {
+        Some(side) => {
+            r.utilisation = u_along + across / side.wll.value;
+            r.state = state_of(r.utilisation, s.near_limit);
+            r.source = format!(
+                "rated load {} along {dir}, {} across it ({}); along {} / rated + across {} / rated across (linear interaction, common practice, conservative)",
+                f.wll_note,
+                kn(side.wll.value),
+                side.wll_note,
+                kn(along.max(0.0)),
+                kn(across)
+            );
+        }
+        None if across > tiny => {
+            r.utilisation = u_along;
+            r.state = State::Unchecked;
+            r.reason = Some(format!(
+                "anchor {} is pulled {} deg off its rated direction {dir} ({} across it) and has no rating across it: give `rated_across` (the maker's side rating)",
+                node.id,
+                format_number(angle, 3),
+                kn(across)
+            ));
+        }
+        None => {
+            r.utilisation = u_along;
+            r.state = state_of(u_along, s.near_limit);
+            r.source = format!("rated load {} along {dir}; the pull is in line with it", f.wll_note);
+        }
+    }
     Some(r)
 }
 

@@ -59,6 +59,18 @@ fn has_bend(s: &Scenario) -> bool {
     s.members.iter().any(|m| m.bend.is_some())
 }
 
+fn has_rope(s: &Scenario) -> bool {
+    s.members.iter().any(|m| m.run.is_some())
+}
+
+fn has_fibre_rope_over_sheaves(s: &Scenario) -> bool {
+    s.members.iter().any(|m| m.run.is_some() && m.kind == crate::library::MemberKind::FibreRope)
+}
+
+fn has_directional_anchor(s: &Scenario) -> bool {
+    s.nodes.iter().any(|n| n.rated_direction.is_some())
+}
+
 fn has_unrated_anchor(s: &Scenario) -> bool {
     s.nodes.iter().any(|n| n.support == Support::Anchor && n.rated.is_none())
 }
@@ -105,9 +117,25 @@ const CHECKED: &[Entry] = &[
         text: "wire rope bent over a pin or sheave where bent_over is given: the D/d efficiency on the allowable",
         applies: has_bend,
     },
+    Entry {
+        text: "ropes over sheaves: one continuous rope, one spring over its whole length, checked on its largest span's tension; bearing friction per sheave (Wire Rope Users Manual: K 1.09 plain, 1.04 roller) in the rope's stated motion; wire rope: the D/d efficiency of its smallest sheave on the allowable; each sheave's load (the vector sum of its spans) in the node's resultant and the anchor's reaction",
+        applies: has_rope,
+    },
+    Entry {
+        text: "anchors rated in a direction: the reaction's component along the rated direction against the rating and, where rated_across is given, the linear interaction along/rated + across/rated_across (common practice, conservative)",
+        applies: has_directional_anchor,
+    },
 ];
 
 const NOT_CHECKED: &[Entry] = &[
+    Entry {
+        text: "ropes over sheaves: the sheaves, pins and blocks themselves (enter a block's WLL as a fitting at its node), fleet angle, rope wrap and the sheave's radius (spans run between node centres), friction while the rope is held still (taken in the stated motion only), and a rope sliding over a sheave under load",
+        applies: has_rope,
+    },
+    Entry {
+        text: "fibre rope over sheaves: no D/d reduction is applied; use the maker's rating for the sheave size",
+        applies: has_fibre_rope_over_sheaves,
+    },
     Entry {
         text: "hitches not entered: every sling is taken as a straight pull (mode factor 1); the rules for mode factors are EN unless `rules: ASME` is given",
         applies: always,

@@ -274,7 +274,8 @@ pub fn sling_legs(s: &Scenario, r: &CaseResult) -> Vec<bool> {
         .iter()
         .zip(&r.members)
         .map(|(m, mr)| {
-            if m.kind.carries() != Carries::TensionOnly || mr.force_n <= 0.0 {
+            // a rope over sheaves is no sling leg (its spans are not counted)
+            if m.kind.carries() != Carries::TensionOnly || mr.force_n <= 0.0 || m.run.is_some() {
                 return None;
             }
             let [a, b] = m.ends;
@@ -322,6 +323,7 @@ pub fn sling_legs(s: &Scenario, r: &CaseResult) -> Vec<bool> {
                 level[*lo] += 1;
                 level[*hi] += 1;
             }
+            None if m.run.is_some() => {}
             None => {
                 // a rod or slack line still makes a node a net joint or a spreader end
                 let [a, b] = m.ends;

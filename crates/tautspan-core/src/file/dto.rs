@@ -157,6 +157,14 @@ pub struct NodeDto {
     /// Fittings at the node (e.g. a master link), checked on the resultant of the members above it.
     #[serde(default, skip_serializing_if = "Vec::is_empty")]
     pub fittings: Vec<super::fitting::FittingDto>,
+    /// The direction an anchor's rating holds in: the pull of the rig on the
+    /// anchor, e.g. `(0, -1, 0)` for a roof point loaded downwards; omitted =
+    /// `rated` holds in any direction.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub rated_direction: Option<super::fitting::Direction>,
+    /// An anchor's rated load across `rated_direction` (the maker's side rating).
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub rated_across: Option<Qty>,
     /// A sheave at the node: ropes (`ropes`) may run over it.
     #[serde(default, skip_serializing_if = "Option::is_none")]
     pub sheave: Option<SheaveDto>,

@@ -3,7 +3,7 @@
 //! found from the file or the library. Problems are collected (not only the
 //! first) and each names its field path; the file layer adds line and column.
 
-use super::build_fittings::{Host, build_fittings, build_rated};
+use super::build_fittings::{Host, build_fittings, build_rated, build_rated_direction};
 use super::build_ropes::{build_ropes, build_sheave};
 use super::floor_feet::place_feet;
 use super::scenario::{
@@ -187,6 +187,7 @@ pub fn build(dto: &ScenarioDto) -> Result<Scenario, Vec<Problem>> {
                 }
             },
         };
+        let (rated_direction, rated_across) = build_rated_direction(&mut ctx, i, n);
         nodes.push(Node {
             id: n.id.clone(),
             position: [
@@ -198,6 +199,8 @@ pub fn build(dto: &ScenarioDto) -> Result<Scenario, Vec<Problem>> {
             rated: build_rated(&mut ctx, i, &n.rated, support),
             fittings: build_fittings(&mut ctx, "nodes", i, Host::Node, &n.fittings),
             sheave: n.sheave.as_ref().and_then(|sh| build_sheave(&mut ctx, i, sh)),
+            rated_direction,
+            rated_across,
         });
     }
 

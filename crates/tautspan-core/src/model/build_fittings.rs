@@ -127,3 +127,35 @@ pub(super) fn build_rated(ctx: &mut Ctx, index: usize, rated: &Option<Qty>, supp
     let (wll, wll_note) = rated_load(ctx, q, &path)?;
     Some(Fitting { kind: FittingKind::Other, name: "anchor".to_string(), wll, wll_note })
 }
+
+/// An anchor's rated direction and side rating, validated: both need
+/// `rated`, and a side rating needs the direction it is across.
+pub(super) fn build_rated_direction(
+    ctx: &mut Ctx,
+    index: usize,
+    node: &crate::file::NodeDto,
+) -> (Option<[f64; 3]>, Option<Fitting>) {
+    let dir_path = format!("nodes[{index}].rated_direction");
+    let direction = node.rated_direction.and_then(|(x, y, z)| {
+        let l = (x * x + y * y + z * z).sqrt();
+        if node.rated.is_none() {
+            ctx.err(&dir_path, "`rated_direction` says in which direction `rated` holds; give `rated` too");
+            None
+        } else if !(l.is_finite() && l > 0.0) {
+            ctx.err(&dir_path, "the rated direction must be a finite, non-zero vector (x, y, z), e.g. (0, -1, 0) for a pull straight down");
+            None
+        } else {
+            Some([x / l, y / l, z / l])
+        }
+    });
+    let across = node.rated_across.as_ref().and_then(|q| {
+        let path = format!("nodes[{index}].rated_across");
+        if node.rated_direction.is_none() {
+            ctx.err(&path, "`rated_across` is the rating across `rated_direction`; give the direction it is across");
+            return None;
+        }
+        let (wll, wll_note) = rated_load(ctx, q, &path)?;
+        Some(Fitting { kind: FittingKind::Other, name: "anchor side rating".to_string(), wll, wll_note })
+    });
+    (direction, across)
+}

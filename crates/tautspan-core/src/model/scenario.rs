@@ -33,6 +33,11 @@ pub struct Node {
     pub rated: Option<super::fitting::Fitting>,
     /// Fittings at the node, checked on the resultant of the members above it.
     pub fittings: Vec<super::fitting::Fitting>,
+    /// The unit direction an anchor's rating holds in (the rig's pull on
+    /// it); `None`: the rating holds in any direction.
+    pub rated_direction: Option<[f64; 3]>,
+    /// The anchor's rated load across that direction, where given.
+    pub rated_across: Option<super::fitting::Fitting>,
     /// A sheave at the node, where ropes may run over it.
     pub sheave: Option<Sheave>,
 }
