@@ -132,6 +132,11 @@ fn case_text(c: &CaseResult, out: &mut String) {
         if let Some(r) = &m.reason {
             let _ = writeln!(out, "  unchecked {}: {r}", m.id);
         }
+        if !m.segments.is_empty() {
+            let spans: Vec<String> =
+                m.segments.iter().map(|g| format!("{}-{} {} kN", g.from, g.to, kn(g.force_n))).collect();
+            let _ = writeln!(out, "  rope {} over sheaves, tension per span: {}", m.id, spans.join(", "));
+        }
     }
     if !c.floors.is_empty() {
         let rows: Vec<Vec<String>> = c

@@ -120,13 +120,24 @@ fn members(scenario: &Scenario, analysis: &Analysis, elev: &Elevation, view: &Vi
     let mut lines = String::new();
     let mut labels = String::new();
     for member in &scenario.members {
-        let [a, b] = member.ends;
-        let (pa, pb) = (view.map(elev.xy_m[a]), view.map(elev.xy_m[b]));
+        // a rope over sheaves is drawn through its path; its id on its longest span
+        let pts: Vec<[f64; 2]> = member.path().iter().map(|&k| view.map(elev.xy_m[k])).collect();
+        let (pa, pb) = pts
+            .windows(2)
+            .map(|w| (w[0], w[1]))
+            .max_by(|x, y| {
+                let l = |p: &([f64; 2], [f64; 2])| (p.1[0] - p.0[0]).hypot(p.1[1] - p.0[1]);
+                l(x).total_cmp(&l(y))
+            })
+            .unwrap_or((pts[0], pts[pts.len() - 1]));
         let m = mark(analysis, elev.case, &member.id);
         let width = if m.over { OVER_WIDTH } else { LINE_WIDTH };
         let dash = if m.slack { " stroke-dasharray=\"9 6\"" } else { "" };
         let shade = m.utilisation.map_or_else(|| "#ffffff".to_string(), colour);
-        let d = format!("M{:.2} {:.2} L{:.2} {:.2}", pa[0], pa[1], pb[0], pb[1]);
+        let mut d = format!("M{:.2} {:.2}", pts[0][0], pts[0][1]);
+        for p in &pts[1..] {
+            d.push_str(&format!(" L{:.2} {:.2}", p[0], p[1]));
+        }
         lines.push_str(&format!(
             "<g class=\"member\"><title>{}</title>\
              <path d=\"{d}\" stroke=\"#1b1f24\" stroke-width=\"{:.1}\" stroke-linecap=\"butt\"{dash}/>\
@@ -166,11 +177,18 @@ fn nodes(scenario: &Scenario, elev: &Elevation, view: &View) -> String {
             let p = view.map(elev.xy_m[i]);
             let mut taken = directions(scenario, elev, view, i);
             let away = away_from(&taken);
-            let symbol = match node.support {
+            let mut symbol = match node.support {
                 Support::Anchor => anchor(p, away),
                 Support::Floor(_) => bearing(p),
                 Support::Joint => joint(p),
             };
+            if node.sheave.is_some() {
+                // a sheave: an open ring round the node
+                symbol.push_str(&format!(
+                    "<circle cx=\"{:.2}\" cy=\"{:.2}\" r=\"7\" fill=\"none\" stroke=\"#1b1f24\" stroke-width=\"1.6\" class=\"sheave\"/>",
+                    p[0], p[1]
+                ));
+            }
             match node.support {
                 Support::Anchor => taken.push(away),
                 Support::Floor(_) => taken.push([0.0, 1.0]),
@@ -205,9 +223,10 @@ fn directions(scenario: &Scenario, elev: &Elevation, view: &View, i: usize) -> V
     let mut dirs: Vec<[f64; 2]> = scenario
         .members
         .iter()
-        .filter_map(|m| match m.ends {
-            [a, b] if a == i => Some(b),
-            [a, b] if b == i => Some(a),
+        .flat_map(|m| m.segments())
+        .filter_map(|(a, b, _)| match (a, b) {
+            (a, b) if a == i => Some(b),
+            (a, b) if b == i => Some(a),
             _ => None,
         })
         .filter_map(|other| {

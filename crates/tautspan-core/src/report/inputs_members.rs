@@ -78,7 +78,15 @@ fn make_up_row(scenario: &Scenario, m: &Member, units: UnitSystem) -> Vec<String
     vec![
         with_note(
             &format!("<b>{}</b>", escape(&m.id)),
-            &format!("{}, {} – {}", m.kind.label(), end(m.ends[0]), end(m.ends[1])),
+            &match &m.run {
+                None => format!("{}, {} – {}", m.kind.label(), end(m.ends[0]), end(m.ends[1])),
+                Some(run) => format!(
+                    "{} rope over sheaves, {}; {}",
+                    m.kind.label(),
+                    m.path().iter().map(|&k| end(k)).collect::<Vec<_>>().join(" – "),
+                    escape(&run.note)
+                ),
+            },
         ),
         size,
         m.material.map_or_else(|| NONE.to_string(), |x| escape(x.name())),
