@@ -480,3 +480,94 @@ fn run_tangent(m: &MemberData, run: &RunData, pos: &[[f64; 3]], values: &mut [f6
         }
     }
 }
+
+#[cfg(test)]
+mod rope_kernel_tests {
+    use crate::solve::model::Model;
+    use crate::solve::{AxialLaw, Fixity, NetMember, NetNode, Network};
+
+    /// A rope from anchor A over free sheave nodes K and M to anchor B, with
+    /// a bearing factor on the first span, stretched (taut) at the start.
+    fn rope_net() -> Network {
+        let node = |name: &str, p: [f64; 3], fixity| NetNode {
+            name: name.into(),
+            position_m: p,
+            fixity,
+            load_n: [0.0, -2e3, 0.0],
+            mass_kg: 0.0,
+        };
+        let mut rope = NetMember::straight("r", [0, 3], 1e6, 8.0, AxialLaw::TensionOnly);
+        rope.via = vec![1, 2];
+        rope.segment_factors = vec![1.0 / 1.09, 1.0, 1.0];
+        Network {
+            nodes: vec![
+                node("A", [0.0, 5.0, 0.0], Fixity::Fixed),
+                node("K", [1.0, 2.0, 0.3], Fixity::Free),
+                node("M", [2.2, 2.5, -0.2], Fixity::Free),
+                node("B", [3.0, 5.0, 0.5], Fixity::Fixed),
+            ],
+            members: vec![rope],
+            plates: Vec::new(),
+        }
+    }
+
+    // The rope's potential ½κ(Λ − Λ0)², its gradient and its tangent agree:
+    // the step-wise energy change equals the difference of totals (1e-9),
+    // the gradient equals the central difference of the energy (1e-6: O(h²)
+    // with h = 1e-7 m) and the tangent the central difference of the
+    // gradient (1e-5, same reason).
+    #[test]
+    fn energy_gradient_and_tangent_agree() {
+        let net = rope_net();
+        let model = Model::new(&net).expect("model");
+        let n = model.n_dofs();
+        let loads = vec![-2e3 / 3.0; n];
+        let mut pos0: Vec<[f64; 3]> = net.nodes.iter().map(|x| x.position_m).collect();
+        pos0[1] = [1.1, 1.0, 0.4];
+        pos0[2] = [2.3, 1.2, -0.3];
+        let e = |p: &[[f64; 3]]| model.energy(p, &loads, None).0;
+        let mut delta = Vec::new();
+        let step: Vec<f64> = (0..n).map(|k| 1e-3 * (k as f64 + 1.0).sin()).collect();
+        let mut pos1 = pos0.clone();
+        model.add_step(&pos0, &step, &mut pos1);
+        let (d, _) = model.energy_change(&pos0, &step, &loads, None, &mut delta);
+        let diff = e(&pos1) - e(&pos0);
+        assert!(((d - diff) / diff).abs() < 1e-9, "{d} vs {diff}");
+
+        let grad = |p: &[[f64; 3]]| {
+            let (mut g, mut mag) = (vec![0.0; n], vec![0.0; n]);
+            model.gradient(p, &loads, None, &mut g, &mut mag);
+            g
+        };
+        let g0 = grad(&pos0);
+        let mut values = vec![0.0; model.matrix.val().len()];
+        model.tangent(&pos0, None, &mut values);
+        let sym = model.matrix.symbolic();
+        let at = |r: usize, c: usize| -> f64 {
+            let (r, c) = (r.max(c), r.min(c));
+            let (lo, hi) = (sym.col_ptr()[c], sym.col_ptr()[c + 1]);
+            sym.row_idx()[lo..hi].iter().position(|&x| x == r).map_or(0.0, |p| values[lo + p])
+        };
+        let h = 1e-7;
+        let scale = values.iter().fold(0.0_f64, |a, v| a.max(v.abs()));
+        for k in 0..n {
+            let mut s = vec![0.0; n];
+            s[k] = h;
+            let (mut p, mut m) = (pos0.clone(), pos0.clone());
+            model.add_step(&pos0, &s, &mut p);
+            let minus: Vec<f64> = s.iter().map(|v| -v).collect();
+            model.add_step(&pos0, &minus, &mut m);
+            let fd = (e(&p) - e(&m)) / (2.0 * h);
+            assert!(
+                (fd - g0[k]).abs() < 1e-6 * g0.iter().fold(0.0_f64, |a, v| a.max(v.abs())),
+                "dof {k}: {fd} vs {}",
+                g0[k]
+            );
+            let (gp, gm) = (grad(&p), grad(&m));
+            for r in 0..n {
+                let col = (gp[r] - gm[r]) / (2.0 * h);
+                assert!((col - at(r, k)).abs() < 1e-5 * scale, "K[{r},{k}]: {col} vs {}", at(r, k));
+            }
+        }
+    }
+}
