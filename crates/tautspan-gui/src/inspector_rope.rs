@@ -23,7 +23,7 @@ pub fn ui(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, bufs: &mut FieldBuf
     let dto = &input.doc.dto;
     let r = &dto.ropes[i];
     let line = Line::Rope(i);
-    ui.label(RichText::new(format!("Rope {} ({})", r.id, r.path.join(" → "))).strong());
+    ui.label(RichText::new(format!("Rope {} ({})", r.id, r.path.join(" – "))).strong());
     item_problems(ui, input.derived, &format!("ropes[{i}]"));
     item_problems(ui, input.derived, &format!("ropes[{i}].path"));
     for k in 0..r.path.len() {
