@@ -66,6 +66,10 @@ pub struct LineMut<'a> {
     pub rating: &'a mut Option<RatingDto>,
     /// Design factor.
     pub design_factor: &'a mut Option<f64>,
+    /// Wire rope termination.
+    pub termination: &'a mut Option<tautspan_core::library::Termination>,
+    /// Termination efficiency instead of a termination.
+    pub termination_efficiency: &'a mut Option<f64>,
 }
 
 impl Line {
@@ -92,6 +96,8 @@ impl Line {
                         modulus: &mut m.modulus,
                         rating: &mut m.rating,
                         design_factor: &mut m.design_factor,
+                        termination: &mut m.termination,
+                        termination_efficiency: &mut m.termination_efficiency,
                     });
                 }
             }
@@ -106,6 +112,8 @@ impl Line {
                         modulus: &mut r.modulus,
                         rating: &mut r.rating,
                         design_factor: &mut r.design_factor,
+                        termination: &mut r.termination,
+                        termination_efficiency: &mut r.termination_efficiency,
                     });
                 }
             }

@@ -1,5 +1,6 @@
-//! The inspector for a rope over sheaves (id, kind, the size, library and
-//! rating fields it shares with a member through `inspector_member::Line`,
+//! The inspector for a rope over sheaves (id, kind, the size, library,
+//! rating and termination fields it shares with a member through
+//! `inspector_member::Line`, its fittings,
 //! its unstretched length and which way it runs, its path with each
 //! sheave; in the case shown the tension of every span), and a node's
 //! sheave (added or removed, tread diameter, bearing).
@@ -44,6 +45,9 @@ pub fn ui(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, bufs: &mut FieldBuf
         }
         size_fields(ui, input, line, &m, bufs, out);
         library_fields(ui, input, line, &m, bufs, out);
+        if matches!(r.kind, MemberKind::WireRope | MemberKind::Cable) || m.termination_efficiency.is_some() {
+            crate::inspector_hitch::termination(ui, input, line, &m, out);
+        }
         QtyField {
             label: "Length",
             path: format!("ropes[{i}].length"),
@@ -85,6 +89,8 @@ pub fn ui(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, bufs: &mut FieldBuf
         ui.end_row();
     });
     ui.label(RichText::new(current_motion_note(r)).small().weak());
+    item_problems(ui, input.derived, &format!("ropes[{i}].termination"));
+    crate::inspector_parts::fittings(ui, input, crate::inspector_parts::Host::Rope(i), bufs, out);
     path_list(ui, input, r, out);
     crate::inspector_member::result(ui, input, &r.id);
     spans(ui, input, &r.id);

@@ -289,3 +289,40 @@ fn renaming_a_node_follows_into_the_rope_and_saving_keeps_ropes_and_sheaves() {
     assert!(text.contains("Sheave(") && text.contains("Rope("), "ropes and sheaves written");
     let _ = std::fs::remove_dir_all(&dir);
 }
+
+#[test]
+fn the_rope_inspector_edits_its_termination_fittings_motion_and_id() {
+    use tautspan_core::library::{RopeMotion, Termination};
+    let mut h = harness(running_block_app());
+    h.state_mut().selection = Selection::Rope("fall".into());
+    h.run();
+    h.get_by_role_and_label(Role::ComboBox, "Termination").click();
+    h.run();
+    h.get_by_label(Termination::HandSplice.label()).click();
+    h.run();
+    assert_eq!(h.state().doc.dto.ropes[0].termination, Some(Termination::HandSplice));
+    h.get_by_role_and_label(Role::ComboBox, "Motion").click();
+    h.run();
+    h.get_by_label("lowering").click();
+    h.run();
+    assert_eq!(h.state().doc.dto.ropes[0].motion, Some(RopeMotion::Lowering));
+    h.get_by_role_and_label(Role::ComboBox, "Add a part").click();
+    h.run();
+    h.get_by_label("shackle").click();
+    h.run();
+    assert_eq!(h.state().doc.dto.ropes[0].fittings.len(), 1, "a shackle in series with the rope");
+    type_into(&mut h, "Part 1 WLL", "3.25 t");
+    type_into(&mut h, "Diameter", "14 mm");
+    assert_eq!(h.state().doc.dto.ropes[0].diameter.as_ref().map(|q| q.0.as_str()), Some("14 mm"));
+    type_into(&mut h, "Id", "tag");
+    h.key_press(egui::Key::Enter);
+    h.run();
+    assert_eq!(h.state().doc.dto.ropes[0].id, "fall", "a member's id is refused");
+    assert!(h.query_by_label_contains("is already the id of a member").is_some());
+    type_into(&mut h, "Id", "hoist-fall");
+    h.key_press(egui::Key::Enter);
+    h.run();
+    assert_eq!(h.state().doc.dto.ropes[0].id, "hoist-fall");
+    assert_eq!(h.state().selection, Selection::Rope("hoist-fall".into()));
+    assert!(h.state().derived.solved.is_some(), "still solves: {:?}", h.state().derived.problems);
+}
