@@ -98,6 +98,11 @@ pub fn default_member(id: String, a: &str, b: &str, kind: MemberKind, units: Uni
     }
 }
 
+/// The ids of members and ropes: one id space.
+fn line_ids(dto: &ScenarioDto) -> Vec<&str> {
+    dto.members.iter().map(|m| m.id.as_str()).chain(dto.ropes.iter().map(|r| r.id.as_str())).collect()
+}
+
 /// Add a member between two nodes; returns its id.
 pub fn add_member(dto: &mut ScenarioDto, a: &str, b: &str, kind: MemberKind, units: UnitSystem) -> String {
     let prefix = match kind {
@@ -107,7 +112,7 @@ pub fn add_member(dto: &mut ScenarioDto, a: &str, b: &str, kind: MemberKind, uni
         MemberKind::Rod => "R",
         MemberKind::Cable => "K",
     };
-    let id = fresh_id(prefix, dto.members.iter().map(|m| m.id.as_str()));
+    let id = fresh_id(prefix, line_ids(dto).iter().copied());
     dto.members.push(default_member(id.clone(), a, b, kind, units));
     id
 }
@@ -124,9 +129,7 @@ pub fn new_sheave() -> SheaveDto {
 /// without a sheave gets one ([`new_sheave`]). Returns its id. Rope ids are
 /// drawn from the members' and ropes' ids together (one id space).
 pub fn add_rope(dto: &mut ScenarioDto, path: &[String], units: UnitSystem) -> String {
-    let taken: Vec<&str> =
-        dto.members.iter().map(|m| m.id.as_str()).chain(dto.ropes.iter().map(|r| r.id.as_str())).collect();
-    let id = fresh_id("rope", taken.iter().copied());
+    let id = fresh_id("rope", line_ids(dto).iter().copied());
     let first = path.first().map_or("", String::as_str);
     let last = path.last().map_or("", String::as_str);
     let m = default_member(id.clone(), first, last, MemberKind::WireRope, units);
