@@ -182,6 +182,7 @@ impl TautspanApp {
             Command::SetTool(t) => {
                 self.tool = t;
                 self.canvas.member_start = None;
+                self.canvas.rope_path.clear();
                 if let Tool::Member(k) = t {
                     self.member_kind = k;
                 }
@@ -200,8 +201,15 @@ impl TautspanApp {
                 let sel = std::mem::take(&mut self.selection);
                 self.doc.edit(None, |d| edits::delete(d, &sel));
             }
+            Command::FinishRope => {
+                if let Some(place) = crate::canvas::finish_rope(&mut self.canvas, self.prefs.units) {
+                    self.apply_one(ctx, place);
+                }
+            }
             Command::Escape => {
-                if self.canvas.member_start.take().is_none() {
+                // a rope routed part way is dropped whole
+                let routing = !std::mem::take(&mut self.canvas.rope_path).is_empty();
+                if self.canvas.member_start.take().is_none() && !routing {
                     if self.tool != Tool::Select {
                         self.tool = Tool::Select;
                     } else {
@@ -285,6 +293,9 @@ impl TautspanApp {
             }
             if !typing && (i.key_pressed(Key::Delete) || i.key_pressed(Key::Backspace)) {
                 out.push(Command::DeleteSelection);
+            }
+            if !typing && i.key_pressed(Key::Enter) {
+                out.push(Command::FinishRope);
             }
             if !typing && i.key_pressed(Key::Escape) {
                 out.push(Command::Escape);

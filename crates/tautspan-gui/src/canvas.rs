@@ -24,6 +24,8 @@ pub struct CanvasState {
     geometry: Option<(u64, Arc<Geometry>)>,
     /// The first node picked with the member tool.
     pub member_start: Option<String>,
+    /// The nodes picked so far with the rope tool, in order.
+    pub rope_path: Vec<String>,
     /// The node being dragged.
     pub dragging: Option<String>,
     /// Panning with a drag on the background.
@@ -83,14 +85,19 @@ fn hit(geo: &Geometry, view: &View, p: Pos2) -> Selection {
             return Selection::Mass(m.id.clone());
         }
     }
-    let member = nearest(
-        geo.members.iter().filter_map(|m| {
-            let (a, b) = (geo.node(&m.ends.0)?, geo.node(&m.ends.1)?);
-            let (sa, sb) = (view.to_screen(a.pos_m[0], a.pos_m[1]), view.to_screen(b.pos_m[0], b.pos_m[1]));
-            Some((segment_distance(p, sa, sb), Selection::Member(m.id.clone())))
-        }),
-        6.0,
-    );
+    let span = |a: &str, b: &str| {
+        let (a, b) = (geo.node(a)?, geo.node(b)?);
+        let (sa, sb) = (view.to_screen(a.pos_m[0], a.pos_m[1]), view.to_screen(b.pos_m[0], b.pos_m[1]));
+        Some(segment_distance(p, sa, sb))
+    };
+    let members =
+        geo.members.iter().filter_map(|m| Some((span(&m.ends.0, &m.ends.1)?, Selection::Member(m.id.clone()))));
+    // a rope is picked by any of its spans
+    let ropes = geo.ropes.iter().filter_map(|r| {
+        let d = r.spans().filter_map(|(a, b)| span(a, b)).min_by(f32::total_cmp)?;
+        Some((d, Selection::Rope(r.id.clone())))
+    });
+    let member = nearest(members.chain(ropes), 6.0);
     if let Some(s) = member {
         return s;
     }
@@ -223,6 +230,22 @@ pub fn ui(ui: &mut Ui, state: &mut CanvasState, view: &mut View, input: &CanvasI
             }
             background_pan(state, view, &response);
         }
+        Tool::Rope => {
+            if response.clicked()
+                && let Some(p) = pointer
+                && let Selection::Node(id) = hit(geo, view, p)
+            {
+                // the last node clicked again (or the second click of a double click) finishes
+                if state.rope_path.last() == Some(&id) {
+                    out.extend(finish_rope(state, units));
+                } else {
+                    state.rope_path.push(id);
+                }
+            } else if response.double_clicked() {
+                out.extend(finish_rope(state, units));
+            }
+            background_pan(state, view, &response);
+        }
         Tool::Mass => {
             if response.clicked()
                 && let Some(p) = pointer
@@ -248,13 +271,28 @@ pub fn ui(ui: &mut Ui, state: &mut CanvasState, view: &mut View, input: &CanvasI
 
     let painter = ui.painter_at(rect);
     let deflection = deflected.as_ref().map(|_| Deflection { drawn: &drawn });
-    let member_start = state.member_start.as_deref();
-    canvas_draw::draw(&painter, view, geo, input, member_start, response.hover_pos(), deflection.as_ref());
+    let picking = canvas_draw::Picking {
+        member_start: state.member_start.as_deref(),
+        rope_path: &state.rope_path,
+        hover: response.hover_pos(),
+    };
+    canvas_draw::draw(&painter, view, geo, input, &picking, deflection.as_ref());
     if let Some((_, caption)) = &deflected {
         canvas_draw::deflection_caption(ui, view, caption);
     } else if view.deflected {
         canvas_draw::deflection_caption(ui, view, "Deflected shape: no results to show yet");
     }
+}
+
+/// The rope routed so far with the rope tool, placed as one edit (one undo
+/// step) and selected; `None`, with the route kept, while it has fewer than
+/// three nodes (a rope runs over at least one sheave).
+pub fn finish_rope(state: &mut CanvasState, units: UnitSystem) -> Option<Command> {
+    if state.rope_path.len() < 3 {
+        return None;
+    }
+    let path = std::mem::take(&mut state.rope_path);
+    Some(Command::place(move |d| Selection::Rope(edits::add_rope(d, &path, units))))
 }
 
 fn background_pan(state: &mut CanvasState, view: &mut View, response: &egui::Response) {

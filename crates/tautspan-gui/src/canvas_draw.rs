@@ -1,5 +1,6 @@
 //! Painting the elevation: paper, grid and scale bar, floor slabs, members
-//! shaded by utilisation (dashed when slack, heavy and hatched when over),
+//! and ropes over sheaves (a polyline through their path, sheaves as plain
+//! rings of their diameter) shaded by utilisation (dashed when slack, heavy and hatched when over),
 //! a small diamond on members that carry fittings, force labels, nodes with our own symbols, masses, the selected mass's
 //! load path, the legend, and in the deflected view the drawn shape faint
 //! beneath with the caption. Positions come from the document (what the
@@ -134,16 +135,41 @@ fn draw_floor(painter: &Painter, view: &View, f: &GeoFloor, picked: bool) {
     painter.rect_stroke(r, 0.0, edge, egui::StrokeKind::Inside);
 }
 
+/// What a placing tool has picked so far, drawn as a dashed line to the pointer.
+pub struct Picking<'a> {
+    /// The member tool's first node.
+    pub member_start: Option<&'a str>,
+    /// The rope tool's nodes so far.
+    pub rope_path: &'a [String],
+    /// The pointer over the canvas.
+    pub hover: Option<Pos2>,
+}
+
+/// Smallest radius a sheave is drawn with, points, so a small sheave far
+/// out still shows.
+const SHEAVE_MIN_RADIUS_PT: f32 = 7.0;
+
+/// A sheave: a plain ring of its tread diameter on screen (at least
+/// [`SHEAVE_MIN_RADIUS_PT`]) with a hub mark; red-edged while its diameter
+/// is not given.
+fn sheave_symbol(painter: &Painter, view: &View, p: Pos2, diameter_m: Option<f64>) {
+    let r = diameter_m.map_or(0.0, |d| (d / 2.0 * view.px_per_m) as f32).max(SHEAVE_MIN_RADIUS_PT);
+    let edge = if diameter_m.is_some() { INK } else { crate::qty_field::ERROR };
+    painter.circle_filled(p, r, Color32::from_rgba_unmultiplied(0xff, 0xff, 0xfb, 0xb0));
+    painter.circle_stroke(p, r, Stroke::new(2.0, edge));
+    painter.circle_stroke(p, (r * 0.35).min(4.0), Stroke::new(1.0, edge));
+}
+
 /// Paint everything.
 pub fn draw(
     painter: &Painter,
     view: &View,
     geo: &Geometry,
     input: &CanvasInput<'_>,
-    member_start: Option<&str>,
-    hover: Option<Pos2>,
+    picking: &Picking<'_>,
     deflection: Option<&Deflection<'_>>,
 ) {
+    let (member_start, hover) = (picking.member_start, picking.hover);
     let units = input.units;
     draw_grid(painter, view, units);
     if let Some(d) = deflection {
@@ -196,20 +222,7 @@ pub fn draw(
         if picked {
             painter.line_segment([sa, sb], Stroke::new(11.0, PICK));
         }
-        let (col, width, state) = match result {
-            Some(r) => (colour(r.utilisation), if r.state == State::Over { 6.0 } else { 3.5 }, Some(r.state)),
-            None => (UNSOLVED, 3.0, None),
-        };
-        if state == Some(State::Slack) {
-            painter.extend(Shape::dashed_line(&[sa, sb], Stroke::new(width + 1.5, CASING), 9.0, 6.0));
-            painter.extend(Shape::dashed_line(&[sa, sb], Stroke::new(width, col), 9.0, 6.0));
-        } else {
-            painter.line_segment([sa, sb], Stroke::new(width + 2.0, CASING));
-            painter.line_segment([sa, sb], Stroke::new(width, col));
-            if state == Some(State::Over) {
-                hatch_over(painter, sa, sb, CASING);
-            }
-        }
+        line(painter, sa, sb, result);
         if !m.parts.is_empty() {
             parts_mark(painter, parts_mark_at(sa, sb), m.parts.len());
         }
@@ -219,13 +232,52 @@ pub fn draw(
             labels.push(Candidate { member: k, ends: [sa, sb], utilisation: r.utilisation, picked });
         }
     }
+    // ropes: each span drawn as a member is, shaded by the rope's
+    // utilisation (on its largest span); the label on its longest span on screen
+    let on_screen = |a: &str, b: &str| {
+        let (a, b) = (geo.node(a)?, geo.node(b)?);
+        Some((view.to_screen(a.pos_m[0], a.pos_m[1]), view.to_screen(b.pos_m[0], b.pos_m[1])))
+    };
+    for (k, r) in geo.ropes.iter().enumerate() {
+        let spans: Vec<(Pos2, Pos2)> = r.spans().filter_map(|(a, b)| on_screen(a, b)).collect();
+        let result = results.get(r.id.as_str()).copied();
+        let picked = *input.selection == Selection::Rope(r.id.clone());
+        for &(sa, sb) in &spans {
+            if path.contains(&r.id.as_str()) {
+                painter.line_segment([sa, sb], Stroke::new(16.0, PATH_GLOW));
+            }
+            if picked {
+                painter.line_segment([sa, sb], Stroke::new(11.0, PICK));
+            }
+            line(painter, sa, sb, result);
+        }
+        let longest = spans.iter().max_by(|x, y| x.0.distance(x.1).total_cmp(&y.0.distance(y.1)));
+        if input.labels
+            && let (Some(res), Some(&(sa, sb))) = (result, longest)
+        {
+            let member = geo.members.len() + k;
+            labels.push(Candidate { member, ends: [sa, sb], utilisation: res.utilisation, picked });
+        }
+    }
+    for n in &geo.nodes {
+        if let Some(d) = n.sheave_m {
+            sheave_symbol(painter, view, view.to_screen(n.pos_m[0], n.pos_m[1]), d);
+        }
+    }
+
     if input.labels {
         let hidden = member_labels::draw(painter, view.rect, centre, labels, INK, |k| {
-            let m = &geo.members[k];
-            match results.get(m.id.as_str()) {
-                Some(r) if r.state == State::Slack => format!("{} slack", m.id),
-                Some(r) => format!("{} {}", m.id, units.fmt(r.force_n, Shown::Force)),
-                None => m.id.clone(),
+            // candidates past the members are the ropes, in order
+            let id = match geo.members.get(k) {
+                Some(m) => m.id.as_str(),
+                None => geo.ropes.get(k - geo.members.len()).map_or("", |r| r.id.as_str()),
+            };
+            match results.get(id) {
+                Some(r) if r.state == State::Slack => format!("{id} slack"),
+                // a rope's force is its largest span's tension
+                Some(r) if !r.segments.is_empty() => format!("{id} {} max", units.fmt(r.force_n, Shown::Force)),
+                Some(r) => format!("{id} {}", units.fmt(r.force_n, Shown::Force)),
+                None => id.to_string(),
             }
         });
         if hidden > 0 {
@@ -246,6 +298,17 @@ pub fn draw(
         let s = view.to_screen(start.pos_m[0], start.pos_m[1]);
         painter.extend(Shape::dashed_line(&[s, h], Stroke::new(2.0, PICK), 6.0, 4.0));
     }
+    // the rope routed so far, on to the pointer
+    let mut route: Vec<Pos2> = picking
+        .rope_path
+        .iter()
+        .filter_map(|id| geo.node(id))
+        .map(|n| view.to_screen(n.pos_m[0], n.pos_m[1]))
+        .collect();
+    if !route.is_empty() {
+        route.extend(hover);
+        painter.extend(Shape::dashed_line(&route, Stroke::new(2.0, PICK), 6.0, 4.0));
+    }
 
     for m in &geo.masses {
         let (Some(n), Some(r)) = (geo.node(&m.at), mass_rect(geo, view, m)) else { continue };
@@ -263,7 +326,10 @@ pub fn draw(
     let stroke = Stroke::new(1.5, INK);
     for n in &geo.nodes {
         let p = view.to_screen(n.pos_m[0], n.pos_m[1]);
-        if *input.selection == Selection::Node(n.id.clone()) || member_start == Some(n.id.as_str()) {
+        if *input.selection == Selection::Node(n.id.clone())
+            || member_start == Some(n.id.as_str())
+            || picking.rope_path.contains(&n.id)
+        {
             painter.circle_stroke(p, 11.0, Stroke::new(2.5, PICK));
         }
         match n.support {
@@ -285,6 +351,25 @@ pub fn draw(
     // in the deflected view the caption holds the top left; the legend goes below it
     let legend_top = if deflection.is_some() { CAPTION_HEIGHT + 16.0 } else { 12.0 };
     legend(painter, view, input.derived.solved.as_ref().map(|s| s.scenario.near_limit).unwrap_or(0.8), legend_top);
+}
+
+/// One member or rope span: shaded by utilisation, dashed when slack, heavy
+/// and hatched when over, grey before there are results.
+fn line(painter: &Painter, sa: Pos2, sb: Pos2, result: Option<&MemberResult>) {
+    let (col, width, state) = match result {
+        Some(r) => (colour(r.utilisation), if r.state == State::Over { 6.0 } else { 3.5 }, Some(r.state)),
+        None => (UNSOLVED, 3.0, None),
+    };
+    if state == Some(State::Slack) {
+        painter.extend(Shape::dashed_line(&[sa, sb], Stroke::new(width + 1.5, CASING), 9.0, 6.0));
+        painter.extend(Shape::dashed_line(&[sa, sb], Stroke::new(width, col), 9.0, 6.0));
+    } else {
+        painter.line_segment([sa, sb], Stroke::new(width + 2.0, CASING));
+        painter.line_segment([sa, sb], Stroke::new(width, col));
+        if state == Some(State::Over) {
+            hatch_over(painter, sa, sb, CASING);
+        }
+    }
 }
 
 /// Height the deflected view's caption takes at the top of the canvas, pt.
@@ -329,6 +414,11 @@ fn draw_ghost(painter: &Painter, view: &View, geo: &Geometry) {
         let (Some(a), Some(b)) = (geo.node(&m.ends.0), geo.node(&m.ends.1)) else { continue };
         let (sa, sb) = (view.to_screen(a.pos_m[0], a.pos_m[1]), view.to_screen(b.pos_m[0], b.pos_m[1]));
         painter.extend(Shape::dashed_line(&[sa, sb], stroke, 5.0, 4.0));
+    }
+    for r in &geo.ropes {
+        let pts: Vec<Pos2> =
+            r.path.iter().filter_map(|id| geo.node(id)).map(|n| view.to_screen(n.pos_m[0], n.pos_m[1])).collect();
+        painter.extend(Shape::dashed_line(&pts, stroke, 5.0, 4.0));
     }
     for n in &geo.nodes {
         painter.circle_stroke(view.to_screen(n.pos_m[0], n.pos_m[1]), 3.5, stroke);

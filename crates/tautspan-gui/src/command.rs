@@ -31,6 +31,8 @@ pub enum Command {
     DeleteSelection,
     /// Cancel the tool in progress, then the selection.
     Escape,
+    /// Place the rope routed so far with the rope tool.
+    FinishRope,
     /// Start a new scenario (asks first when there are unsaved changes).
     New,
     /// Open a file through the dialog (asks first when there are unsaved changes).

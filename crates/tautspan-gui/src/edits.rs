@@ -7,7 +7,8 @@ use crate::selection::Selection;
 use crate::units_display::{Shown, UnitSystem};
 use tautspan_core::file::SectionDto;
 use tautspan_core::file::{
-    CaseDto, FloorDto, MassDto, MemberDto, NodeDto, Position, Qty, RatingDto, ScenarioDto, SupportDto,
+    CaseDto, FloorDto, MassDto, MemberDto, NodeDto, Position, Qty, RatingDto, RopeDto, ScenarioDto, SheaveDto,
+    SupportDto,
 };
 use tautspan_core::library::{Edges, MemberKind};
 
@@ -97,6 +98,11 @@ pub fn default_member(id: String, a: &str, b: &str, kind: MemberKind, units: Uni
     }
 }
 
+/// The ids of members and ropes: one id space.
+fn line_ids(dto: &ScenarioDto) -> Vec<&str> {
+    dto.members.iter().map(|m| m.id.as_str()).chain(dto.ropes.iter().map(|r| r.id.as_str())).collect()
+}
+
 /// Add a member between two nodes; returns its id.
 pub fn add_member(dto: &mut ScenarioDto, a: &str, b: &str, kind: MemberKind, units: UnitSystem) -> String {
     let prefix = match kind {
@@ -106,8 +112,43 @@ pub fn add_member(dto: &mut ScenarioDto, a: &str, b: &str, kind: MemberKind, uni
         MemberKind::Rod => "R",
         MemberKind::Cable => "K",
     };
-    let id = fresh_id(prefix, dto.members.iter().map(|m| m.id.as_str()));
+    let id = fresh_id(prefix, line_ids(dto).iter().copied());
     dto.members.push(default_member(id.clone(), a, b, kind, units));
+    id
+}
+
+/// A sheave as the rope tool gives a node that has none: its diameter left
+/// empty for the user to give (the core names the field until then; there
+/// is no diameter a sheave could be assumed to have), frictionless.
+pub fn new_sheave() -> SheaveDto {
+    SheaveDto { diameter: Qty(String::new()), bearing: None }
+}
+
+/// Add a wire rope over `path` (first end, the nodes it runs over, last
+/// end), sized as a new wire rope member is; every node between the ends
+/// without a sheave gets one ([`new_sheave`]). Returns its id. Rope ids are
+/// drawn from the members' and ropes' ids together (one id space).
+pub fn add_rope(dto: &mut ScenarioDto, path: &[String], units: UnitSystem) -> String {
+    let id = fresh_id("rope", line_ids(dto).iter().copied());
+    let first = path.first().map_or("", String::as_str);
+    let last = path.last().map_or("", String::as_str);
+    let m = default_member(id.clone(), first, last, MemberKind::WireRope, units);
+    for via in path.iter().skip(1).take(path.len().saturating_sub(2)) {
+        if let Some(n) = dto.nodes.iter_mut().find(|n| &n.id == via)
+            && n.sheave.is_none()
+        {
+            n.sheave = Some(new_sheave());
+        }
+    }
+    dto.ropes.push(RopeDto {
+        id: id.clone(),
+        path: path.to_vec(),
+        kind: MemberKind::WireRope,
+        diameter: m.diameter,
+        construction: m.construction,
+        grade: m.grade,
+        ..RopeDto::default()
+    });
     id
 }
 
@@ -140,13 +181,15 @@ fn remove_masses(dto: &mut ScenarioDto, doomed: &[String]) {
 }
 
 /// Delete the selected item and whatever depends on it (a node takes its
-/// members and masses; a mass takes its dynamic cases; a slab frees its nodes).
+/// members, the ropes running through it and its masses; a mass takes its dynamic cases; a slab frees its nodes).
 pub fn delete(dto: &mut ScenarioDto, selection: &Selection) {
     match selection {
         Selection::None => {}
         Selection::Node(id) => {
             dto.nodes.retain(|n| &n.id != id);
             dto.members.retain(|m| &m.ends.0 != id && &m.ends.1 != id);
+            // a rope cannot run through a node that is gone
+            dto.ropes.retain(|r| !r.path.contains(id));
             let doomed: Vec<String> = dto.masses.iter().filter(|m| &m.at == id).map(|m| m.id.clone()).collect();
             remove_masses(dto, &doomed);
             for c in &mut dto.cases {
@@ -158,6 +201,7 @@ pub fn delete(dto: &mut ScenarioDto, selection: &Selection) {
             }
         }
         Selection::Member(id) => dto.members.retain(|m| &m.id != id),
+        Selection::Rope(id) => dto.ropes.retain(|r| &r.id != id),
         Selection::Mass(id) => remove_masses(dto, std::slice::from_ref(id)),
         Selection::Floor(id) => {
             dto.floors.retain(|f| &f.id != id);
@@ -191,6 +235,25 @@ mod tests {
         delete(&mut d, &Selection::Node(j));
         assert!(d.members.is_empty() && d.masses.is_empty());
         assert_eq!(d.cases.len(), 1);
+    }
+
+    #[test]
+    fn a_rope_gives_its_middle_nodes_sheaves_and_goes_with_any_of_its_nodes() {
+        let mut d = crate::document::blank_scenario();
+        let a = add_node(&mut d, 0.0, 3.0, SupportDto::Anchor, UnitSystem::Si);
+        let k = add_node(&mut d, 1.0, 1.0, SupportDto::Joint, UnitSystem::Si);
+        let b = add_node(&mut d, 2.0, 3.0, SupportDto::Anchor, UnitSystem::Si);
+        add_member(&mut d, &a, &b, MemberKind::WireRope, UnitSystem::Si);
+        let id = add_rope(&mut d, &[a.clone(), k.clone(), b.clone()], UnitSystem::Si);
+        assert_eq!(id, "rope1");
+        assert!(d.nodes[1].sheave.is_some() && d.nodes[0].sheave.is_none() && d.nodes[2].sheave.is_none());
+        // the new sheave's diameter is the user's to give: the core names the field
+        let problems = tautspan_core::model::build(&d).err().unwrap_or_default();
+        assert!(problems.iter().any(|p| p.path == "nodes[1].sheave.diameter"), "{problems:?}");
+        d.nodes[1].sheave = Some(SheaveDto { diameter: Qty::from("300 mm"), bearing: None });
+        assert!(tautspan_core::model::build(&d).is_ok());
+        delete(&mut d, &Selection::Node(k));
+        assert!(d.ropes.is_empty() && d.members.len() == 1);
     }
 
     #[test]

@@ -1,6 +1,6 @@
 //! The drawing's geometry read from the document: nodes at their drawn
-//! positions, members by their end ids (with their rated parts named),
-//! masses, and the slabs under floor
+//! positions (with their sheaves), members by their end ids (with their
+//! rated parts named), ropes by their paths, masses, and the slabs under floor
 //! nodes. Items that do not parse are left out (their fields say why). A
 //! drag moves one node a frame, so the geometry can follow such an edit in
 //! place instead of being read afresh.
@@ -20,6 +20,9 @@ pub struct GeoNode {
     pub pos_m: [f64; 2],
     /// How it is held.
     pub support: SupportDto,
+    /// Its sheave's tread diameter, m: `None` without a sheave, `Some(None)`
+    /// while the diameter does not parse (drawn at the smallest size).
+    pub sheave_m: Option<Option<f64>>,
 }
 
 /// A member as drawn.
@@ -31,6 +34,22 @@ pub struct GeoMember {
     pub ends: (String, String),
     /// The rated parts in series with it, as written (name or kind, WLL).
     pub parts: Vec<String>,
+}
+
+/// A rope over sheaves as drawn: a polyline through its path.
+#[derive(Debug, Clone)]
+pub struct GeoRope {
+    /// Id.
+    pub id: String,
+    /// The node ids it runs through, end to end.
+    pub path: Vec<String>,
+}
+
+impl GeoRope {
+    /// Its spans as pairs of node ids, in path order.
+    pub fn spans(&self) -> impl Iterator<Item = (&str, &str)> {
+        self.path.windows(2).map(|w| (w[0].as_str(), w[1].as_str()))
+    }
 }
 
 /// A mass as drawn.
@@ -76,6 +95,8 @@ pub struct Geometry {
     pub nodes: Vec<GeoNode>,
     /// Members.
     pub members: Vec<GeoMember>,
+    /// Ropes over sheaves.
+    pub ropes: Vec<GeoRope>,
     /// Masses.
     pub masses: Vec<GeoMass>,
     /// Slabs under floor nodes.
@@ -90,6 +111,14 @@ fn len(text: &str) -> Option<f64> {
 
 fn mass_kg(text: &str) -> Option<f64> {
     parse_quantity(text, Dimension::Mass, Sign::Positive).ok()
+}
+
+fn sheave_of(n: &tautspan_core::file::NodeDto) -> Option<Option<f64>> {
+    n.sheave.as_ref().map(|s| parse_quantity(&s.diameter.0, Dimension::Length, Sign::Positive).ok())
+}
+
+fn ropes_of(dto: &ScenarioDto) -> Vec<GeoRope> {
+    dto.ropes.iter().map(|r| GeoRope { id: r.id.clone(), path: r.path.clone() }).collect()
 }
 
 fn parts_of(fittings: &[tautspan_core::file::FittingDto]) -> Vec<String> {
@@ -125,6 +154,7 @@ impl Geometry {
                     id: n.id.clone(),
                     pos_m: [len(&n.at.x.0)?, len(&n.at.y.0)?],
                     support: n.support.clone(),
+                    sheave_m: sheave_of(n),
                 })
             })
             .collect();
@@ -137,6 +167,7 @@ impl Geometry {
                 .iter()
                 .map(|m| GeoMember { id: m.id.clone(), ends: m.ends.clone(), parts: parts_of(&m.fittings) })
                 .collect(),
+            ropes: ropes_of(dto),
             masses: dto
                 .masses
                 .iter()
@@ -156,6 +187,8 @@ impl Geometry {
             && self.nodes.iter().zip(&dto.nodes).all(|(g, n)| g.id == n.id && g.support == n.support)
             && self.members.len() == dto.members.len()
             && self.members.iter().zip(&dto.members).all(|(g, m)| g.id == m.id && g.ends == m.ends)
+            && self.ropes.len() == dto.ropes.len()
+            && self.ropes.iter().zip(&dto.ropes).all(|(g, r)| g.id == r.id && g.path == r.path)
             && self.masses.len() == dto.masses.len()
             && self.masses.iter().zip(&dto.masses).all(|(g, m)| g.id == m.id && g.at == m.at);
         let Some(positions) = same
@@ -164,8 +197,10 @@ impl Geometry {
         else {
             return false;
         };
-        for (g, p) in self.nodes.iter_mut().zip(positions) {
+        for ((g, p), n) in self.nodes.iter_mut().zip(positions).zip(&dto.nodes) {
             g.pos_m = p;
+            // a sheave added, removed or resized in place
+            g.sheave_m = sheave_of(n);
         }
         for (g, m) in self.masses.iter_mut().zip(&dto.masses) {
             g.kg = mass_kg(&m.mass.0);

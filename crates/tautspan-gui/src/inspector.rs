@@ -2,7 +2,8 @@
 //! validation problems of each field shown beside it. Nodes, masses and
 //! floor slabs are here (an anchor's rated load and a node's fittings through
 //! `inspector_parts`); members, with their library pickers, are in
-//! `inspector_member`. With nothing selected: the scenario's title, notes and
+//! `inspector_member`, ropes over sheaves and a node's sheave in
+//! `inspector_rope`. With nothing selected: the scenario's title, notes and
 //! the rule set for hitches (EN or ASME).
 
 use crate::command::Command;
@@ -37,7 +38,7 @@ pub fn ui(ui: &mut Ui, input: &InspectorInput<'_>, bufs: &mut FieldBuffers, out:
     let dto = &input.doc.dto;
     match input.selection {
         Selection::None => {
-            ui.label("Select an anchor, joint, member, mass or slab on the canvas, or a row of the results.");
+            ui.label("Select an anchor, joint, member, rope, mass or slab on the canvas, or a row of the results.");
             scenario_fields(ui, input, out);
         }
         Selection::Node(id) => match dto.nodes.iter().position(|n| &n.id == id) {
@@ -50,6 +51,12 @@ pub fn ui(ui: &mut Ui, input: &InspectorInput<'_>, bufs: &mut FieldBuffers, out:
             Some(i) => crate::inspector_member::ui(ui, input, i, bufs, out),
             None => {
                 ui.label("The selected member no longer exists.");
+            }
+        },
+        Selection::Rope(id) => match dto.ropes.iter().position(|r| &r.id == id) {
+            Some(i) => crate::inspector_rope::ui(ui, input, i, bufs, out),
+            None => {
+                ui.label("The selected rope no longer exists.");
             }
         },
         Selection::Mass(id) => match dto.masses.iter().position(|m| &m.id == id) {
@@ -201,6 +208,7 @@ fn node(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, bufs: &mut FieldBuffe
         ui.end_row();
         crate::inspector_parts::anchor_rating(ui, input, i, bufs, out);
     });
+    crate::inspector_rope::sheave(ui, input, i, bufs, out);
     crate::inspector_parts::fittings(ui, input, crate::inspector_parts::Host::Node(i), bufs, out);
     if let Some(r) = input.derived.case(input.case).and_then(|c| c.nodes.iter().find(|r| r.id == n.id)) {
         ui.separator();

@@ -7,6 +7,7 @@
 
 use crate::command::Command;
 use crate::inspector::{InspectorInput, item_problems};
+use crate::inspector_member::Line;
 use crate::qty_field::{FieldBuffers, QtyField};
 use crate::units_display::Shown;
 use egui::{RichText, Ui};
@@ -159,7 +160,7 @@ pub fn ui(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, bufs: &mut FieldBuf
             );
         }
         if rope || m.termination.is_some() || m.termination_efficiency.is_some() {
-            termination(ui, input, i, out);
+            termination(ui, input, Line::Member(i), m, out);
         }
         if rope || m.bent_over.is_some() {
             QtyField {
@@ -189,8 +190,9 @@ pub fn ui(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, bufs: &mut FieldBuf
     }
 }
 
-fn termination(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, out: &mut Vec<Command>) {
-    let m = &input.doc.dto.members[i];
+/// A wire rope's termination (from the library, or an efficiency of the
+/// user's own) in a grid row, for a member or a rope (`m` its fields as written).
+pub fn termination(ui: &mut Ui, input: &InspectorInput<'_>, line: Line, m: &MemberDto, out: &mut Vec<Command>) {
     let current = match (m.termination, m.termination_efficiency) {
         (Some(t), _) => TerminationChoice::Library(t),
         (None, Some(_)) => TerminationChoice::Own,
@@ -201,16 +203,15 @@ fn termination(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, out: &mut Vec<
     options.push((TerminationChoice::Own, "efficiency of my own"));
     if let Some(c) = choice(ui, "Termination", "termination", current, &options) {
         out.push(Command::edit(move |d| {
-            if let Some(m) = d.members.get_mut(i) {
-                match c {
-                    TerminationChoice::Unstated => (m.termination, m.termination_efficiency) = (None, None),
-                    TerminationChoice::Library(t) => (m.termination, m.termination_efficiency) = (Some(t), None),
+            line.edit(d, |m| {
+                let (t, e) = match c {
+                    TerminationChoice::Unstated => (None, None),
+                    TerminationChoice::Library(t) => (Some(t), None),
                     // starts at the value the core takes when none is stated, so the answer does not jump
-                    TerminationChoice::Own => {
-                        (m.termination, m.termination_efficiency) = (None, Some(UNSTATED_TERMINATION_EFFICIENCY))
-                    }
-                }
-            }
+                    TerminationChoice::Own => (None, Some(UNSTATED_TERMINATION_EFFICIENCY)),
+                };
+                (*m.termination, *m.termination_efficiency) = (t, e);
+            })
         }));
     }
     let Some(mut v) = m.termination_efficiency else { return };
@@ -219,16 +220,14 @@ fn termination(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, out: &mut Vec<
         // no range: a value outside 0.01–1 is the core's to refuse, shown below
         let r = ui.add(egui::DragValue::new(&mut v).speed(0.005).max_decimals(3)).labelled_by(l.id);
         if r.changed() {
-            out.push(Command::edit_merged(format!("members[{i}].termination_efficiency"), move |d| {
-                if let Some(m) = d.members.get_mut(i) {
-                    m.termination_efficiency = Some(v);
-                }
+            out.push(Command::edit_merged(line.path("termination_efficiency"), move |d| {
+                line.edit(d, |m| *m.termination_efficiency = Some(v))
             }));
         }
         if r.drag_stopped() || r.lost_focus() {
             out.push(Command::SealUndo);
         }
-        for p in input.derived.problems_at(&format!("members[{i}].termination_efficiency")) {
+        for p in input.derived.problems_at(&line.path("termination_efficiency")) {
             ui.label(RichText::new(&p.message).color(crate::qty_field::ERROR).small());
         }
     });

@@ -9,7 +9,7 @@ use crate::inspector::{InspectorInput, item_problems};
 use crate::qty_field::{FieldBuffers, QtyField};
 use crate::units_display::{Shown, fmt_utilisation};
 use egui::{RichText, Ui};
-use tautspan_core::file::{Qty, RatingDto, SectionDto};
+use tautspan_core::file::{MemberDto, Qty, RatingDto, ScenarioDto, SectionDto};
 use tautspan_core::library::{ChainGrade, Construction, Material, MemberKind, ROPE_GRADES};
 use tautspan_core::units::{Dimension, Sign};
 
@@ -37,29 +37,101 @@ fn picker(
     (chosen.as_deref() != current).then_some(chosen)
 }
 
+/// A member or a rope over sheaves: the two share the fields of a line's
+/// size, library values and rating (a rope's are checked as a member's), so
+/// one set of field code edits either.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum Line {
+    /// `members[i]`.
+    Member(usize),
+    /// `ropes[i]`.
+    Rope(usize),
+}
+
+/// The shared fields of a line, to set.
+pub struct LineMut<'a> {
+    /// Nominal diameter.
+    pub diameter: &'a mut Option<Qty>,
+    /// Load-carrying area.
+    pub area: &'a mut Option<Qty>,
+    /// Wire rope construction.
+    pub construction: &'a mut Option<String>,
+    /// Rope or chain grade.
+    pub grade: &'a mut Option<String>,
+    /// Library material.
+    pub material: &'a mut Option<String>,
+    /// Young's modulus.
+    pub modulus: &'a mut Option<Qty>,
+    /// Rated strength.
+    pub rating: &'a mut Option<RatingDto>,
+    /// Design factor.
+    pub design_factor: &'a mut Option<f64>,
+    /// Wire rope termination.
+    pub termination: &'a mut Option<tautspan_core::library::Termination>,
+    /// Termination efficiency instead of a termination.
+    pub termination_efficiency: &'a mut Option<f64>,
+}
+
+impl Line {
+    /// A field's path in the file (`members[2].area`, `ropes[0].area`): the
+    /// core locates a rope's problems under `ropes[i]` with the member's field names.
+    pub fn path(self, field: &str) -> String {
+        match self {
+            Line::Member(i) => format!("members[{i}].{field}"),
+            Line::Rope(i) => format!("ropes[{i}].{field}"),
+        }
+    }
+
+    /// Set its shared fields (nothing when it is gone).
+    pub fn edit(self, d: &mut ScenarioDto, f: impl FnOnce(LineMut<'_>)) {
+        match self {
+            Line::Member(i) => {
+                if let Some(m) = d.members.get_mut(i) {
+                    f(LineMut {
+                        diameter: &mut m.diameter,
+                        area: &mut m.area,
+                        construction: &mut m.construction,
+                        grade: &mut m.grade,
+                        material: &mut m.material,
+                        modulus: &mut m.modulus,
+                        rating: &mut m.rating,
+                        design_factor: &mut m.design_factor,
+                        termination: &mut m.termination,
+                        termination_efficiency: &mut m.termination_efficiency,
+                    });
+                }
+            }
+            Line::Rope(i) => {
+                if let Some(r) = d.ropes.get_mut(i) {
+                    f(LineMut {
+                        diameter: &mut r.diameter,
+                        area: &mut r.area,
+                        construction: &mut r.construction,
+                        grade: &mut r.grade,
+                        material: &mut r.material,
+                        modulus: &mut r.modulus,
+                        rating: &mut r.rating,
+                        design_factor: &mut r.design_factor,
+                        termination: &mut r.termination,
+                        termination_efficiency: &mut r.termination_efficiency,
+                    });
+                }
+            }
+        }
+    }
+}
+
 /// Draw the member inspector for `members[i]`.
 pub fn ui(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, bufs: &mut FieldBuffers, out: &mut Vec<Command>) {
     let m = &input.doc.dto.members[i];
-    let u = input.units;
+    let line = Line::Member(i);
     ui.label(RichText::new(format!("Member {} ({} – {})", m.id, m.ends.0, m.ends.1)).strong());
     item_problems(ui, input.derived, &format!("members[{i}]"));
     item_problems(ui, input.derived, &format!("members[{i}].ends"));
     let p = |s: &str| format!("members[{i}].{s}");
     egui::Grid::new("member-fields").num_columns(2).show(ui, |ui| {
         crate::id_field::show(ui, "Id", bufs, &input.doc.dto, crate::rename::IdKind::Member, &m.id, out);
-        let l = ui.label("Kind");
-        let mut kind = m.kind;
-        egui::ComboBox::from_id_salt("kind")
-            .selected_text(kind.label())
-            .show_ui(ui, |ui| {
-                for k in MemberKind::ALL {
-                    ui.selectable_value(&mut kind, k, k.label());
-                }
-            })
-            .response
-            .labelled_by(l.id);
-        ui.end_row();
-        if kind != m.kind {
+        if let Some(kind) = kind_picker(ui, m.kind, &MemberKind::ALL) {
             let units = input.units;
             // a new kind takes that kind's defaults, keeping id and ends
             out.push(Command::edit(move |d| {
@@ -69,108 +141,11 @@ pub fn ui(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, bufs: &mut FieldBuf
                 }
             }));
         }
-        QtyField {
-            label: "Diameter",
-            path: p("diameter"),
-            current: m.diameter.as_ref(),
-            dimension: Dimension::Length,
-            sign: Sign::Positive,
-            optional: true,
-            hint: u.unit(Shown::SmallLength),
-        }
-        .show(
-            ui,
-            bufs,
-            input.derived,
-            out,
-            Box::new(move |d, q| {
-                if let Some(m) = d.members.get_mut(i) {
-                    m.diameter = q
-                }
-            }),
-        );
-        QtyField {
-            label: "Area",
-            path: p("area"),
-            current: m.area.as_ref(),
-            dimension: Dimension::Area,
-            sign: Sign::Positive,
-            optional: true,
-            hint: "from the diameter",
-        }
-        .show(
-            ui,
-            bufs,
-            input.derived,
-            out,
-            Box::new(move |d, q| {
-                if let Some(m) = d.members.get_mut(i) {
-                    m.area = q
-                }
-            }),
-        );
+        size_fields(ui, input, line, m, bufs, out);
         if m.kind == MemberKind::Rod {
             section_fields(ui, input, i, bufs, out);
         }
-        if matches!(m.kind, MemberKind::WireRope | MemberKind::Cable) {
-            let names: Vec<&str> = Construction::ALL.iter().map(|c| c.name()).collect();
-            if let Some(c) = picker(ui, "Construction", "construction", m.construction.as_deref(), &names, "none") {
-                out.push(Command::edit(move |d| {
-                    if let Some(m) = d.members.get_mut(i) {
-                        m.construction = c
-                    }
-                }));
-            }
-            let grades: Vec<String> = ROPE_GRADES.iter().map(|g| format!("{g:.0}")).collect();
-            let grades: Vec<&str> = grades.iter().map(String::as_str).collect();
-            if let Some(g) = picker(ui, "Rope grade (N/mm²)", "rope-grade", m.grade.as_deref(), &grades, "none") {
-                out.push(Command::edit(move |d| {
-                    if let Some(m) = d.members.get_mut(i) {
-                        m.grade = g
-                    }
-                }));
-            }
-        }
-        if m.kind == MemberKind::Chain {
-            let grades = [ChainGrade::Grade80.name(), ChainGrade::Grade100.name()];
-            if let Some(g) = picker(ui, "Chain grade", "chain-grade", m.grade.as_deref(), &grades, "none") {
-                out.push(Command::edit(move |d| {
-                    if let Some(m) = d.members.get_mut(i) {
-                        m.grade = g
-                    }
-                }));
-            }
-        }
-        let names: Vec<&str> = Material::ALL.iter().map(|m| m.name()).collect();
-        if let Some(mat) = picker(ui, "Material", "material", m.material.as_deref(), &names, "none") {
-            out.push(Command::edit(move |d| {
-                if let Some(m) = d.members.get_mut(i) {
-                    m.material = mat
-                }
-            }));
-        }
-        QtyField {
-            label: "Modulus",
-            path: p("modulus"),
-            current: m.modulus.as_ref(),
-            dimension: Dimension::Pressure,
-            sign: Sign::Positive,
-            optional: true,
-            hint: "from the library",
-        }
-        .show(
-            ui,
-            bufs,
-            input.derived,
-            out,
-            Box::new(move |d, q| {
-                if let Some(m) = d.members.get_mut(i) {
-                    m.modulus = q
-                }
-            }),
-        );
-        rating(ui, input, i, bufs, out);
-        design_factor(ui, input, i, out);
+        library_fields(ui, input, line, m, bufs, out);
         QtyField {
             label: "Slack",
             path: p("slack"),
@@ -207,8 +182,108 @@ pub fn ui(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, bufs: &mut FieldBuf
     result(ui, input, &m.id);
 }
 
-fn rating(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, bufs: &mut FieldBuffers, out: &mut Vec<Command>) {
-    let m = &input.doc.dto.members[i];
+/// The kind picker in a grid row; the kind chosen when it changed.
+pub fn kind_picker(ui: &mut Ui, current: MemberKind, kinds: &[MemberKind]) -> Option<MemberKind> {
+    let l = ui.label("Kind");
+    let mut kind = current;
+    egui::ComboBox::from_id_salt("kind")
+        .selected_text(kind.label())
+        .show_ui(ui, |ui| {
+            for &k in kinds {
+                ui.selectable_value(&mut kind, k, k.label());
+            }
+        })
+        .response
+        .labelled_by(l.id);
+    ui.end_row();
+    (kind != current).then_some(kind)
+}
+
+/// Diameter and area of a member or rope (`m` its fields as written; a
+/// rope's through `RopeDto::as_member`).
+pub fn size_fields(
+    ui: &mut Ui,
+    input: &InspectorInput<'_>,
+    line: Line,
+    m: &MemberDto,
+    bufs: &mut FieldBuffers,
+    out: &mut Vec<Command>,
+) {
+    QtyField {
+        label: "Diameter",
+        path: line.path("diameter"),
+        current: m.diameter.as_ref(),
+        dimension: Dimension::Length,
+        sign: Sign::Positive,
+        optional: true,
+        hint: input.units.unit(Shown::SmallLength),
+    }
+    .show(ui, bufs, input.derived, out, Box::new(move |d, q| line.edit(d, |m| *m.diameter = q)));
+    QtyField {
+        label: "Area",
+        path: line.path("area"),
+        current: m.area.as_ref(),
+        dimension: Dimension::Area,
+        sign: Sign::Positive,
+        optional: true,
+        hint: "from the diameter",
+    }
+    .show(ui, bufs, input.derived, out, Box::new(move |d, q| line.edit(d, |m| *m.area = q)));
+}
+
+/// The library pickers (rope construction and grade, chain grade,
+/// material), modulus, rating and design factor of a member or rope.
+pub fn library_fields(
+    ui: &mut Ui,
+    input: &InspectorInput<'_>,
+    line: Line,
+    m: &MemberDto,
+    bufs: &mut FieldBuffers,
+    out: &mut Vec<Command>,
+) {
+    if matches!(m.kind, MemberKind::WireRope | MemberKind::Cable) {
+        let names: Vec<&str> = Construction::ALL.iter().map(|c| c.name()).collect();
+        if let Some(c) = picker(ui, "Construction", "construction", m.construction.as_deref(), &names, "none") {
+            out.push(Command::edit(move |d| line.edit(d, |m| *m.construction = c)));
+        }
+        let grades: Vec<String> = ROPE_GRADES.iter().map(|g| format!("{g:.0}")).collect();
+        let grades: Vec<&str> = grades.iter().map(String::as_str).collect();
+        if let Some(g) = picker(ui, "Rope grade (N/mm²)", "rope-grade", m.grade.as_deref(), &grades, "none") {
+            out.push(Command::edit(move |d| line.edit(d, |m| *m.grade = g)));
+        }
+    }
+    if m.kind == MemberKind::Chain {
+        let grades = [ChainGrade::Grade80.name(), ChainGrade::Grade100.name()];
+        if let Some(g) = picker(ui, "Chain grade", "chain-grade", m.grade.as_deref(), &grades, "none") {
+            out.push(Command::edit(move |d| line.edit(d, |m| *m.grade = g)));
+        }
+    }
+    let names: Vec<&str> = Material::ALL.iter().map(|m| m.name()).collect();
+    if let Some(mat) = picker(ui, "Material", "material", m.material.as_deref(), &names, "none") {
+        out.push(Command::edit(move |d| line.edit(d, |m| *m.material = mat)));
+    }
+    QtyField {
+        label: "Modulus",
+        path: line.path("modulus"),
+        current: m.modulus.as_ref(),
+        dimension: Dimension::Pressure,
+        sign: Sign::Positive,
+        optional: true,
+        hint: "from the library",
+    }
+    .show(ui, bufs, input.derived, out, Box::new(move |d, q| line.edit(d, |m| *m.modulus = q)));
+    rating(ui, input, line, m, bufs, out);
+    design_factor(ui, input, line, m, out);
+}
+
+fn rating(
+    ui: &mut Ui,
+    input: &InspectorInput<'_>,
+    line: Line,
+    m: &MemberDto,
+    bufs: &mut FieldBuffers,
+    out: &mut Vec<Command>,
+) {
     let l = ui.label("Rating");
     let kinds = ["from the library", "minimum breaking strength", "working load limit", "yield stress"];
     let current = match &m.rating {
@@ -237,11 +312,7 @@ fn rating(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, bufs: &mut FieldBuf
             3 => Some(RatingDto::Yield(Qty::from(if us { "36 ksi" } else { "235 MPa" }))),
             _ => None,
         };
-        out.push(Command::edit(move |d| {
-            if let Some(m) = d.members.get_mut(i) {
-                m.rating = r
-            }
-        }));
+        out.push(Command::edit(move |d| line.edit(d, |m| *m.rating = r)));
     }
     let (q, dim) = match &m.rating {
         Some(RatingDto::BreakingStrength(q) | RatingDto::WorkingLoadLimit(q)) => (q, Dimension::Force),
@@ -251,7 +322,7 @@ fn rating(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, bufs: &mut FieldBuf
     let label = if dim == Dimension::Force { "Rated force" } else { "Yield stress" };
     QtyField {
         label,
-        path: format!("members[{i}].rating"),
+        path: line.path("rating"),
         current: Some(q),
         dimension: dim,
         sign: Sign::Positive,
@@ -264,13 +335,15 @@ fn rating(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, bufs: &mut FieldBuf
         input.derived,
         out,
         Box::new(move |d, q| {
-            if let (Some(m), Some(q)) = (d.members.get_mut(i), q) {
-                m.rating = match m.rating.take() {
-                    Some(RatingDto::WorkingLoadLimit(_)) => Some(RatingDto::WorkingLoadLimit(q)),
-                    Some(RatingDto::Yield(_)) => Some(RatingDto::Yield(q)),
-                    _ => Some(RatingDto::BreakingStrength(q)),
-                };
-            }
+            line.edit(d, |m| {
+                if let Some(q) = q {
+                    *m.rating = match m.rating.take() {
+                        Some(RatingDto::WorkingLoadLimit(_)) => Some(RatingDto::WorkingLoadLimit(q)),
+                        Some(RatingDto::Yield(_)) => Some(RatingDto::Yield(q)),
+                        _ => Some(RatingDto::BreakingStrength(q)),
+                    };
+                }
+            })
         }),
     );
 }
@@ -345,8 +418,7 @@ fn section_fields(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, bufs: &mut 
     );
 }
 
-fn design_factor(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, out: &mut Vec<Command>) {
-    let m = &input.doc.dto.members[i];
+fn design_factor(ui: &mut Ui, input: &InspectorInput<'_>, line: Line, m: &MemberDto, out: &mut Vec<Command>) {
     // the default the core found (the sling standard's, raised for the duty) when solved; else the kind's
     let default = input
         .derived
@@ -360,21 +432,15 @@ fn design_factor(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, out: &mut Ve
             let mut own = m.design_factor.is_some();
             if ui.checkbox(&mut own, "set my own").labelled_by(l.id).changed() {
                 let v = if own { Some(default.value) } else { None };
-                out.push(Command::edit(move |d| {
-                    if let Some(m) = d.members.get_mut(i) {
-                        m.design_factor = v
-                    }
-                }));
+                out.push(Command::edit(move |d| line.edit(d, |m| *m.design_factor = v)));
             }
             if let Some(mut v) = m.design_factor {
                 let r = ui
                     .add(egui::DragValue::new(&mut v).range(1.0..=100.0).speed(0.05).max_decimals(2))
                     .labelled_by(l.id);
                 if r.changed() {
-                    out.push(Command::edit_merged(format!("members[{i}].design_factor"), move |d| {
-                        if let Some(m) = d.members.get_mut(i) {
-                            m.design_factor = Some(v);
-                        }
+                    out.push(Command::edit_merged(line.path("design_factor"), move |d| {
+                        line.edit(d, |m| *m.design_factor = Some(v))
                     }));
                 }
                 if r.drag_stopped() || r.lost_focus() {
@@ -392,7 +458,7 @@ fn design_factor(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, out: &mut Ve
     ui.end_row();
 }
 
-fn result(ui: &mut Ui, input: &InspectorInput<'_>, member_id: &str) {
+pub fn result(ui: &mut Ui, input: &InspectorInput<'_>, member_id: &str) {
     let Some(solved) = input.derived.solved.as_ref() else { return };
     let Some(case) = input.derived.case(input.case) else { return };
     let Some(r) = case.members.iter().find(|r| r.id == member_id) else { return };

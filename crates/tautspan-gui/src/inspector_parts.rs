@@ -21,6 +21,8 @@ pub enum Host {
     Member(usize),
     /// `nodes[i]`.
     Node(usize),
+    /// `ropes[i]`.
+    Rope(usize),
 }
 
 impl Host {
@@ -29,6 +31,7 @@ impl Host {
         match self {
             Host::Member(i) => format!("members[{i}].fittings"),
             Host::Node(i) => format!("nodes[{i}].fittings"),
+            Host::Rope(i) => format!("ropes[{i}].fittings"),
         }
     }
 
@@ -37,6 +40,7 @@ impl Host {
         match self {
             Host::Member(i) => d.members.get(i).map(|m| &m.fittings),
             Host::Node(i) => d.nodes.get(i).map(|n| &n.fittings),
+            Host::Rope(i) => d.ropes.get(i).map(|r| &r.fittings),
         }
     }
 
@@ -45,6 +49,7 @@ impl Host {
         match self {
             Host::Member(i) => d.members.get_mut(i).map(|m| &mut m.fittings),
             Host::Node(i) => d.nodes.get_mut(i).map(|n| &mut n.fittings),
+            Host::Rope(i) => d.ropes.get_mut(i).map(|r| &mut r.fittings),
         }
     }
 }

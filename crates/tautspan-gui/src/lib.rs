@@ -23,6 +23,7 @@ mod inspector;
 mod inspector_hitch;
 mod inspector_member;
 mod inspector_parts;
+mod inspector_rope;
 mod member_labels;
 mod parts_view;
 mod plots;

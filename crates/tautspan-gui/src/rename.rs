@@ -1,6 +1,6 @@
 //! Renaming an id. Ids are how the scenario refers to its items, so a
 //! rename carries every reference with it: member ends, a mass's node and
-//! a swing's pivot when a node is renamed, the cases' mass when a mass is,
+//! a swing's pivot and the rope paths through it when a node is renamed, the cases' mass when a mass is,
 //! the floor nodes' slab when a slab is. An empty id, or one another item
 //! already has, is refused with the clash named.
 
@@ -20,6 +20,8 @@ pub enum IdKind {
     Floor,
     /// A load case.
     Case,
+    /// A rope over sheaves.
+    Rope,
 }
 
 impl IdKind {
@@ -31,6 +33,7 @@ impl IdKind {
             IdKind::Mass => "mass",
             IdKind::Floor => "floor slab",
             IdKind::Case => "case",
+            IdKind::Rope => "rope",
         }
     }
 }
@@ -52,6 +55,8 @@ pub fn refusal(dto: &ScenarioDto, kind: IdKind, old: &str, new: &str) -> Option<
         Some(IdKind::Node)
     } else if dto.members.iter().any(|m| m.id == new) {
         Some(IdKind::Member)
+    } else if dto.ropes.iter().any(|r| r.id == new) {
+        Some(IdKind::Rope)
     } else if dto.masses.iter().any(|m| m.id == new) {
         Some(IdKind::Mass)
     } else if dto.floors.iter().any(|f| f.id == new) {
@@ -90,6 +95,7 @@ pub fn rename(dto: &mut ScenarioDto, kind: IdKind, old: &str, new: &str) -> Opti
                 swap(&mut m.ends.0);
                 swap(&mut m.ends.1);
             }
+            dto.ropes.iter_mut().for_each(|r| r.path.iter_mut().for_each(&swap));
             dto.masses.iter_mut().for_each(|m| swap(&mut m.at));
             for c in &mut dto.cases {
                 if let CaseDto::Swing { pivot: Some(p), .. } = c {
@@ -101,6 +107,10 @@ pub fn rename(dto: &mut ScenarioDto, kind: IdKind, old: &str, new: &str) -> Opti
         IdKind::Member => {
             dto.members.iter_mut().for_each(|m| swap(&mut m.id));
             Some(Selection::Member(new))
+        }
+        IdKind::Rope => {
+            dto.ropes.iter_mut().for_each(|r| swap(&mut r.id));
+            Some(Selection::Rope(new))
         }
         IdKind::Mass => {
             dto.masses.iter_mut().for_each(|m| swap(&mut m.id));
@@ -157,6 +167,18 @@ mod tests {
         assert_eq!(d.members[0].ends.0, "beam");
         assert!(matches!(&d.cases[1], CaseDto::Swing { pivot: Some(p), .. } if p == "beam"));
         assert!(tautspan_core::model::build(&d).is_ok(), "still validates");
+    }
+
+    #[test]
+    fn a_node_renamed_renames_it_in_rope_paths_and_rope_ids_clash_with_members() {
+        let mut d = rig();
+        let b = add_node(&mut d, 2.0, 3.0, SupportDto::Anchor, UnitSystem::Si);
+        crate::edits::add_rope(&mut d, &["A1".to_string(), "J1".to_string(), b], UnitSystem::Si);
+        rename(&mut d, IdKind::Node, "J1", "block");
+        assert_eq!(d.ropes[0].path[1], "block");
+        assert!(refusal(&d, IdKind::Member, "W1", "rope1").is_some_and(|r| r.contains("id of a rope")));
+        assert_eq!(rename(&mut d, IdKind::Rope, "rope1", "fall"), Some(Selection::Rope("fall".into())));
+        assert_eq!(d.ropes[0].id, "fall");
     }
 
     #[test]

@@ -160,7 +160,8 @@ pub fn ui(
             let resp = ui.horizontal(|ui| {
                 // a part selects what it belongs to: its member, else its node
                 let target = if case.members.iter().any(|m| m.id == r.owner) {
-                    Selection::Member(r.owner.clone())
+                    // ropes are among the members' results
+                    Selection::of_member_result(&solved.scenario, &r.owner)
                 } else {
                     Selection::Node(r.owner.clone())
                 };

@@ -17,6 +17,8 @@ pub enum Selection {
     Mass(String),
     /// A floor slab.
     Floor(String),
+    /// A rope running over sheaves.
+    Rope(String),
 }
 
 impl Selection {
@@ -28,6 +30,18 @@ impl Selection {
             Selection::Member(id) => dto.members.iter().any(|m| &m.id == id),
             Selection::Mass(id) => dto.masses.iter().any(|m| &m.id == id),
             Selection::Floor(id) => dto.floors.iter().any(|f| &f.id == id),
+            Selection::Rope(id) => dto.ropes.iter().any(|r| &r.id == id),
+        }
+    }
+
+    /// The selection of a member result's id: the analysis lists ropes
+    /// among the members (after the file's members), so an id the model
+    /// routes over sheaves is a rope.
+    pub fn of_member_result(scenario: &tautspan_core::model::Scenario, id: &str) -> Selection {
+        if scenario.members.iter().any(|m| m.id == id && m.run.is_some()) {
+            Selection::Rope(id.to_string())
+        } else {
+            Selection::Member(id.to_string())
         }
     }
 }
@@ -48,6 +62,8 @@ pub enum Tool {
     Mass,
     /// Place a node resting on a floor slab.
     FloorNode,
+    /// Route a rope: click its first end, the sheave nodes, its last end.
+    Rope,
 }
 
 impl Tool {
@@ -60,6 +76,7 @@ impl Tool {
             Tool::Member(_) => "Member",
             Tool::Mass => "Mass",
             Tool::FloorNode => "Floor node",
+            Tool::Rope => "Rope over sheaves",
         }
     }
 
@@ -72,6 +89,10 @@ impl Tool {
             Tool::Member(_) => "Click the first node, then the second, to join them with a member.",
             Tool::Mass => "Click a node to hang a mass from it.",
             Tool::FloorNode => "Click to place a node resting on a floor slab.",
+            Tool::Rope => {
+                "Click the rope's first end, then each node it runs over (each gets a sheave), then its last end; \
+                 Enter, a double click or the last node clicked again finishes, Esc cancels."
+            }
         }
     }
 }

@@ -85,9 +85,15 @@ pub fn ui(ui: &mut Ui, input: ToolbarInput<'_>, out: &mut Vec<Command>) {
     });
     // wraps in a narrow window, so the caution below keeps the full width
     ui.horizontal_wrapped(|ui| {
-        for t in
-            [Tool::Select, Tool::Anchor, Tool::Joint, Tool::Member(*input.member_kind), Tool::Mass, Tool::FloorNode]
-        {
+        for t in [
+            Tool::Select,
+            Tool::Anchor,
+            Tool::Joint,
+            Tool::Member(*input.member_kind),
+            Tool::Rope,
+            Tool::Mass,
+            Tool::FloorNode,
+        ] {
             let on = std::mem::discriminant(&input.tool) == std::mem::discriminant(&t);
             if ui.add(egui::Button::selectable(on, t.label())).on_hover_text(t.hint()).clicked() {
                 out.push(Command::SetTool(t));

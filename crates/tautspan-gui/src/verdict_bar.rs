@@ -110,7 +110,14 @@ pub fn ui(ui: &mut Ui, derived: &Derived, out: &mut Vec<Command>) {
                 State::Unchecked => "unchecked".to_string(),
                 _ => format!("{:.1} %", w.utilisation * 100.0),
             };
-            let kind = if w.floor { "floor" } else { "member" };
+            let rope = solved.scenario.members.iter().any(|m| m.id == w.id && m.run.is_some());
+            let kind = if w.floor {
+                "floor"
+            } else if rope {
+                "rope"
+            } else {
+                "member"
+            };
             let label = format!("worst: {kind} {} in case {}, {what}", w.id, w.case);
             let colour = match w.state {
                 State::Over => AGAINST,
@@ -122,7 +129,11 @@ pub fn ui(ui: &mut Ui, derived: &Derived, out: &mut Vec<Command>) {
                 .on_hover_text("Select it and show that case")
                 .clicked()
             {
-                let sel = if w.floor { Selection::Floor(w.id.clone()) } else { Selection::Member(w.id.clone()) };
+                let sel = if w.floor {
+                    Selection::Floor(w.id.clone())
+                } else {
+                    Selection::of_member_result(&solved.scenario, &w.id)
+                };
                 out.push(Command::Select(sel));
                 out.push(Command::ShowCase(w.case.clone()));
             }

@@ -16,6 +16,8 @@ fn subject_selection(doc: &Document, subject: &str) -> Selection {
     let d = &doc.dto;
     if d.members.iter().any(|m| m.id == subject) {
         Selection::Member(subject.to_string())
+    } else if d.ropes.iter().any(|r| r.id == subject) {
+        Selection::Rope(subject.to_string())
     } else if d.nodes.iter().any(|n| n.id == subject) {
         Selection::Node(subject.to_string())
     } else if d.floors.iter().any(|f| f.id == subject) {
@@ -33,6 +35,8 @@ fn path_selection(doc: &Document, path: &str) -> Selection {
     let d = &doc.dto;
     if let Some(m) = index("members[").and_then(|i| d.members.get(i)) {
         Selection::Member(m.id.clone())
+    } else if let Some(r) = index("ropes[").and_then(|i| d.ropes.get(i)) {
+        Selection::Rope(r.id.clone())
     } else if let Some(n) = index("nodes[").and_then(|i| d.nodes.get(i)) {
         Selection::Node(n.id.clone())
     } else if let Some(f) = index("floors[").and_then(|i| d.floors.get(i)) {
