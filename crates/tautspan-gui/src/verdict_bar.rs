@@ -7,69 +7,13 @@ use crate::command::Command;
 use crate::derived::Derived;
 use crate::selection::Selection;
 use egui::{Color32, RichText, Ui};
-use tautspan_core::analysis::{Analysis, State, Verdict};
+use tautspan_core::analysis::{Analysis, ItemKind, State, Verdict, worst};
 
 /// Green-free colours so the verdict does not lean on a red/green pair:
 /// a dark blue band for within, the app's error colour for the rest.
 const WITHIN: Color32 = Color32::from_rgb(0x4a, 0x8a, 0xc8);
 const AGAINST: Color32 = crate::qty_field::ERROR;
 const UNCHECKED: Color32 = Color32::from_rgb(0xe8, 0xb0, 0x3a);
-
-/// The item that decides the verdict.
-#[derive(Debug, Clone, PartialEq)]
-pub struct Worst {
-    /// Member or floor id.
-    pub id: String,
-    /// Whether it is a floor.
-    pub floor: bool,
-    /// Case id.
-    pub case: String,
-    /// Its state there.
-    pub state: State,
-    /// Its utilisation there.
-    pub utilisation: f64,
-}
-
-/// How much an item weighs in the verdict: over, then unchecked, then by utilisation.
-fn rank(state: State, u: f64) -> (u8, f64) {
-    let u = if u.is_finite() { u } else { 0.0 };
-    match state {
-        State::Over => (3, u),
-        State::Unchecked => (2, u),
-        _ => (1, u),
-    }
-}
-
-/// The worst member or floor over all cases.
-pub fn worst(a: &Analysis) -> Option<Worst> {
-    let mut best: Option<Worst> = None;
-    let mut consider = |w: Worst| {
-        if best.as_ref().is_none_or(|b| rank(w.state, w.utilisation) > rank(b.state, b.utilisation)) {
-            best = Some(w);
-        }
-    };
-    for c in &a.cases {
-        for m in &c.members {
-            consider(Worst {
-                id: m.id.clone(),
-                floor: false,
-                case: c.id.clone(),
-                state: m.state,
-                utilisation: m.utilisation,
-            });
-        }
-        for f in &c.floors {
-            consider(Worst {
-                id: f.id.clone(),
-                floor: true,
-                case: c.id.clone(),
-                state: f.state,
-                utilisation: f.utilisation,
-            });
-        }
-    }
-    best
-}
 
 /// The verdict in words for the bar.
 pub fn verdict_text(a: &Analysis) -> (&'static str, Color32) {
@@ -111,12 +55,11 @@ pub fn ui(ui: &mut Ui, derived: &Derived, out: &mut Vec<Command>) {
                 _ => format!("{:.1} %", w.utilisation * 100.0),
             };
             let rope = solved.scenario.members.iter().any(|m| m.id == w.id && m.run.is_some());
-            let kind = if w.floor {
-                "floor"
-            } else if rope {
-                "rope"
-            } else {
-                "member"
+            let kind = match w.kind {
+                ItemKind::Floor => "floor",
+                ItemKind::Part => "rated part",
+                ItemKind::Member if rope => "rope",
+                ItemKind::Member => "member",
             };
             let label = format!("worst: {kind} {} in case {}, {what}", w.id, w.case);
             let colour = match w.state {
@@ -126,13 +69,14 @@ pub fn ui(ui: &mut Ui, derived: &Derived, out: &mut Vec<Command>) {
             };
             if ui
                 .add(egui::Button::new(RichText::new(label).color(colour)).small())
-                .on_hover_text("Select it and show that case")
+                .on_hover_text("Select it (a rated part: the member or node it is on) and show that case")
                 .clicked()
             {
-                let sel = if w.floor {
-                    Selection::Floor(w.id.clone())
-                } else {
-                    Selection::of_member_result(&solved.scenario, &w.id)
+                let is_member = solved.scenario.members.iter().any(|m| m.id == w.host);
+                let sel = match w.kind {
+                    ItemKind::Floor => Selection::Floor(w.id.clone()),
+                    _ if is_member => Selection::of_member_result(&solved.scenario, &w.host),
+                    _ => Selection::Node(w.host.clone()),
                 };
                 out.push(Command::Select(sel));
                 out.push(Command::ShowCase(w.case.clone()));

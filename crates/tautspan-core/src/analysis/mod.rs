@@ -17,6 +17,7 @@ mod simulate_case;
 mod strut;
 mod swing_arc;
 mod warnings;
+mod worst;
 
 pub use allowable::{Allowable, NEEDS_RATED_POINT, floor_allowable, member_allowable, member_allowable_n};
 pub use analyse::{Prior, analyse, analyse_from, assumptions};
@@ -28,3 +29,4 @@ pub use scope::{Scope, scope};
 pub use simulate_case::{CaseSimulation, SimulateRequest, simulate_case};
 pub use strut::{Compression, compression, compression_explanation};
 pub use swing_arc::{GRID_STEP_DEG, PEAK_TOLERANCE, arc_loads};
+pub use worst::{ItemKind, Worst, worst};

@@ -291,6 +291,9 @@ pub fn check_text(file: &str, a: &Analysis) -> String {
 pub fn scope_text(a: &Analysis) -> String {
     let mut out = String::new();
     let _ = writeln!(out, "\nVerdict: {}", a.verdict().words());
+    if let Some(w) = crate::analysis::worst(a) {
+        let _ = writeln!(out, "  {}", w.line());
+    }
     let _ = writeln!(out, "Checked:");
     for c in &a.scope.checked {
         let _ = writeln!(out, "  - {c}");
