@@ -5,6 +5,7 @@
 use super::evaluate::{Allowables, Evaluated, evaluate};
 use super::formulas::{arrest_time_s, drop_factor, height_for_factor, swing_factor};
 use super::limits::{LimitSearch, predict_start, search_limits};
+use super::load_paths::load_path_results;
 use super::results::{Analysis, ArcSummary, CaseResult, ComparisonRow, DynamicLoad, Limits, Warning};
 use super::scope::scope;
 use super::swing_arc::{Arc, ReleaseLimits, SwingSetup, arc_loads, release_limits, sweep};
@@ -67,6 +68,7 @@ fn empty_case() -> CaseResult {
         nodes: Vec::new(),
         supports: Vec::new(),
         load_path: Vec::new(),
+        combined_load_path: None,
         limits: Limits::default(),
         warnings: Vec::new(),
         warning_items: Vec::new(),
@@ -107,6 +109,7 @@ fn solved_case(
     dynamic: Option<DynamicLoad>,
 ) -> Solved {
     let ev = evaluate(s, net, a, loads, &eq);
+    let (load_path, combined_load_path) = load_path_results(s, net, &eq, dynamic.as_ref());
     Solved {
         result: CaseResult {
             id: case.id().to_string(),
@@ -121,7 +124,8 @@ fn solved_case(
             floors: ev.floors,
             nodes: ev.nodes,
             supports: ev.supports,
-            load_path: ev.load_path,
+            load_path,
+            combined_load_path,
             limits: Limits::default(),
             warnings: Vec::new(),
             warning_items: Vec::new(),
@@ -743,6 +747,7 @@ fn run_swing(
         nodes: g.nodes.clone(),
         supports: g.supports.clone(),
         load_path: Vec::new(),
+        combined_load_path: None,
         limits: Limits::default(),
         warnings: Vec::new(),
         warning_items: Vec::new(),
@@ -800,7 +805,7 @@ fn run_swing(
         }
     }
     let low = arc.lowest();
-    r.load_path = ev.at(low).load_path.clone();
+    (r.load_path, r.combined_load_path) = load_path_results(s, net, &arc.samples[low].eq, r.dynamic.as_ref());
     if let Some(l) = &limits {
         r.limits.release_deg = l.critical_deg;
     }

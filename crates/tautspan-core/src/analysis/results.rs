@@ -198,15 +198,28 @@ pub struct SupportResult {
     pub rated: Option<FittingResult>,
 }
 
-/// The members and supports that carry one mass.
+/// The members and supports that carry one mass (or all masses together),
+/// each with its share: the fraction of the weight it carries (vertical
+/// component), traced through the solved forces (`solve::LoadFlow`).
 #[derive(Debug, Clone, PartialEq, Serialize)]
 pub struct LoadPathResult {
-    /// Mass id.
+    /// Mass id (for the combined path: `all masses`).
     pub mass: String,
-    /// Member ids on the path.
+    /// Member ids carrying at least the threshold share of the weight.
     pub members: Vec<String>,
-    /// Support node ids reached.
+    /// Their shares, same order as `members` (fractions of the weight).
+    pub shares: Vec<f64>,
+    /// How many members carry some of the weight, below the threshold.
+    pub below_threshold: usize,
+    /// Support node ids taking at least the threshold share.
     pub supports: Vec<String>,
+    /// Their shares, same order as `supports`.
+    pub support_shares: Vec<f64>,
+    /// How many supports take some of the weight, below the threshold.
+    pub supports_below_threshold: usize,
+    /// Fraction of the weight not followed to a support (flows far below
+    /// the threshold): a bound on how much any share may read low.
+    pub untraced: f64,
 }
 
 /// Largest release angle and drop height inside the allowable.
@@ -290,8 +303,10 @@ pub struct CaseResult {
     pub nodes: Vec<NodeResult>,
     /// Supports.
     pub supports: Vec<SupportResult>,
-    /// Load paths.
+    /// Load paths, one per mass (members and supports above the threshold share).
     pub load_path: Vec<LoadPathResult>,
+    /// The path of all masses together, each at its load in this case.
+    pub combined_load_path: Option<LoadPathResult>,
     /// Limits for the case's mass.
     pub limits: Limits,
     /// Warnings.
