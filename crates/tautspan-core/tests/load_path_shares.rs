@@ -140,3 +140,34 @@ fn threshold_lists_real_shares_and_counts_the_rest() {
         .sum();
     assert!((at_joint - 1.0).abs() < 1e-9, "{at_joint}");
 }
+
+/// A load on a spreader: hook line, two top legs, a level spreader bar, two
+/// drop legs. Statically determinate and symmetric, so each leg carries
+/// half the weight and the hook line all of it (statics); the level bar
+/// holds no weight up itself but lies on the path, listed with the half
+/// that passes through both its ends. Tolerance 1e-9 relative (solver
+/// closure; symmetry keeps the split exact).
+#[test]
+fn spreader_is_on_the_path_with_the_weight_through_its_ends() {
+    let rope = r#"kind: WireRope, area: "100 mm^2", modulus: "100 GPa", rating: BreakingStrength("100 kN")"#;
+    let text = format!(
+        r#"Scenario(format: 1, title: "spreader",
+        nodes: [Node(id: "A", at: ("0 m", "6 m"), support: Anchor), Node(id: "H", at: ("0 m", "5 m")),
+                Node(id: "S1", at: ("-1 m", "4 m")), Node(id: "S2", at: ("1 m", "4 m")), Node(id: "L", at: ("0 m", "2 m"))],
+        members: [
+            Member(id: "hook", ends: ("A", "H"), {rope}),
+            Member(id: "top1", ends: ("H", "S1"), {rope}), Member(id: "top2", ends: ("H", "S2"), {rope}),
+            Member(id: "bar", ends: ("S1", "S2"), kind: Rod, section: Tube(outer: "48.3 mm", wall: "3.2 mm"), material: "steel", rating: Yield("235 MPa")),
+            Member(id: "drop1", ends: ("S1", "L"), {rope}), Member(id: "drop2", ends: ("S2", "L"), {rope}),
+        ],
+        masses: [Mass(id: "load", at: "L", mass: "500 kg")],
+        cases: [Static(id: "s")])"#
+    );
+    let a = analyse(&load_scenario(&text).unwrap().scenario);
+    let p = &a.cases[0].load_path[0];
+    assert_eq!(p.members, ["hook", "top1", "top2", "bar", "drop1", "drop2"]);
+    for (share, expected) in p.shares.iter().zip([1.0, 0.5, 0.5, 0.5, 0.5, 0.5]) {
+        assert!(rel(*share, expected) < 1e-9, "{:?}", p.shares);
+    }
+    assert_eq!(p.supports, ["A"]);
+}

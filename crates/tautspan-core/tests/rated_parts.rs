@@ -22,8 +22,10 @@ fn analysed(text: &str) -> Analysis {
     analyse(&l.scenario)
 }
 
+/// Some case has a warning containing `needle` (each warning on its own:
+/// `warnings` holds one group per kind, whose text is the first one's).
 fn warned(a: &Analysis, needle: &str) -> bool {
-    a.cases.iter().any(|c| c.warnings.iter().any(|w| w.contains(needle)))
+    a.cases.iter().any(|c| c.warning_items.iter().any(|w| w.message.contains(needle)))
 }
 
 /// A symmetric two-leg bridle: anchors at (±`half` m, 5 m), the ring at

@@ -150,9 +150,10 @@ pub fn draw(
         Selection::Node(n) => geo.masses.iter().find(|m| &m.at == n).map(|m| m.id.clone()),
         _ => None,
     };
-    let path: Vec<&str> = path_mass
+    // members carrying at least the threshold share of its weight, with their shares
+    let path: HashMap<&str, f64> = path_mass
         .and_then(|m| case?.load_path.iter().find(|p| p.mass == m))
-        .map(|p| p.members.iter().map(String::as_str).collect())
+        .map(|p| p.members.iter().map(String::as_str).zip(p.shares.iter().copied()).collect())
         .unwrap_or_default();
 
     let results: HashMap<&str, &MemberResult> =
@@ -170,8 +171,9 @@ pub fn draw(
         let (sa, sb) = (view.to_screen(a.pos_m[0], a.pos_m[1]), view.to_screen(b.pos_m[0], b.pos_m[1]));
         let result = results.get(m.id.as_str()).copied();
         let picked = *input.selection == Selection::Member(m.id.clone());
-        if path.contains(&m.id.as_str()) {
-            painter.line_segment([sa, sb], Stroke::new(16.0, PATH_GLOW));
+        if let Some(share) = path.get(m.id.as_str()) {
+            // the glow widens with the member's share of the mass's weight
+            painter.line_segment([sa, sb], Stroke::new(8.0 + 8.0 * share.clamp(0.0, 1.0) as f32, PATH_GLOW));
         }
         if picked {
             painter.line_segment([sa, sb], Stroke::new(11.0, PICK));

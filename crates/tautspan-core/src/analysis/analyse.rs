@@ -8,6 +8,7 @@ use super::limits::{LimitSearch, predict_start, search_limits};
 use super::load_paths::load_path_results;
 use super::results::{Analysis, ArcSummary, CaseResult, ComparisonRow, DynamicLoad, Limits, Warning};
 use super::scope::scope;
+use super::warning_kind::WarningKind;
 use super::swing_arc::{Arc, ReleaseLimits, SwingSetup, arc_loads, release_limits, sweep};
 use super::warnings::case_warnings;
 use crate::CAUTION;
@@ -46,7 +47,7 @@ fn failed_case(case: &Case, message: String) -> CaseResult {
         kind: case.kind_name().to_string(),
         error: Some(message.clone()),
         warnings: vec![message.clone()],
-        warning_items: vec![Warning { subject: None, message }],
+        warning_items: vec![Warning { kind: WarningKind::CaseFailed, subject: None, message }],
         ..empty_case()
     }
 }
@@ -141,6 +142,7 @@ fn input_warnings(s: &Scenario) -> Vec<Warning> {
         let df = &m.design_factor;
         if df.from_file && df.value < df.default.value - 1e-12 {
             w.push(Warning {
+                kind: WarningKind::DesignFactorLow,
                 subject: Some(m.id.clone()),
                 message: format!(
                     "member {}: design factor {} is below the {} default of {} ({})",
@@ -152,14 +154,44 @@ fn input_warnings(s: &Scenario) -> Vec<Warning> {
                 ),
             });
         }
-        if m.linear_mass.value == 0.0 {
+        // said once in the assumptions where it holds for every member of the kind
+        if m.linear_mass.value == 0.0 && !weight_unknown_for_whole_kind(s, m.kind) {
             w.push(Warning {
+                kind: WarningKind::OwnWeightUnknown,
                 subject: Some(m.id.clone()),
-                message: format!("member {}: own weight not known and left out ({})", m.id, m.weight_note),
+                message: format!("member {}: own weight not known and left out (give `linear_mass`)", m.id),
             });
         }
     }
     w
+}
+
+/// True when no member of `kind` has a known own weight.
+fn weight_unknown_for_whole_kind(s: &Scenario, kind: MemberKind) -> bool {
+    s.members.iter().filter(|m| m.kind == kind).all(|m| m.linear_mass.value == 0.0)
+}
+
+/// The assumption for each member kind none of whose members has a known
+/// own weight (instead of a warning on every member).
+fn own_weight_assumptions(s: &Scenario) -> Vec<String> {
+    let mut kinds: Vec<MemberKind> = Vec::new();
+    for m in &s.members {
+        if !kinds.contains(&m.kind) && weight_unknown_for_whole_kind(s, m.kind) {
+            kinds.push(m.kind);
+        }
+    }
+    kinds
+        .into_iter()
+        .map(|k| {
+            let n = s.members.iter().filter(|m| m.kind == k).count();
+            format!(
+                "Own weight of the {} member{} ({}) not known and left out: no construction, material or `linear_mass` given; give `linear_mass` to include it.",
+                n,
+                if n == 1 { "" } else { "s" },
+                k.label()
+            )
+        })
+        .collect()
 }
 
 /// The assumptions printed beside every result.
@@ -189,6 +221,11 @@ pub fn assumptions(s: &Scenario) -> Vec<String> {
         )
     }))
     .collect::<Vec<String>>();
+    v.extend(own_weight_assumptions(s));
+    v.push(format!(
+        "Load path: each mass's weight is traced through the solved vertical member forces to the supports, split at every joint among the members holding it up in proportion to their vertical forces; a member's share is the fraction of the mass's weight it carries. Members and supports carrying at least {} % of a mass's weight are listed with their shares, the rest counted; the combined path traces all masses together.",
+        format_number(super::load_paths::LOAD_PATH_THRESHOLD * 100.0, 3)
+    ));
     let (multiplier, why) = s.duty.multiplier();
     v.push(if multiplier == 1.0 {
         "Duty: standard (nobody under the load, no persons lifted); give `duty: OverPeople` or `duty: LiftingPersons` for higher design factors.".to_string()
@@ -354,8 +391,8 @@ pub fn analyse_from(s: &Scenario, prior: Option<Prior<'_>>) -> Analysis {
     };
     for (r, items) in results.iter_mut().zip(items) {
         if let Some(items) = items {
-            r.warnings = items.iter().map(|w| w.message.clone()).collect();
             r.warning_items = items;
+            r.warnings = r.warning_groups().into_iter().map(|g| g.message).collect();
         }
     }
     let comparison = match static_at.map(|i| &results[i]).or(fallback_static.as_ref()) {
@@ -364,7 +401,11 @@ pub fn analyse_from(s: &Scenario, prior: Option<Prior<'_>>) -> Analysis {
     };
     warnings.extend(
         results.iter().filter_map(|r| {
-            r.error.as_ref().map(|e| Warning { subject: None, message: format!("case {}: {e}", r.id) })
+            r.error.as_ref().map(|e| Warning {
+                kind: WarningKind::CaseFailed,
+                subject: None,
+                message: format!("case {}: {e}", r.id),
+            })
         }),
     );
     Analysis {
@@ -491,6 +532,7 @@ fn dynamic_warnings(
                 let strain = mr.stretch_m / (mr.length_m - mr.stretch_m).max(1e-12);
                 if s.members[i].kind == MemberKind::FibreRope && strain > 0.01 {
                     w.push(Warning {
+                        kind: WarningKind::SoftLine,
                         subject: Some(mr.id.clone()),
                         message: format!(
                             "member {}: soft line (stretch {} % at the swing peak); as a spring pendulum the peak can exceed the rigid-line value: run `tautspan simulate` on this case",
@@ -511,6 +553,7 @@ fn dynamic_warnings(
                 let transit = r.members[i].length_m / c_wave;
                 if t_arrest < WAVE_TRANSITS_NEEDED * transit {
                     w.push(Warning {
+                        kind: WarningKind::WaveTransit,
                         subject: Some(mem.id.clone()),
                         message: format!(
                             "member {}: arrest in {} ms is under {} stress-wave transits ({} ms each at {} m/s); the spring picture no longer holds, expect higher local forces",
@@ -827,6 +870,7 @@ fn slack_over_arc(s: &Scenario, c: &Case, arc: &Arc) -> Vec<Warning> {
             let lo = slack.iter().copied().fold(f64::INFINITY, f64::min);
             let hi = slack.iter().copied().fold(f64::NEG_INFINITY, f64::max);
             out.push(Warning {
+                kind: WarningKind::SlackOverArc,
                 subject: Some(m.id.clone()),
                 message: format!(
                     "member {}: goes slack over part of the swing in case {} (at {} of {} angles solved, between {} and {} deg), where it was meant to carry; it snatches when it takes up again (set may_go_slack if that is intended)",

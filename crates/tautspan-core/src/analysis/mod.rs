@@ -17,6 +17,8 @@ mod scope;
 mod simulate_case;
 mod strut;
 mod swing_arc;
+mod warning_group;
+mod warning_kind;
 mod warnings;
 
 pub use allowable::{Allowable, NEEDS_RATED_POINT, floor_allowable, member_allowable, member_allowable_n};
@@ -29,4 +31,6 @@ pub use results::*;
 pub use scope::{Scope, scope};
 pub use simulate_case::{CaseSimulation, SimulateRequest, simulate_case};
 pub use strut::{Compression, compression, compression_explanation};
+pub use warning_group::{SUBJECTS_IN_TEXT, WarningGroup, first_few, group_warnings};
+pub use warning_kind::WarningKind;
 pub use swing_arc::{GRID_STEP_DEG, PEAK_TOLERANCE, arc_loads};

@@ -3,6 +3,8 @@
 //! limits and warnings. Plain `f64` in SI units, names carry the unit.
 
 use super::scope::Scope;
+use super::warning_group::{WarningGroup, group_warnings};
+use super::warning_kind::WarningKind;
 use serde::Serialize;
 
 /// A member's or floor's state in a case.
@@ -236,6 +238,8 @@ pub struct Limits {
 /// A specific warning: who, what limit, by how much.
 #[derive(Debug, Clone, PartialEq, Serialize)]
 pub struct Warning {
+    /// What kind of warning: warnings of one kind in one case are grouped.
+    pub kind: WarningKind,
     /// Member, floor, node or case it concerns, if any.
     #[serde(skip_serializing_if = "Option::is_none")]
     pub subject: Option<String>,
@@ -309,14 +313,19 @@ pub struct CaseResult {
     pub combined_load_path: Option<LoadPathResult>,
     /// Limits for the case's mass.
     pub limits: Limits,
-    /// Warnings.
+    /// Warnings, one per kind (grouped: `warning_groups`).
     pub warnings: Vec<String>,
-    /// Warnings with their subjects (same text as `warnings`).
+    /// Every warning with its kind and subject, ungrouped.
     #[serde(skip)]
     pub warning_items: Vec<Warning>,
 }
 
 impl CaseResult {
+    /// The case's warnings, one group per kind (their texts are `warnings`).
+    pub fn warning_groups(&self) -> Vec<WarningGroup> {
+        group_warnings(&self.warning_items, Some(&self.id))
+    }
+
     /// Every rated part of the case with the id of what it belongs to
     /// (`leg-1/shackle`): member fittings in member order, then node
     /// fittings, then anchor ratings. The comparison table and
@@ -413,6 +422,11 @@ impl Verdict {
 }
 
 impl Analysis {
+    /// The scenario-wide warnings, one group per kind.
+    pub fn warning_groups(&self) -> Vec<WarningGroup> {
+        group_warnings(&self.warnings, None)
+    }
+
     /// True when every member and floor is within allowable in every case
     /// and nothing meant to carry went slack; false otherwise (exit code 1).
     pub fn all_within(&self) -> bool {

@@ -15,7 +15,10 @@
 //! arriving weight in proportion to its normal force).
 //!
 //! A member's **share** of a load is the fraction of that load's weight it
-//! carries, vertical component, between 0 and 1. Where the path is
+//! carries, vertical component, between 0 and 1. A level member carrying
+//! force (a spreader, a tie between two legs) holds no weight up itself but
+//! is part of the path: it is listed with the share of the weight that
+//! passes through both its ends (the smaller of the two). Where the path is
 //! statically determinate this is the only possible split; for members in
 //! parallel between the same two nodes it is their force ratio, which for
 //! members of equal stretch is the stiffness ratio `k1 / (k1 + k2)`: the
@@ -67,6 +70,9 @@ pub struct LoadPath {
 pub struct LoadFlow {
     /// Per node: (member, node it flows to, vertical force N) leaving it.
     out: Vec<Vec<(usize, usize, f64)>>,
+    /// Per node: level members carrying force, (member, other end), listed
+    /// from a free end.
+    level: Vec<Vec<(usize, usize)>>,
     /// Per node: total vertical force holding it up (members and floor), N.
     held_n: Vec<f64>,
     /// Per node: the floor's normal force there, N.
@@ -88,6 +94,9 @@ pub struct TraceScratch {
     queued: Vec<bool>,
     touched_members: Vec<usize>,
     touched_supports: Vec<usize>,
+    /// Weight passing through each node (fraction), and the nodes touched.
+    through: Vec<f64>,
+    touched_nodes: Vec<usize>,
     heap: BinaryHeap<Reverse<(usize, usize)>>,
 }
 
@@ -96,6 +105,7 @@ impl LoadFlow {
     pub fn new(net: &Network, eq: &Equilibrium) -> LoadFlow {
         let n = net.nodes.len();
         let mut out: Vec<Vec<(usize, usize, f64)>> = vec![Vec::new(); n];
+        let mut level: Vec<Vec<(usize, usize)>> = vec![Vec::new(); n];
         let largest = eq.member_force_n.iter().fold(0.0_f64, |a, f| a.max(f.abs()));
         // vertical forces below this are rounding, not a path
         let tiny = 1e-12 * largest;
@@ -111,6 +121,13 @@ impl LoadFlow {
                 out[a].push((i, b, on_a));
             } else if -on_a > tiny {
                 out[b].push((i, a, -on_a));
+            } else if t.abs() > tiny {
+                let free = |j: usize| matches!(net.nodes[j].fixity, Fixity::Free);
+                if free(a) {
+                    level[a].push((i, b));
+                } else if free(b) {
+                    level[b].push((i, a));
+                }
             }
         }
         let floor_n: Vec<f64> = (0..n)
@@ -122,7 +139,7 @@ impl LoadFlow {
         let held_n = (0..n).map(|j| floor_n[j] + out[j].iter().map(|x| x.2).sum::<f64>()).collect();
         let anchor = net.nodes.iter().map(|x| matches!(x.fixity, Fixity::Fixed)).collect();
         let rank = topological_rank(&out, eq);
-        LoadFlow { out, held_n, floor_n, anchor, rank, n_members: net.members.len() }
+        LoadFlow { out, level, held_n, floor_n, anchor, rank, n_members: net.members.len() }
     }
 
     /// Trace the loads `sources` (node, weight N) together to the supports;
@@ -137,6 +154,7 @@ impl LoadFlow {
                 support_flow: vec![0.0; n],
                 pending: vec![0.0; n],
                 queued: vec![false; n],
+                through: vec![0.0; n],
                 ..TraceScratch::default()
             };
         }
@@ -169,6 +187,10 @@ impl LoadFlow {
             if a <= 0.0 {
                 continue;
             }
+            if sc.through[j] == 0.0 {
+                sc.touched_nodes.push(j);
+            }
+            sc.through[j] += a;
             let held = self.held_n[j];
             if self.anchor[j] {
                 if sc.support_flow[j] == 0.0 {
@@ -200,6 +222,22 @@ impl LoadFlow {
                 }
             }
         }
+        // level members between two nodes the weight passes through
+        for &j in &sc.touched_nodes {
+            for &(i, other) in &self.level[j] {
+                let f = sc.through[j].min(sc.through[other]);
+                if f > 0.0 {
+                    if sc.member_flow[i] == 0.0 {
+                        sc.touched_members.push(i);
+                    }
+                    sc.member_flow[i] = f;
+                }
+            }
+        }
+        for &j in &sc.touched_nodes {
+            sc.through[j] = 0.0;
+        }
+        sc.touched_nodes.clear();
         let (members, members_below_threshold) =
             collect(&mut sc.touched_members, &mut sc.member_flow, threshold);
         let (supports, supports_below_threshold) =
