@@ -14,8 +14,9 @@ use std::io::{self, Write};
 use std::time::Instant;
 
 use criterion::{Criterion, criterion_group, criterion_main};
-use tautspan_core::analysis::analyse;
-use tautspan_core::model::{load_scenario, to_network};
+use tautspan_core::analysis::{MAX_LISTED, analyse};
+use tautspan_core::file::parse_scenario_text;
+use tautspan_core::model::{build, load_scenario, to_network};
 use tautspan_core::output::{check_text, write_check_json, write_csv_rows};
 use tautspan_core::solve::{LoadFlow, SolveOptions, StaticSolver, TraceScratch};
 
@@ -57,9 +58,12 @@ fn check_json(text: &str) -> usize {
 fn profile(n: usize, text: &str) {
     let ms = |t: Instant| t.elapsed().as_secs_f64() * 1e3;
     let t = Instant::now();
-    let l = load_scenario(text).unwrap_or_else(|e| panic!("{e:?}"));
+    let (dto, _) = parse_scenario_text(text).unwrap_or_else(|e| panic!("{e:?}"));
     let parse_ms = ms(t);
-    let s = &l.scenario;
+    let t = Instant::now();
+    let scenario = build(&dto).unwrap_or_else(|e| panic!("{e:?}"));
+    let validate_ms = ms(t);
+    let s = &scenario;
     let t = Instant::now();
     let (net, loads) = to_network(s);
     let mut solver = StaticSolver::new(&net).unwrap_or_else(|e| panic!("{e}"));
@@ -70,7 +74,7 @@ fn profile(n: usize, text: &str) {
     let mut scratch = TraceScratch::default();
     let mut listed = 0;
     for m in &s.masses {
-        listed += flow.trace(&[(m.node, 1.0)], 0.01, &mut scratch).members.len();
+        listed += flow.trace(&[(m.node, 1.0)], 0.01, MAX_LISTED, &mut scratch).members.len();
     }
     let paths_ms = ms(t);
     let t = Instant::now();
@@ -88,7 +92,7 @@ fn profile(n: usize, text: &str) {
     let text_len = check_text("net.ron", &a).len();
     let text_ms = ms(t);
     println!(
-        "{n} x {n}: {} members, {} masses; parse + validate {parse_ms:.0} ms; network + static solve {solve_ms:.0} ms ({} Newton steps); \
+        "{n} x {n}: {} members, {} masses; parse {parse_ms:.0} ms, validate {validate_ms:.0} ms; network + static solve {solve_ms:.0} ms ({} Newton steps); \
          load paths of every mass {paths_ms:.0} ms ({listed} members listed, {:.1} a mass); whole analysis {analyse_ms:.0} ms; \
          JSON {json_ms:.0} ms, {:.1} MB; CSV {csv_ms:.0} ms, {:.1} MB; text {text_ms:.0} ms, {:.1} MB; {} warning lines; peak RSS so far {:.0} MB",
         s.members.len(),

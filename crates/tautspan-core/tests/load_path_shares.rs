@@ -5,7 +5,7 @@
 
 #![allow(clippy::expect_used, clippy::unwrap_used, reason = "test helpers fail loudly on broken fixtures")]
 
-use tautspan_core::analysis::{ALL_MASSES, LOAD_PATH_THRESHOLD, analyse};
+use tautspan_core::analysis::{ALL_MASSES, LOAD_PATH_THRESHOLD, MAX_LISTED, analyse};
 use tautspan_core::model::{load_scenario, to_network};
 use tautspan_core::solve::{LoadFlow, SolveOptions, StaticSolver, TraceScratch, load_paths};
 
@@ -112,7 +112,7 @@ fn traces_conserve_weight_and_add_up_to_the_solved_forces() {
     // the combined trace of all masses is the same flow
     let flow = LoadFlow::new(&net, &eq);
     let sources: Vec<(usize, f64)> = s.masses.iter().zip(&loads.mass_weight_n).map(|(m, w)| (m.node, *w)).collect();
-    let all = flow.trace(&sources, 0.0, &mut TraceScratch::default());
+    let all = flow.trace(&sources, 0.0, usize::MAX, &mut TraceScratch::default());
     for &(i, share) in &all.members {
         assert!((share * total - vertical[i]).abs() < 1e-9 * total);
     }
@@ -128,6 +128,15 @@ fn threshold_lists_real_shares_and_counts_the_rest() {
     assert_eq!(c.load_path.len(), 19 * 19);
     let middle = c.load_path.iter().find(|p| p.mass == "m10_10").unwrap();
     assert!(middle.shares.iter().all(|s| *s >= LOAD_PATH_THRESHOLD));
+    // only the largest shares are listed; the rest above the threshold counted
+    assert!(middle.members.len() <= MAX_LISTED);
+    if middle.not_listed > 0 {
+        assert_eq!(middle.members.len(), MAX_LISTED);
+    }
+    // the combined path lists every member carrying any weight, shares of the total
+    let all = c.combined_load_path.as_ref().unwrap();
+    assert_eq!(all.below_threshold, 0);
+    assert!(all.members.len() > MAX_LISTED);
     assert!(middle.below_threshold > 0, "a net spreads a mass over many members");
     assert!(middle.untraced < 0.01 * LOAD_PATH_THRESHOLD);
     // the four members at the joint carry all of its weight between them

@@ -138,6 +138,7 @@ fn solved_case(
 /// Scenario-wide warnings: design factors below the kind's default.
 fn input_warnings(s: &Scenario) -> Vec<Warning> {
     let mut w = Vec::new();
+    let whole_kinds = kinds_without_weight(s);
     for m in &s.members {
         let df = &m.design_factor;
         if df.from_file && df.value < df.default.value - 1e-12 {
@@ -155,7 +156,7 @@ fn input_warnings(s: &Scenario) -> Vec<Warning> {
             });
         }
         // said once in the assumptions where it holds for every member of the kind
-        if m.linear_mass.value == 0.0 && !weight_unknown_for_whole_kind(s, m.kind) {
+        if m.linear_mass.value == 0.0 && !whole_kinds.contains(&m.kind) {
             w.push(Warning {
                 kind: WarningKind::OwnWeightUnknown,
                 subject: Some(m.id.clone()),
@@ -166,21 +167,25 @@ fn input_warnings(s: &Scenario) -> Vec<Warning> {
     w
 }
 
-/// True when no member of `kind` has a known own weight.
-fn weight_unknown_for_whole_kind(s: &Scenario, kind: MemberKind) -> bool {
-    s.members.iter().filter(|m| m.kind == kind).all(|m| m.linear_mass.value == 0.0)
+/// The member kinds none of whose members has a known own weight, in the
+/// order they first occur (one pass over the members).
+fn kinds_without_weight(s: &Scenario) -> Vec<MemberKind> {
+    // (kind, every member of it without own weight so far)
+    let mut kinds: Vec<(MemberKind, bool)> = Vec::new();
+    for m in &s.members {
+        let unknown = m.linear_mass.value == 0.0;
+        match kinds.iter_mut().find(|k| k.0 == m.kind) {
+            Some(k) => k.1 &= unknown,
+            None => kinds.push((m.kind, unknown)),
+        }
+    }
+    kinds.into_iter().filter(|k| k.1).map(|k| k.0).collect()
 }
 
 /// The assumption for each member kind none of whose members has a known
 /// own weight (instead of a warning on every member).
 fn own_weight_assumptions(s: &Scenario) -> Vec<String> {
-    let mut kinds: Vec<MemberKind> = Vec::new();
-    for m in &s.members {
-        if !kinds.contains(&m.kind) && weight_unknown_for_whole_kind(s, m.kind) {
-            kinds.push(m.kind);
-        }
-    }
-    kinds
+    kinds_without_weight(s)
         .into_iter()
         .map(|k| {
             let n = s.members.iter().filter(|m| m.kind == k).count();

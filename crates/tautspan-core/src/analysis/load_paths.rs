@@ -1,6 +1,8 @@
 //! The load paths of a case: per mass, the members and supports that carry
-//! at least [`LOAD_PATH_THRESHOLD`] of its weight with their shares, and the
-//! path of all masses together (`solve::LoadFlow` says how shares are found).
+//! at least [`LOAD_PATH_THRESHOLD`] of its weight with their shares (at most
+//! [`MAX_LISTED`] members, the largest), and the path of all masses
+//! together, every member that carries any of their weight listed
+//! (`solve::LoadFlow` says how shares are found).
 //! The work and the output grow with the members that carry a real share of
 //! each mass, not with members × masses.
 
@@ -13,6 +15,12 @@ use crate::solve::{Equilibrium, LoadFlow, LoadPath, Network, TraceScratch};
 /// Members and supports are listed on a mass's path when they carry at
 /// least this fraction of its weight (1 %); the rest are counted.
 pub const LOAD_PATH_THRESHOLD: f64 = 0.01;
+
+/// At most this many members are listed on one mass's path, the largest
+/// shares (a mass in a wide net spreads over hundreds of members above the
+/// threshold; the output stays linear in the masses): `not_listed` counts
+/// the rest above the threshold.
+pub const MAX_LISTED: usize = 50;
 
 /// Id of the combined path.
 pub const ALL_MASSES: &str = "all masses";
@@ -33,20 +41,21 @@ pub fn load_path_results(
     let g = s.gravity_m_s2();
     // masses at the same node share one trace
     let mut by_node: HashMap<usize, usize> = HashMap::new();
-    let mut traced: Vec<LoadPathResult> = Vec::new();
-    let mut paths = Vec::with_capacity(s.masses.len());
+    let mut paths: Vec<LoadPathResult> = Vec::with_capacity(s.masses.len());
     for m in &s.masses {
-        let k = *by_node.entry(m.node).or_insert_with(|| {
-            let r = if s.nodes[m.node].support == Support::Anchor {
-                // a mass hung directly at an anchor is its own path
-                own_support(s, m.node)
-            } else {
-                to_result(s, flow.trace(&[(m.node, 1.0)], LOAD_PATH_THRESHOLD, &mut scratch), "")
-            };
-            traced.push(r);
-            traced.len() - 1
-        });
-        let mut r = traced[k].clone();
+        let mut r = match by_node.get(&m.node) {
+            // a second mass at the same joint: the same path
+            Some(&k) => paths[k].clone(),
+            None => {
+                by_node.insert(m.node, paths.len());
+                if s.nodes[m.node].support == Support::Anchor {
+                    // a mass hung directly at an anchor is its own path
+                    own_support(s, m.node)
+                } else {
+                    to_result(s, flow.trace(&[(m.node, 1.0)], LOAD_PATH_THRESHOLD, MAX_LISTED, &mut scratch), "")
+                }
+            }
+        };
         r.mass = m.id.clone();
         paths.push(r);
     }
@@ -58,7 +67,8 @@ pub fn load_path_results(
             (m.node, m.mass.value * g * factor)
         })
         .collect();
-    let combined = to_result(s, flow.trace(&sources, LOAD_PATH_THRESHOLD, &mut scratch), ALL_MASSES);
+    // every member carrying any of the weight: linear in the members
+    let combined = to_result(s, flow.trace(&sources, 0.0, usize::MAX, &mut scratch), ALL_MASSES);
     (paths, Some(combined))
 }
 
@@ -68,6 +78,7 @@ fn own_support(s: &Scenario, node: usize) -> LoadPathResult {
         members: Vec::new(),
         shares: Vec::new(),
         below_threshold: 0,
+        not_listed: 0,
         supports: vec![s.nodes[node].id.clone()],
         support_shares: vec![1.0],
         supports_below_threshold: 0,
@@ -81,6 +92,7 @@ fn to_result(s: &Scenario, p: LoadPath, mass: &str) -> LoadPathResult {
         members: p.members.iter().map(|&(k, _)| s.members[k].id.clone()).collect(),
         shares: p.members.iter().map(|&(_, f)| f).collect(),
         below_threshold: p.members_below_threshold,
+        not_listed: p.members_not_listed,
         supports: p.supports.iter().map(|&(k, _)| s.nodes[k].id.clone()).collect(),
         support_shares: p.supports.iter().map(|&(_, f)| f).collect(),
         supports_below_threshold: p.supports_below_threshold,

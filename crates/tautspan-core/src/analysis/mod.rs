@@ -26,7 +26,7 @@ pub use analyse::{Prior, analyse, analyse_from, assumptions};
 pub use curves::{ReleaseCurve, release_curve, single_line_swing};
 pub use evaluate::Allowables;
 pub use fittings::node_load_n;
-pub use load_paths::{ALL_MASSES, LOAD_PATH_THRESHOLD};
+pub use load_paths::{ALL_MASSES, LOAD_PATH_THRESHOLD, MAX_LISTED};
 pub use results::*;
 pub use scope::{Scope, scope};
 pub use simulate_case::{CaseSimulation, SimulateRequest, simulate_case};

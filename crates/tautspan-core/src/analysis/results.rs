@@ -207,12 +207,17 @@ pub struct SupportResult {
 pub struct LoadPathResult {
     /// Mass id (for the combined path: `all masses`).
     pub mass: String,
-    /// Member ids carrying at least the threshold share of the weight.
+    /// Member ids carrying at least the threshold share of the weight (the
+    /// largest shares, at most `analysis::MAX_LISTED` a mass; the combined
+    /// path lists every member carrying any of the weight).
     pub members: Vec<String>,
     /// Their shares, same order as `members` (fractions of the weight).
     pub shares: Vec<f64>,
     /// How many members carry some of the weight, below the threshold.
     pub below_threshold: usize,
+    /// How many members at or above the threshold are not listed (only the
+    /// largest shares are: `analysis::MAX_LISTED` a mass).
+    pub not_listed: usize,
     /// Support node ids taking at least the threshold share.
     pub supports: Vec<String>,
     /// Their shares, same order as `supports`.

@@ -228,11 +228,13 @@ fn load_paths(c: &CaseResult) -> String {
         ids.iter().zip(shares).map(|(id, f)| format!("{} {}", escape(id), percent(*f))).collect::<Vec<_>>().join(", ")
     };
     let one = |p: &LoadPathResult| {
-        let below = if p.below_threshold > 0 {
-            format!(" ({} more members below {} each)", p.below_threshold, percent(LOAD_PATH_THRESHOLD))
-        } else {
-            String::new()
-        };
+        let mut below = String::new();
+        if p.not_listed > 0 {
+            below.push_str(&format!(" ({} more at or above {})", p.not_listed, percent(LOAD_PATH_THRESHOLD)));
+        }
+        if p.below_threshold > 0 {
+            below.push_str(&format!(" ({} more members below {} each)", p.below_threshold, percent(LOAD_PATH_THRESHOLD)));
+        }
         format!(
             "<p>Load path of {}: members {}{below} to supports {}.</p>",
             if p.mass == ALL_MASSES { "all masses together".to_string() } else { format!("mass <b>{}</b>", escape(&p.mass)) },

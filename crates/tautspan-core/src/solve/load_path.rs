@@ -54,6 +54,9 @@ pub struct LoadPath {
     pub members: Vec<(usize, f64)>,
     /// Members that carry some of the load, below the threshold.
     pub members_below_threshold: usize,
+    /// Members at or above the threshold left out of `members` because
+    /// only the largest `max_listed` are listed.
+    pub members_not_listed: usize,
     /// Supports (anchors, floor nodes) taking at least the threshold share,
     /// ascending indices, with their shares.
     pub supports: Vec<(usize, f64)>,
@@ -145,7 +148,14 @@ impl LoadFlow {
     /// Trace the loads `sources` (node, weight N) together to the supports;
     /// shares are fractions of their total weight. Members and supports with
     /// a share of at least `threshold` are listed.
-    pub fn trace(&self, sources: &[(usize, f64)], threshold: f64, scratch: &mut TraceScratch) -> LoadPath {
+    /// At most `max_listed` members are listed (the largest shares).
+    pub fn trace(
+        &self,
+        sources: &[(usize, f64)],
+        threshold: f64,
+        max_listed: usize,
+        scratch: &mut TraceScratch,
+    ) -> LoadPath {
         let n = self.out.len();
         let sc = scratch;
         if sc.pending.len() != n || sc.member_flow.len() != self.n_members {
@@ -165,6 +175,7 @@ impl LoadFlow {
                 node,
                 members: Vec::new(),
                 members_below_threshold: 0,
+                members_not_listed: 0,
                 supports: Vec::new(),
                 supports_below_threshold: 0,
                 untraced: 0.0,
@@ -238,11 +249,25 @@ impl LoadFlow {
             sc.through[j] = 0.0;
         }
         sc.touched_nodes.clear();
-        let (members, members_below_threshold) =
+        let (mut members, members_below_threshold) =
             collect(&mut sc.touched_members, &mut sc.member_flow, threshold);
+        let members_not_listed = members.len().saturating_sub(max_listed);
+        if members_not_listed > 0 {
+            members.sort_unstable_by(|a, b| b.1.total_cmp(&a.1).then(a.0.cmp(&b.0)));
+            members.truncate(max_listed);
+            members.sort_unstable_by_key(|m| m.0);
+        }
         let (supports, supports_below_threshold) =
             collect(&mut sc.touched_supports, &mut sc.support_flow, threshold);
-        LoadPath { node, members, members_below_threshold, supports, supports_below_threshold, untraced }
+        LoadPath {
+            node,
+            members,
+            members_below_threshold,
+            members_not_listed,
+            supports,
+            supports_below_threshold,
+            untraced,
+        }
     }
 }
 
@@ -320,6 +345,6 @@ pub fn load_paths_from(net: &Network, eq: &Equilibrium, starts: &[usize], thresh
     starts
         .iter()
         .filter(|&&j| j < net.nodes.len() && !matches!(net.nodes[j].fixity, Fixity::Fixed))
-        .map(|&j| flow.trace(&[(j, 1.0)], threshold, &mut scratch))
+        .map(|&j| flow.trace(&[(j, 1.0)], threshold, usize::MAX, &mut scratch))
         .collect()
 }
