@@ -321,7 +321,11 @@ fn each_state_and_warning_is_raised() {
 
     // design factor below the kind's default
     let a = analysed(&single_line(&format!("{STEEL_LINE}, design_factor: 3.0"), "100 kg", r#"Static(id: "s")"#));
-    assert!(has_warning(&a, WarningKind::DesignFactorLow, "design factor 3 is below the wire rope default of 5 (ASME B30.9"));
+    assert!(has_warning(
+        &a,
+        WarningKind::DesignFactorLow,
+        "design factor 3 is below the wire rope default of 5 (ASME B30.9"
+    ));
 
     // own-weight sag beyond 1/8: a heavy cable pulled nearly straight by a light
     // pretension, its far end hung from a plumb rope

@@ -22,7 +22,8 @@ fn repeated_warnings_are_one_group_per_kind_and_case() {
     let text = grid_net(9, "2 kg").replace("BreakingStrength(\"200 kN\")", "BreakingStrength(\"20 kN\")");
     let a = analyse(&load_scenario(&text).unwrap().scenario);
     let c = &a.cases[0];
-    let over: Vec<&str> = c.warning_items.iter().filter(|w| w.kind == WarningKind::MemberOver).map(|w| w.message.as_str()).collect();
+    let over: Vec<&str> =
+        c.warning_items.iter().filter(|w| w.kind == WarningKind::MemberOver).map(|w| w.message.as_str()).collect();
     assert!(over.len() > SUBJECTS_IN_TEXT, "{}", over.len());
     let groups = c.warning_groups();
     let g = groups.iter().find(|g| g.kind == WarningKind::MemberOver).unwrap();
@@ -66,7 +67,11 @@ fn a_single_warning_keeps_its_own_text() {
     assert_eq!(g[0].subjects, ["line"]);
     assert_eq!(g[0].message, a.cases[0].warning_items[0].message);
     // 10 kN x 0.80 (termination not stated) / 5 (wire rope) = 1.6 kN
-    assert!(g[0].message.starts_with("member line: ") && g[0].message.contains("is over its allowable 1.6 kN by"), "{}", g[0].message);
+    assert!(
+        g[0].message.starts_with("member line: ") && g[0].message.contains("is over its allowable 1.6 kN by"),
+        "{}",
+        g[0].message
+    );
 }
 
 /// Own weight not known for every member of a kind: one line in the

@@ -5,7 +5,8 @@
 
 use std::time::Instant;
 use tautspan_core::analysis::{
-    Analysis, CaseSimulation, Prior, SimulateRequest, WarningGroup, analyse_from, member_allowable, release_curve, simulate_case,
+    Analysis, CaseSimulation, Prior, SimulateRequest, WarningGroup, analyse_from, member_allowable, release_curve,
+    simulate_case,
 };
 use tautspan_core::file::ScenarioDto;
 use tautspan_core::model::{Problem, Scenario, build};

@@ -243,8 +243,7 @@ fn mass(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, bufs: &mut FieldBuffe
     if let Some(p) = input.derived.case(input.case).and_then(|c| c.load_path.iter().find(|p| p.mass == m.id)) {
         ui.separator();
         let listed = |ids: &[String], shares: &[f64]| {
-            let named: Vec<String> =
-                ids.iter().zip(shares).map(|(id, f)| format!("{id} {:.0} %", f * 100.0)).collect();
+            let named: Vec<String> = ids.iter().zip(shares).map(|(id, f)| format!("{id} {:.0} %", f * 100.0)).collect();
             tautspan_core::analysis::first_few(&named, PATH_NAMED)
         };
         ui.label(format!(

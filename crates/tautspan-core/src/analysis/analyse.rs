@@ -8,8 +8,8 @@ use super::limits::{LimitSearch, predict_start, search_limits};
 use super::load_paths::load_path_results;
 use super::results::{Analysis, ArcSummary, CaseResult, ComparisonRow, DynamicLoad, Limits, Warning};
 use super::scope::scope;
-use super::warning_kind::WarningKind;
 use super::swing_arc::{Arc, ReleaseLimits, SwingSetup, arc_loads, release_limits, sweep};
+use super::warning_kind::WarningKind;
 use super::warnings::case_warnings;
 use crate::CAUTION;
 use crate::library::MemberKind;
@@ -404,15 +404,13 @@ pub fn analyse_from(s: &Scenario, prior: Option<Prior<'_>>) -> Analysis {
         Some(st) => comparison(s, &allow, &results, st, &searches, &mass_limits, &swing_limits),
         None => Vec::new(),
     };
-    warnings.extend(
-        results.iter().filter_map(|r| {
-            r.error.as_ref().map(|e| Warning {
-                kind: WarningKind::CaseFailed,
-                subject: None,
-                message: format!("case {}: {e}", r.id),
-            })
-        }),
-    );
+    warnings.extend(results.iter().filter_map(|r| {
+        r.error.as_ref().map(|e| Warning {
+            kind: WarningKind::CaseFailed,
+            subject: None,
+            message: format!("case {}: {e}", r.id),
+        })
+    }));
     Analysis {
         title: s.title.clone(),
         caution: CAUTION.to_string(),

@@ -31,6 +31,6 @@ pub use results::*;
 pub use scope::{Scope, scope};
 pub use simulate_case::{CaseSimulation, SimulateRequest, simulate_case};
 pub use strut::{Compression, compression, compression_explanation};
+pub use swing_arc::{GRID_STEP_DEG, PEAK_TOLERANCE, arc_loads};
 pub use warning_group::{SUBJECTS_IN_TEXT, WarningGroup, first_few, group_warnings};
 pub use warning_kind::WarningKind;
-pub use swing_arc::{GRID_STEP_DEG, PEAK_TOLERANCE, arc_loads};

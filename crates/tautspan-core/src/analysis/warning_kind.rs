@@ -100,12 +100,18 @@ impl WarningKind {
         match self {
             WarningKind::MemberOver => "members over their allowable",
             WarningKind::MemberNear => "members near their allowable",
-            WarningKind::MemberSlack => "members slack where they were meant to carry (set may_go_slack if that is intended)",
+            WarningKind::MemberSlack => {
+                "members slack where they were meant to carry (set may_go_slack if that is intended)"
+            }
             WarningKind::MemberUnchecked => "members UNCHECKED",
             WarningKind::LevelLeg => "sling legs running level (a leg this flat takes no share of the weight)",
-            WarningKind::LowSlingAngle => "sling legs below 30 deg from horizontal (ASME B30.9 allows it only with a qualified person's approval)",
+            WarningKind::LowSlingAngle => {
+                "sling legs below 30 deg from horizontal (ASME B30.9 allows it only with a qualified person's approval)"
+            }
             WarningKind::SteelStrain => "steel members strained beyond the linear spring model's range",
-            WarningKind::SagRatio => "members whose own-weight sag/span exceeds 1/8 (the parabolic sag view does not hold)",
+            WarningKind::SagRatio => {
+                "members whose own-weight sag/span exceeds 1/8 (the parabolic sag view does not hold)"
+            }
             WarningKind::DynamicRatio => "members far above their static force",
             WarningKind::FootOver => "floor feet over their rating",
             WarningKind::FootLifts => "floor feet lifting off",
@@ -116,10 +122,16 @@ impl WarningKind {
             WarningKind::PartOver => "rated parts over their WLL",
             WarningKind::PartNear => "rated parts near their WLL",
             WarningKind::PartUnchecked => "rated parts UNCHECKED",
-            WarningKind::HoistSidePull => "hoists pulled off plumb with no side-pull limit entered (give the maker's `max_off_plumb`)",
+            WarningKind::HoistSidePull => {
+                "hoists pulled off plumb with no side-pull limit entered (give the maker's `max_off_plumb`)"
+            }
             WarningKind::MultiLeg => "gathering points of 3- or 4-leg slings",
-            WarningKind::SoftLine => "soft lines stretched over 1 % at the swing peak (run `tautspan simulate` on this case)",
-            WarningKind::WaveTransit => "members arrested in under 10 stress-wave transits (the spring picture no longer holds)",
+            WarningKind::SoftLine => {
+                "soft lines stretched over 1 % at the swing peak (run `tautspan simulate` on this case)"
+            }
+            WarningKind::WaveTransit => {
+                "members arrested in under 10 stress-wave transits (the spring picture no longer holds)"
+            }
             WarningKind::SlackOverArc => "members going slack over part of the swing, where they were meant to carry",
             WarningKind::DesignFactorLow => "members with a design factor below their kind's default",
             WarningKind::OwnWeightUnknown => "members whose own weight is not known and left out (give `linear_mass`)",

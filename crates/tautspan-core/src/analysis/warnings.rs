@@ -52,8 +52,9 @@ pub const SAG_RATIO_LIMIT: f64 = 0.125;
 pub fn case_warnings(s: &Scenario, case: &Case, r: &CaseResult, static_r: Option<&CaseResult>) -> Vec<Warning> {
     let mut w = Vec::new();
     let legs = sling_legs(s, r);
-    let mut push =
-        |kind: WarningKind, subject: &str, message: String| w.push(Warning { kind, subject: Some(subject.to_string()), message });
+    let mut push = |kind: WarningKind, subject: &str, message: String| {
+        w.push(Warning { kind, subject: Some(subject.to_string()), message })
+    };
     for (i, m) in r.members.iter().enumerate() {
         let member = &s.members[i];
         match m.state {
@@ -186,7 +187,9 @@ pub fn case_warnings(s: &Scenario, case: &Case, r: &CaseResult, static_r: Option
     for f in &r.floors {
         for foot in f.feet.iter().filter(|x| x.state == State::Over) {
             match (&foot.reason, foot.utilisation) {
-                (Some(why), _) => push(WarningKind::FootOver, &f.id, msg(format_args!("floor {}, case {}: {}", f.id, r.id, why))),
+                (Some(why), _) => {
+                    push(WarningKind::FootOver, &f.id, msg(format_args!("floor {}, case {}: {}", f.id, r.id, why)))
+                }
                 (None, Some(u)) => push(
                     WarningKind::FootOver,
                     &f.id,
@@ -219,9 +222,11 @@ pub fn case_warnings(s: &Scenario, case: &Case, r: &CaseResult, static_r: Option
             continue;
         }
         match f.state {
-            State::Slack => {
-                push(WarningKind::FloorLifts, &f.id, msg(format_args!("floor {}: contact lifts off in case {}; normal force 0", f.id, r.id)))
-            }
+            State::Slack => push(
+                WarningKind::FloorLifts,
+                &f.id,
+                msg(format_args!("floor {}: contact lifts off in case {}; normal force 0", f.id, r.id)),
+            ),
             State::Over => push(
                 WarningKind::FloorOver,
                 &f.id,

@@ -120,8 +120,8 @@ pub fn write_csv_rows<W: Write>(w: &mut W, file: &str, a: &Analysis) -> io::Resu
                 // a foot: force its normal force, allowable the rated
                 // concentrated load (empty without one), item "floor/node"
                 writeln!(
-                w,
-                "{}",
+                    w,
+                    "{}",
                     [
                         field(file),
                         field(&c.id),

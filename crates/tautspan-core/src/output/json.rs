@@ -7,8 +7,8 @@
 use std::io::{self, Write};
 
 use crate::analysis::{
-    Analysis, CaseResult, ComparisonRow, FittingResult, FloorResult, LOAD_PATH_THRESHOLD, LoadPathResult,
-    MemberResult, NodeResult, SupportResult, WarningGroup,
+    Analysis, CaseResult, ComparisonRow, FittingResult, FloorResult, LOAD_PATH_THRESHOLD, LoadPathResult, MemberResult,
+    NodeResult, SupportResult, WarningGroup,
 };
 use serde_json::{Map, Value, json};
 

@@ -248,7 +248,11 @@ fn shares_text(ids: &[String], shares: &[f64]) -> String {
 fn path_line(out: &mut String, what: &str, p: &LoadPathResult) {
     let mut below = String::new();
     if p.not_listed > 0 {
-        below.push_str(&format!(" (+{} more at or above {} %)", p.not_listed, format_number(LOAD_PATH_THRESHOLD * 100.0, 3)));
+        below.push_str(&format!(
+            " (+{} more at or above {} %)",
+            p.not_listed,
+            format_number(LOAD_PATH_THRESHOLD * 100.0, 3)
+        ));
     }
     if p.below_threshold > 0 {
         below.push_str(&format!(

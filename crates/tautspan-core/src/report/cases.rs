@@ -233,11 +233,19 @@ fn load_paths(c: &CaseResult) -> String {
             below.push_str(&format!(" ({} more at or above {})", p.not_listed, percent(LOAD_PATH_THRESHOLD)));
         }
         if p.below_threshold > 0 {
-            below.push_str(&format!(" ({} more members below {} each)", p.below_threshold, percent(LOAD_PATH_THRESHOLD)));
+            below.push_str(&format!(
+                " ({} more members below {} each)",
+                p.below_threshold,
+                percent(LOAD_PATH_THRESHOLD)
+            ));
         }
         format!(
             "<p>Load path of {}: members {}{below} to supports {}.</p>",
-            if p.mass == ALL_MASSES { "all masses together".to_string() } else { format!("mass <b>{}</b>", escape(&p.mass)) },
+            if p.mass == ALL_MASSES {
+                "all masses together".to_string()
+            } else {
+                format!("mass <b>{}</b>", escape(&p.mass))
+            },
             if p.members.is_empty() { "none".to_string() } else { share(&p.members, &p.shares) },
             if p.supports.is_empty() { "none".to_string() } else { share(&p.supports, &p.support_shares) }
         )

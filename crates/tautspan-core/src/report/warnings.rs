@@ -23,7 +23,10 @@ pub fn warnings(analysis: &Analysis) -> String {
 /// plain strings when it has no items.
 pub fn case_items(case: &CaseResult) -> Vec<Warning> {
     if case.warning_items.is_empty() {
-        case.warnings.iter().map(|m| Warning { kind: WarningKind::CaseFailed, subject: None, message: m.clone() }).collect()
+        case.warnings
+            .iter()
+            .map(|m| Warning { kind: WarningKind::CaseFailed, subject: None, message: m.clone() })
+            .collect()
     } else {
         grouped(case.warning_groups())
     }
