@@ -73,8 +73,11 @@ fn profile(n: usize, text: &str) {
     let flow = LoadFlow::new(&net, &eq);
     let mut scratch = TraceScratch::default();
     let mut listed = 0;
+    let mut untraced_max: f64 = 0.0;
     for m in &s.masses {
-        listed += flow.trace(&[(m.node, 1.0)], 0.01, MAX_LISTED, &mut scratch).members.len();
+        let p = flow.trace(&[(m.node, 1.0)], 0.01, MAX_LISTED, &mut scratch);
+        listed += p.members.len();
+        untraced_max = untraced_max.max(p.untraced);
     }
     let paths_ms = ms(t);
     let t = Instant::now();
@@ -93,7 +96,7 @@ fn profile(n: usize, text: &str) {
     let text_ms = ms(t);
     println!(
         "{n} x {n}: {} members, {} masses; parse {parse_ms:.0} ms, validate {validate_ms:.0} ms; network + static solve {solve_ms:.0} ms ({} Newton steps); \
-         load paths of every mass {paths_ms:.0} ms ({listed} members listed, {:.1} a mass); whole analysis {analyse_ms:.0} ms; \
+         load paths of every mass {paths_ms:.0} ms ({listed} members listed, {:.1} a mass, untraced at most {untraced_max:.1e}); whole analysis {analyse_ms:.0} ms; \
          JSON {json_ms:.0} ms, {:.1} MB; CSV {csv_ms:.0} ms, {:.1} MB; text {text_ms:.0} ms, {:.1} MB; {} warning lines; peak RSS so far {:.0} MB",
         s.members.len(),
         s.masses.len(),

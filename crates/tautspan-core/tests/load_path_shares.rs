@@ -180,3 +180,27 @@ fn spreader_is_on_the_path_with_the_weight_through_its_ends() {
     }
     assert_eq!(p.supports, ["A"]);
 }
+
+/// Two masses at one joint of a 19 × 19 net (enough masses for the traces
+/// to be shared among threads): both get the same path, each under its own
+/// id, and every other mass keeps its own; the paths come out the same
+/// whatever order or thread they were traced on (pure function of the
+/// scenario: analysing twice gives identical results).
+#[test]
+fn masses_at_one_joint_share_a_path_and_results_repeat() {
+    let text =
+        grid_net(19, "2 kg").replace("], cases:", "Mass(id: \"extra\", at: \"n9_9\", mass: \"5 kg\"),\n], cases:");
+    let s = load_scenario(&text).unwrap().scenario;
+    let a = analyse(&s);
+    let c = &a.cases[0];
+    assert_eq!(c.load_path.len(), 17 * 17 + 1);
+    let mid = c.load_path.iter().find(|p| p.mass == "m9_9").unwrap();
+    let extra = c.load_path.iter().find(|p| p.mass == "extra").unwrap();
+    assert_eq!((&mid.members, &mid.shares), (&extra.members, &extra.shares));
+    for (p, m) in c.load_path.iter().zip(&s.masses) {
+        assert_eq!(p.mass, m.id);
+    }
+    let corner = c.load_path.iter().find(|p| p.mass == "m1_1").unwrap();
+    assert_ne!(corner.members, mid.members);
+    assert_eq!(analyse(&s).cases[0].load_path, c.load_path);
+}

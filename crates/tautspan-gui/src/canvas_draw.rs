@@ -166,6 +166,9 @@ pub fn draw(
         pts.iter().fold(Pos2::ZERO, |acc, p| acc + p.to_vec2() / n)
     };
     let mut labels = Vec::new();
+    // every member's strokes gathered and handed to the painter at once (a
+    // large net has tens of thousands; one call each costs more than drawing)
+    let mut shapes: Vec<Shape> = Vec::with_capacity(geo.members.len() * 2);
     for (k, m) in geo.members.iter().enumerate() {
         let (Some(a), Some(b)) = (geo.node(&m.ends.0), geo.node(&m.ends.1)) else { continue };
         let (sa, sb) = (view.to_screen(a.pos_m[0], a.pos_m[1]), view.to_screen(b.pos_m[0], b.pos_m[1]));
@@ -173,22 +176,24 @@ pub fn draw(
         let picked = *input.selection == Selection::Member(m.id.clone());
         if let Some(share) = path.get(m.id.as_str()) {
             // the glow widens with the member's share of the mass's weight
-            painter.line_segment([sa, sb], Stroke::new(8.0 + 8.0 * share.clamp(0.0, 1.0) as f32, PATH_GLOW));
+            shapes
+                .push(Shape::line_segment([sa, sb], Stroke::new(8.0 + 8.0 * share.clamp(0.0, 1.0) as f32, PATH_GLOW)));
         }
         if picked {
-            painter.line_segment([sa, sb], Stroke::new(11.0, PICK));
+            shapes.push(Shape::line_segment([sa, sb], Stroke::new(11.0, PICK)));
         }
         let (col, width, state) = match result {
             Some(r) => (colour(r.utilisation), if r.state == State::Over { 6.0 } else { 3.5 }, Some(r.state)),
             None => (UNSOLVED, 3.0, None),
         };
         if state == Some(State::Slack) {
-            painter.extend(Shape::dashed_line(&[sa, sb], Stroke::new(width + 1.5, CASING), 9.0, 6.0));
-            painter.extend(Shape::dashed_line(&[sa, sb], Stroke::new(width, col), 9.0, 6.0));
+            shapes.extend(Shape::dashed_line(&[sa, sb], Stroke::new(width + 1.5, CASING), 9.0, 6.0));
+            shapes.extend(Shape::dashed_line(&[sa, sb], Stroke::new(width, col), 9.0, 6.0));
         } else {
-            painter.line_segment([sa, sb], Stroke::new(width + 2.0, CASING));
-            painter.line_segment([sa, sb], Stroke::new(width, col));
+            shapes.push(Shape::line_segment([sa, sb], Stroke::new(width + 2.0, CASING)));
+            shapes.push(Shape::line_segment([sa, sb], Stroke::new(width, col)));
             if state == Some(State::Over) {
+                painter.extend(std::mem::take(&mut shapes));
                 hatch_over(painter, sa, sb, CASING);
             }
         }
@@ -198,6 +203,7 @@ pub fn draw(
             labels.push(Candidate { member: k, ends: [sa, sb], utilisation: r.utilisation, picked });
         }
     }
+    painter.extend(shapes);
     if input.labels {
         let hidden = member_labels::draw(painter, view.rect, centre, labels, INK, |k| {
             let m = &geo.members[k];
@@ -226,12 +232,21 @@ pub fn draw(
         painter.extend(Shape::dashed_line(&[s, h], Stroke::new(2.0, PICK), 6.0, 4.0));
     }
 
+    // names and mass boxes only where they can be read: with more joints
+    // than fit one a 40 × 40 pt square of the canvas, a small mark instead
+    let readable = view.rect.area() / geo.nodes.len().max(1) as f32 >= READABLE_PT * READABLE_PT;
+    let mut marks: Vec<Shape> = Vec::new();
     for m in &geo.masses {
         let (Some(n), Some(r)) = (geo.node(&m.at), mass_rect(geo, view, m)) else { continue };
+        let picked = *input.selection == Selection::Mass(m.id.clone());
+        if !readable && !picked {
+            let p = view.to_screen(n.pos_m[0], n.pos_m[1]);
+            marks.push(Shape::rect_filled(Rect::from_center_size(p + vec2(0.0, 6.0), vec2(5.0, 5.0)), 0.0, MASS_FILL));
+            continue;
+        }
         let p = view.to_screen(n.pos_m[0], n.pos_m[1]);
         painter.line_segment([p, r.center_top()], Stroke::new(1.5, INK));
-        let picked = *input.selection == Selection::Mass(m.id.clone());
-        painter.rect_filled(r, 3.0, Color32::from_rgb(0x4b, 0x4f, 0x5a));
+        painter.rect_filled(r, 3.0, MASS_FILL);
         if picked {
             painter.rect_stroke(r.expand(2.0), 3.0, Stroke::new(2.5, PICK), egui::StrokeKind::Outside);
         }
@@ -239,7 +254,10 @@ pub fn draw(
         painter.text(r.center(), Align2::CENTER_CENTER, text, FontId::proportional(11.0), Color32::WHITE);
     }
 
+    painter.extend(marks);
     let stroke = Stroke::new(1.5, INK);
+    let mut joints: Vec<Shape> = Vec::with_capacity(geo.nodes.len() * 2);
+    let mut names: Vec<(Pos2, &str)> = Vec::new();
     for n in &geo.nodes {
         let p = view.to_screen(n.pos_m[0], n.pos_m[1]);
         if *input.selection == Selection::Node(n.id.clone()) || member_start == Some(n.id.as_str()) {
@@ -248,8 +266,8 @@ pub fn draw(
         match n.support {
             SupportDto::Anchor => anchor_symbol(painter, p, stroke),
             SupportDto::Joint => {
-                painter.circle_filled(p, 5.5, Color32::WHITE);
-                painter.circle_stroke(p, 5.5, Stroke::new(2.0, INK));
+                joints.push(Shape::circle_filled(p, 5.5, Color32::WHITE));
+                joints.push(Shape::circle_stroke(p, 5.5, Stroke::new(2.0, INK)));
             }
             SupportDto::Floor(_) => {
                 painter.add(Shape::convex_polygon(
@@ -259,12 +277,25 @@ pub fn draw(
                 ));
             }
         }
-        painter.text(p + vec2(9.0, 9.0), Align2::LEFT_TOP, &n.id, FontId::proportional(11.0), CASING);
+        if readable {
+            names.push((p, n.id.as_str()));
+        }
+    }
+    painter.extend(joints);
+    for (p, id) in names {
+        painter.text(p + vec2(9.0, 9.0), Align2::LEFT_TOP, id, FontId::proportional(11.0), CASING);
     }
     // in the deflected view the caption holds the top left; the legend goes below it
     let legend_top = if deflection.is_some() { CAPTION_HEIGHT + 16.0 } else { 12.0 };
     legend(painter, view, input.derived.solved.as_ref().map(|s| s.scenario.near_limit).unwrap_or(0.8), legend_top);
 }
+
+/// Canvas room a joint needs, pt square, for its name and mass box to be
+/// drawn (fewer room: they would only cover each other).
+const READABLE_PT: f32 = 40.0;
+
+/// Fill of a mass's box.
+const MASS_FILL: Color32 = Color32::from_rgb(0x4b, 0x4f, 0x5a);
 
 /// Height the deflected view's caption takes at the top of the canvas, pt.
 const CAPTION_HEIGHT: f32 = 48.0;

@@ -37,26 +37,59 @@ pub fn load_path_results(
         return (Vec::new(), None);
     }
     let flow = LoadFlow::new(net, eq);
-    let mut scratch = TraceScratch::default();
     let g = s.gravity_m_s2();
-    // masses at the same node share one trace
+    // masses at the same node share one trace: the first mass at each node
     let mut by_node: HashMap<usize, usize> = HashMap::new();
-    let mut paths: Vec<LoadPathResult> = Vec::with_capacity(s.masses.len());
-    for m in &s.masses {
-        let mut r = match by_node.get(&m.node) {
-            // a second mass at the same joint: the same path
-            Some(&k) => paths[k].clone(),
-            None => {
-                by_node.insert(m.node, paths.len());
-                if s.nodes[m.node].support == Support::Anchor {
-                    // a mass hung directly at an anchor is its own path
-                    own_support(s, m.node)
-                } else {
-                    to_result(s, flow.trace(&[(m.node, 1.0)], LOAD_PATH_THRESHOLD, MAX_LISTED, &mut scratch), "")
+    let first: Vec<usize> = (0..s.masses.len()).map(|i| *by_node.entry(s.masses[i].node).or_insert(i)).collect();
+    let to_trace: Vec<usize> = (0..s.masses.len()).filter(|&i| first[i] == i).collect();
+    // the traces are independent: a few threads share them (same answers
+    // in the same order whatever the number of threads)
+    let trace_one = |i: usize, scratch: &mut TraceScratch| {
+        let node = s.masses[i].node;
+        if s.nodes[node].support == Support::Anchor {
+            // a mass hung directly at an anchor is its own path
+            own_support(s, node)
+        } else {
+            to_result(s, flow.trace(&[(node, 1.0)], LOAD_PATH_THRESHOLD, MAX_LISTED, scratch), "")
+        }
+    };
+    let threads = std::thread::available_parallelism().map_or(1, |n| n.get()).min(MAX_THREADS);
+    let traced: Vec<LoadPathResult> = if threads > 1 && to_trace.len() >= PARALLEL_FROM {
+        let chunk = to_trace.len().div_ceil(threads);
+        std::thread::scope(|scope| {
+            let handles: Vec<_> = to_trace
+                .chunks(chunk)
+                .map(|part| {
+                    scope.spawn(move || {
+                        let mut scratch = TraceScratch::default();
+                        part.iter().map(|&i| trace_one(i, &mut scratch)).collect::<Vec<_>>()
+                    })
+                })
+                .collect();
+            let mut all = Vec::with_capacity(to_trace.len());
+            for (h, part) in handles.into_iter().zip(to_trace.chunks(chunk)) {
+                match h.join() {
+                    Ok(v) => all.extend(v),
+                    // a thread that failed: trace its part here
+                    Err(_) => {
+                        let mut scratch = TraceScratch::default();
+                        all.extend(part.iter().map(|&i| trace_one(i, &mut scratch)));
+                    }
                 }
             }
-        };
-        r.mass = m.id.clone();
+            all
+        })
+    } else {
+        let mut scratch = TraceScratch::default();
+        to_trace.iter().map(|&i| trace_one(i, &mut scratch)).collect()
+    };
+    let mut traced = traced.into_iter();
+    let mut paths: Vec<LoadPathResult> = Vec::with_capacity(s.masses.len());
+    for i in 0..s.masses.len() {
+        // the first mass at a node takes its trace (in order); others copy it
+        let mut r = if first[i] == i { traced.next() } else { paths.get(first[i]).cloned() }
+            .unwrap_or_else(|| own_support(s, s.masses[i].node));
+        r.mass = s.masses[i].id.clone();
         paths.push(r);
     }
     let sources: Vec<(usize, f64)> = s
@@ -68,9 +101,15 @@ pub fn load_path_results(
         })
         .collect();
     // every member carrying any of the weight: linear in the members
-    let combined = to_result(s, flow.trace(&sources, 0.0, usize::MAX, &mut scratch), ALL_MASSES);
+    let combined = to_result(s, flow.trace(&sources, 0.0, usize::MAX, &mut TraceScratch::default()), ALL_MASSES);
     (paths, Some(combined))
 }
+
+/// Threads the traces are shared among, at most.
+const MAX_THREADS: usize = 4;
+
+/// Fewer traces than this run on the calling thread.
+const PARALLEL_FROM: usize = 256;
 
 fn own_support(s: &Scenario, node: usize) -> LoadPathResult {
     LoadPathResult {

@@ -1,7 +1,7 @@
 //! A generated square net for the end-to-end tests and benchmarks (one
 //! generator for both): `n` × `n` joints in the horizontal x–z plane at
 //! 1 m pitch, the edge joints anchored, wire rope between every pair of
-//! neighbours (10 mm², 100 GPa: EA = 1 MN, drawn 2 % longer than its
+//! neighbours (10 mm², 100 GPa: EA = 1 MN, drawn 1 % longer than its
 //! unstretched length, so the net is pretensioned), a mass of `mass` at
 //! every interior joint, and one static case. The rope's own weight is not
 //! given (area and modulus only), so every member's own weight is left out:
@@ -21,7 +21,7 @@ pub fn grid_net(n: usize, mass: &str) -> String {
         }
     }
     s.push_str("], members: [\n");
-    let rope = "kind: WireRope, area: \"10 mm^2\", modulus: \"100 GPa\", rating: BreakingStrength(\"200 kN\"), slack: \"-0.02 m\"";
+    let rope = "kind: WireRope, area: \"10 mm^2\", modulus: \"100 GPa\", rating: BreakingStrength(\"200 kN\"), slack: \"-0.01 m\"";
     for i in 0..n {
         for j in 0..n {
             if i + 1 < n {
