@@ -85,11 +85,11 @@ pub fn load_path_results(
     };
     let mut traced = traced.into_iter();
     let mut paths: Vec<LoadPathResult> = Vec::with_capacity(s.masses.len());
-    for i in 0..s.masses.len() {
+    for (i, (m, &f)) in s.masses.iter().zip(&first).enumerate() {
         // the first mass at a node takes its trace (in order); others copy it
-        let mut r = if first[i] == i { traced.next() } else { paths.get(first[i]).cloned() }
-            .unwrap_or_else(|| own_support(s, s.masses[i].node));
-        r.mass = s.masses[i].id.clone();
+        let mut r =
+            if f == i { traced.next() } else { paths.get(f).cloned() }.unwrap_or_else(|| own_support(s, m.node));
+        r.mass = m.id.clone();
         paths.push(r);
     }
     let sources: Vec<(usize, f64)> = s
