@@ -24,15 +24,99 @@ fn part_json(f: &FittingResult) -> Value {
             "angle_deg": f.angle_deg.map(num), "source": f.source, "reason": f.reason })
 }
 
-fn member_json(m: &MemberResult) -> Value {
-    json!({ "id": m.id, "force_n": num(m.force_n), "allowable_n": num(m.allowable_n),
-            "utilisation": num(m.utilisation), "state": m.state.as_str(), "stretch_m": num(m.stretch_m),
-            "length_m": num(m.length_m), "sling_angle_deg": num(m.sling_angle_deg),
-            "sag_m": num(m.sag_m), "wave_transit_s": m.wave_transit_s.map(num), "reason": m.reason,
-            "peak_at_deg": m.peak_at_deg.map(num),
-            "mode_factor": m.mode_factor.map(num), "bend_efficiency": m.bend_efficiency.map(num),
-            "euler_n": m.euler_n.map(num), "buckling_resistance_n": m.buckling_resistance_n.map(num),
-            "fittings": m.fittings.iter().map(part_json).collect::<Vec<_>>() })
+/// A number as the contract writes it: `null` where not finite.
+#[derive(Clone, Copy)]
+struct Num(f64);
+
+impl serde::Serialize for Num {
+    fn serialize<S: serde::Serializer>(&self, ser: S) -> Result<S::Ok, S::Error> {
+        if self.0.is_finite() { ser.serialize_f64(self.0) } else { ser.serialize_none() }
+    }
+}
+
+/// Shares to six decimals (far below the 1 % threshold; a 71 × 71 net's
+/// paths stay a few MB).
+struct Shares<'a>(&'a [f64]);
+
+impl serde::Serialize for Shares<'_> {
+    fn serialize<S: serde::Serializer>(&self, ser: S) -> Result<S::Ok, S::Error> {
+        ser.collect_seq(self.0.iter().map(|v| Num((v * 1e6).round() / 1e6)))
+    }
+}
+
+/// A member as written (borrowed, so a large rig's members are written
+/// without an intermediate value each).
+#[derive(serde::Serialize)]
+struct MemberOut<'a> {
+    id: &'a str,
+    force_n: Num,
+    allowable_n: Num,
+    utilisation: Num,
+    state: &'static str,
+    stretch_m: Num,
+    length_m: Num,
+    sling_angle_deg: Num,
+    sag_m: Num,
+    wave_transit_s: Option<Num>,
+    reason: &'a Option<String>,
+    peak_at_deg: Option<Num>,
+    mode_factor: Option<Num>,
+    bend_efficiency: Option<Num>,
+    euler_n: Option<Num>,
+    buckling_resistance_n: Option<Num>,
+    fittings: Vec<Value>,
+}
+
+fn member_out(m: &MemberResult) -> MemberOut<'_> {
+    MemberOut {
+        id: &m.id,
+        force_n: Num(m.force_n),
+        allowable_n: Num(m.allowable_n),
+        utilisation: Num(m.utilisation),
+        state: m.state.as_str(),
+        stretch_m: Num(m.stretch_m),
+        length_m: Num(m.length_m),
+        sling_angle_deg: Num(m.sling_angle_deg),
+        sag_m: Num(m.sag_m),
+        wave_transit_s: m.wave_transit_s.map(Num),
+        reason: &m.reason,
+        peak_at_deg: m.peak_at_deg.map(Num),
+        mode_factor: m.mode_factor.map(Num),
+        bend_efficiency: m.bend_efficiency.map(Num),
+        euler_n: m.euler_n.map(Num),
+        buckling_resistance_n: m.buckling_resistance_n.map(Num),
+        fittings: m.fittings.iter().map(part_json).collect(),
+    }
+}
+
+/// A load path: the contract's `mass`, `members` and `supports` (those
+/// carrying at least the threshold share), with the shares, the counts
+/// below the threshold and not listed, and the untraced fraction.
+#[derive(serde::Serialize)]
+struct PathOut<'a> {
+    mass: &'a str,
+    members: &'a [String],
+    supports: &'a [String],
+    shares: Shares<'a>,
+    below_threshold: usize,
+    not_listed: usize,
+    support_shares: Shares<'a>,
+    supports_below_threshold: usize,
+    untraced: Num,
+}
+
+fn path_out(p: &LoadPathResult) -> PathOut<'_> {
+    PathOut {
+        mass: &p.mass,
+        members: &p.members,
+        supports: &p.supports,
+        shares: Shares(&p.shares),
+        below_threshold: p.below_threshold,
+        not_listed: p.not_listed,
+        support_shares: Shares(&p.support_shares),
+        supports_below_threshold: p.supports_below_threshold,
+        untraced: Num(p.untraced),
+    }
 }
 
 fn floor_json(f: &FloorResult) -> Value {
@@ -67,22 +151,6 @@ fn support_json(s: &SupportResult) -> Value {
             "state": r.map(|r| r.state.as_str()), "peak_at_deg": s.peak_at_deg.map(num) })
 }
 
-/// A load path: the contract's `mass`, `members` and `supports` (those
-/// carrying at least the threshold share), with the shares, the counts
-/// below the threshold and the untraced fraction.
-fn load_path_json(p: &LoadPathResult) -> Value {
-    json!({ "mass": p.mass, "members": p.members, "supports": p.supports,
-            "shares": p.shares.iter().map(|x| share(*x)).collect::<Vec<_>>(), "below_threshold": p.below_threshold, "not_listed": p.not_listed,
-            "support_shares": p.support_shares.iter().map(|x| share(*x)).collect::<Vec<_>>(),
-            "supports_below_threshold": p.supports_below_threshold, "untraced": num(p.untraced) })
-}
-
-/// A share written to 1e-6 of the weight (six decimals: far below the
-/// 1 % threshold, and a 71 × 71 net's paths stay a few MB).
-fn share(v: f64) -> Value {
-    num((v * 1e6).round() / 1e6)
-}
-
 fn group_json(g: &WarningGroup) -> Value {
     json!({ "kind": g.kind.key(), "count": g.count, "subjects": g.subjects, "message": g.message })
 }
@@ -115,19 +183,17 @@ impl<'w, W: Write> ObjectWriter<'w, W> {
         serde_json::to_writer(&mut *self.w, v).map_err(io::Error::other)
     }
 
-    fn array<T>(&mut self, name: &str, items: &[T], each: impl Fn(&T) -> Value) -> io::Result<()> {
+    fn array<V: serde::Serialize>(&mut self, name: &str, items: impl IntoIterator<Item = V>) -> io::Result<()> {
         self.key(name)?;
-        if items.is_empty() {
-            return self.w.write_all(b"[]");
-        }
         self.w.write_all(b"[")?;
-        for (i, x) in items.iter().enumerate() {
-            let sep: &[u8] = if i == 0 { b"\n" } else { b",\n" };
-            self.w.write_all(sep)?;
+        let mut any = false;
+        for x in items {
+            self.w.write_all(if any { b",\n" } else { b"\n" })?;
+            any = true;
             write!(self.w, "{}    ", self.indent)?;
-            serde_json::to_writer(&mut *self.w, &each(x)).map_err(io::Error::other)?;
+            serde_json::to_writer(&mut *self.w, &x).map_err(io::Error::other)?;
         }
-        write!(self.w, "\n{}  ]", self.indent)
+        if any { write!(self.w, "\n{}  ]", self.indent) } else { self.w.write_all(b"]") }
     }
 
     fn close(self) -> io::Result<()> {
@@ -159,14 +225,14 @@ fn write_case<W: Write>(w: &mut W, c: &CaseResult) -> io::Result<()> {
                     "governing_deg": num(a.governing_deg), "angles_deg": a.angles_deg.iter().map(|x| num(*x)).collect::<Vec<_>>() }),
         )?;
     }
-    o.array("members", &c.members, member_json)?;
-    o.array("floors", &c.floors, floor_json)?;
-    o.array("nodes", &c.nodes, node_json)?;
-    o.array("supports", &c.supports, support_json)?;
+    o.array("members", c.members.iter().map(member_out))?;
+    o.array("floors", c.floors.iter().map(floor_json))?;
+    o.array("nodes", c.nodes.iter().map(node_json))?;
+    o.array("supports", c.supports.iter().map(support_json))?;
     o.field("load_path_threshold", &num(LOAD_PATH_THRESHOLD))?;
-    o.array("load_path", &c.load_path, load_path_json)?;
+    o.array("load_path", c.load_path.iter().map(path_out))?;
     if let Some(p) = &c.combined_load_path {
-        o.field("combined_load_path", &load_path_json(p))?;
+        o.field("combined_load_path", &path_out(p))?;
     }
     let mut limits = Map::new();
     if let Some(r) = c.limits.release_deg {
@@ -177,7 +243,7 @@ fn write_case<W: Write>(w: &mut W, c: &CaseResult) -> io::Result<()> {
     }
     o.field("limits", &Value::Object(limits))?;
     o.field("warnings", &c.warnings)?;
-    o.array("warning_groups", &c.warning_groups(), group_json)?;
+    o.array("warning_groups", c.warning_groups().iter().map(group_json))?;
     o.close()
 }
 
@@ -208,10 +274,10 @@ pub fn write_check_json<W: Write>(w: &mut W, file: &str, a: &Analysis) -> io::Re
         write_case(o.w, c)?;
     }
     o.w.write_all(if a.cases.is_empty() { b"]" } else { b"\n  ]" })?;
-    o.array("comparison", &a.comparison, comparison_json)?;
+    o.array("comparison", a.comparison.iter().map(comparison_json))?;
     let groups = a.warning_groups();
     o.field("warnings", &groups.iter().map(|g| g.message.as_str()).collect::<Vec<_>>())?;
-    o.array("warning_groups", &groups, group_json)?;
+    o.array("warning_groups", groups.iter().map(group_json))?;
     o.field("assumptions", &a.assumptions)?;
     o.close()
 }
