@@ -33,9 +33,6 @@
 //! be low). Nodes are visited in the flow's topological order, so each node
 //! of a path without cycles is split once.
 
-use std::cmp::Reverse;
-use std::collections::BinaryHeap;
-
 use super::equilibrium::Equilibrium;
 use super::network::{Fixity, Network};
 
@@ -84,6 +81,8 @@ pub struct LoadFlow {
     anchor: Vec<bool>,
     /// Per node: position in the flow's topological order.
     rank: Vec<usize>,
+    /// The node at each rank.
+    by_rank: Vec<usize>,
     n_members: usize,
 }
 
@@ -100,7 +99,12 @@ pub struct TraceScratch {
     /// Weight passing through each node (fraction), and the nodes touched.
     through: Vec<f64>,
     touched_nodes: Vec<usize>,
-    heap: BinaryHeap<Reverse<(usize, usize)>>,
+    /// The nodes waiting, by their rank: a bit per rank. Ranks only grow
+    /// along a path without cycles, so the next node is the next bit set
+    /// after the last one taken (a monotone queue, no heap needed).
+    waiting: Vec<u64>,
+    /// The rank the next search starts from.
+    cursor: usize,
 }
 
 impl LoadFlow {
@@ -142,7 +146,11 @@ impl LoadFlow {
         let held_n = (0..n).map(|j| floor_n[j] + out[j].iter().map(|x| x.2).sum::<f64>()).collect();
         let anchor = net.nodes.iter().map(|x| matches!(x.fixity, Fixity::Fixed)).collect();
         let rank = topological_rank(&out, eq);
-        LoadFlow { out, level, held_n, floor_n, anchor, rank, n_members: net.members.len() }
+        let mut by_rank = vec![0; n];
+        for (j, &r) in rank.iter().enumerate() {
+            by_rank[r] = j;
+        }
+        LoadFlow { out, level, held_n, floor_n, anchor, rank, by_rank, n_members: net.members.len() }
     }
 
     /// Trace the loads `sources` (node, weight N) together to the supports;
@@ -165,6 +173,8 @@ impl LoadFlow {
                 pending: vec![0.0; n],
                 queued: vec![false; n],
                 through: vec![0.0; n],
+                waiting: vec![0; n.div_ceil(64)],
+                cursor: n,
                 ..TraceScratch::default()
             };
         }
@@ -188,11 +198,12 @@ impl LoadFlow {
                 sc.pending[j] += w / total;
                 if !sc.queued[j] {
                     sc.queued[j] = true;
-                    sc.heap.push(Reverse((self.rank[j], j)));
+                    sc.push(self.rank[j]);
                 }
             }
         }
-        while let Some(Reverse((_, j))) = sc.heap.pop() {
+        while let Some(r) = sc.pop() {
+            let j = self.by_rank[r];
             sc.queued[j] = false;
             let a = std::mem::take(&mut sc.pending[j]);
             if a <= 0.0 {
@@ -229,7 +240,7 @@ impl LoadFlow {
                 sc.pending[to] += f;
                 if !sc.queued[to] {
                     sc.queued[to] = true;
-                    sc.heap.push(Reverse((self.rank[to], to)));
+                    sc.push(self.rank[to]);
                 }
             }
         }
@@ -269,10 +280,38 @@ impl LoadFlow {
     }
 }
 
+impl TraceScratch {
+    fn push(&mut self, rank: usize) {
+        self.waiting[rank >> 6] |= 1 << (rank & 63);
+        // a node on a cycle may come back below the cursor
+        self.cursor = self.cursor.min(rank);
+    }
+
+    fn pop(&mut self) -> Option<usize> {
+        let mut w = self.cursor >> 6;
+        let mut word = self.waiting.get(w)? & (u64::MAX << (self.cursor & 63));
+        loop {
+            if word != 0 {
+                let rank = (w << 6) + word.trailing_zeros() as usize;
+                self.waiting[w] &= !(1 << (rank & 63));
+                self.cursor = rank;
+                return Some(rank);
+            }
+            w += 1;
+            match self.waiting.get(w) {
+                Some(&x) => word = x,
+                None => {
+                    self.cursor = w << 6;
+                    return None;
+                }
+            }
+        }
+    }
+}
+
 /// The listed items (share ≥ threshold, ascending) and the count below it;
 /// clears the scratch it read.
 fn collect(touched: &mut Vec<usize>, flow: &mut [f64], threshold: f64) -> (Vec<(usize, f64)>, usize) {
-    touched.sort_unstable();
     let mut listed = Vec::new();
     let mut below = 0;
     for &i in touched.iter() {
@@ -284,6 +323,8 @@ fn collect(touched: &mut Vec<usize>, flow: &mut [f64], threshold: f64) -> (Vec<(
         }
     }
     touched.clear();
+    // only the listed ones are put in order (a trace touches thousands)
+    listed.sort_unstable_by_key(|x| x.0);
     (listed, below)
 }
 
