@@ -262,10 +262,13 @@ impl LoadFlow {
         sc.touched_nodes.clear();
         let (mut members, members_below_threshold) = collect(&mut sc.touched_members, &mut sc.member_flow, threshold);
         let members_not_listed = members.len().saturating_sub(max_listed);
-        if members_not_listed > 0 {
-            members.sort_unstable_by(|a, b| b.1.total_cmp(&a.1).then(a.0.cmp(&b.0)));
+        if members_not_listed > 0 && max_listed > 0 {
+            // the largest shares (ties: the lower index) first, the rest cut
+            members.select_nth_unstable_by(max_listed - 1, |a, b| b.1.total_cmp(&a.1).then(a.0.cmp(&b.0)));
             members.truncate(max_listed);
             members.sort_unstable_by_key(|m| m.0);
+        } else if members_not_listed > 0 {
+            members.clear();
         }
         let (supports, supports_below_threshold) = collect(&mut sc.touched_supports, &mut sc.support_flow, threshold);
         LoadPath {
