@@ -204,3 +204,43 @@ fn masses_at_one_joint_share_a_path_and_results_repeat() {
     assert_ne!(corner.members, mid.members);
     assert_eq!(analyse(&s).cases[0].load_path, c.load_path);
 }
+
+/// A weight that goes round a loop (a strut holding a joint up over a rope
+/// that hangs back up to it: flows B → C → B) is followed round until it
+/// leaves, the loop's share summing as a geometric series. With vertical
+/// forces V(B→A) = 100 N, V(B→C, strut) = 50 N and V(C→B, rope) = 50 N, a
+/// unit weight at B splits 2/3 : 1/3 each time it passes B and all of C's
+/// comes back, so (hand-worked) B passes 1 / (1 − 1/3) = 1.5, the strut and
+/// the lower rope carry 0.5 each and the upper rope and anchor 1. The forces
+/// are set by hand (the trace needs no equilibrium); tolerance 1e-4 covers
+/// the flows under the cut (1e-5 of the weight) left unfollowed.
+#[test]
+fn a_loop_is_followed_round_until_the_weight_leaves() {
+    let text = r#"Scenario(format: 1, title: "loop",
+        nodes: [Node(id: "A", at: ("0 m", "2 m"), support: Anchor), Node(id: "B", at: ("0 m", "1 m")), Node(id: "C", at: ("0 m", "0 m"))],
+        members: [
+            Member(id: "upper", ends: ("A", "B"), kind: WireRope, area: "10 mm^2", modulus: "100 GPa", rating: BreakingStrength("50 kN")),
+            Member(id: "strut", ends: ("B", "C"), kind: Rod, area: "100 mm^2", modulus: "200 GPa", rating: Yield("235 MPa")),
+            Member(id: "lower", ends: ("C", "B"), kind: WireRope, area: "10 mm^2", modulus: "100 GPa", rating: BreakingStrength("50 kN")),
+        ],
+        masses: [Mass(id: "load", at: "B", mass: "10 kg")],
+        cases: [Static(id: "s")])"#;
+    let s = load_scenario(text).unwrap().scenario;
+    let (net, _) = to_network(&s);
+    let eq = tautspan_core::solve::Equilibrium {
+        positions_m: net.nodes.iter().map(|n| n.position_m).collect(),
+        member_force_n: vec![100.0, -50.0, 50.0],
+        member_length_m: vec![1.0, 1.0, 1.0],
+        floor_force_n: vec![0.0; 3],
+        reaction_n: vec![[0.0; 3]; 3],
+        iterations: 0,
+        residual_n: 0.0,
+    };
+    let p = LoadFlow::new(&net, &eq).trace(&[(1, 1.0)], LOAD_PATH_THRESHOLD, usize::MAX, &mut TraceScratch::default());
+    let share = |i: usize| p.members.iter().find(|m| m.0 == i).map_or(0.0, |m| m.1);
+    for (i, expected) in [(0, 1.0), (1, 0.5), (2, 0.5)] {
+        assert!((share(i) - expected).abs() < 1e-4, "member {i}: {} vs {expected}", share(i));
+    }
+    assert_eq!(p.supports.len(), 1);
+    assert!((p.supports[0].1 - 1.0).abs() < 1e-4 && p.untraced < 1e-4);
+}
