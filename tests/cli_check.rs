@@ -76,6 +76,31 @@ fn json_for_every_example_follows_the_contract() {
             assert!(c["nodes"].as_array().is_some_and(|n| !n.is_empty()));
             assert!(c["supports"].as_array().is_some_and(|n| !n.is_empty()));
             assert!(c["load_path"].as_array().is_some_and(|n| !n.is_empty()));
+            // each path: members with their shares (fractions of the mass's weight) above the threshold
+            let threshold = c["load_path_threshold"].as_f64().expect("load_path_threshold");
+            for p in c["load_path"].as_array().expect("load_path").iter().chain([&c["combined_load_path"]]) {
+                let (members, shares) =
+                    (p["members"].as_array().expect("members"), p["shares"].as_array().expect("shares"));
+                assert_eq!(members.len(), shares.len(), "{p}");
+                assert_eq!(p["supports"].as_array().map(Vec::len), p["support_shares"].as_array().map(Vec::len));
+                for x in shares.iter().chain(p["support_shares"].as_array().expect("support_shares")) {
+                    let x = x.as_f64().expect("share");
+                    assert!((0.0..=1.0 + 1e-9).contains(&x), "{p}");
+                    if p["mass"] != "all masses" {
+                        assert!(x >= threshold - 1e-9, "{p}");
+                    }
+                }
+                assert!(p["below_threshold"].is_u64() && p["not_listed"].is_u64() && p["untraced"].is_number());
+            }
+            // warnings: one text per kind, and each group with every subject
+            let groups = c["warning_groups"].as_array().expect("warning_groups");
+            assert_eq!(groups.len(), c["warnings"].as_array().map_or(0, Vec::len));
+            for g in groups {
+                assert!(g["kind"].is_string() && g["message"].is_string());
+                assert!(
+                    g["count"].as_u64().is_some_and(|n| n >= g["subjects"].as_array().map_or(0, |v| v.len() as u64))
+                );
+            }
             assert!(c["limits"].is_object());
             assert!(c["warnings"].is_array());
             if c["kind"] != "static" {

@@ -1,23 +1,39 @@
-//! `tautspan check`: analyse every file and print text, JSON or CSV.
+//! `tautspan check`: analyse every file and print text, JSON or CSV. JSON
+//! and CSV go to stdout as they are written (one member, node or row at a
+//! time), never built whole in memory first.
 
 use crate::read::read_scenario;
 use crate::{CheckFormat, EXIT_INPUT};
+use std::io::{BufWriter, Write};
 use std::path::PathBuf;
 use std::process::ExitCode;
 use tautspan_core::CAUTION;
 use tautspan_core::analysis::analyse;
-use tautspan_core::output::{CSV_HEADER, check_csv_rows, check_json, check_text, csv_caution_line};
+use tautspan_core::output::{CSV_HEADER, check_text, csv_caution_line, write_check_json, write_csv_rows};
 
 /// Run the command; the exit code follows the contract (0, 1, 2).
 pub fn run(files: &[PathBuf], format: CheckFormat, case: Option<&str>) -> ExitCode {
+    let stdout = std::io::stdout();
+    let mut out = BufWriter::with_capacity(1 << 16, stdout.lock());
+    match write_all(&mut out, files, format, case).and_then(|worst| out.flush().map(|()| worst)) {
+        Ok(worst) => ExitCode::from(worst),
+        Err(e) => {
+            eprintln!("tautspan: cannot write the output: {e}");
+            ExitCode::from(EXIT_INPUT)
+        }
+    }
+}
+
+fn write_all<W: Write>(out: &mut W, files: &[PathBuf], format: CheckFormat, case: Option<&str>) -> std::io::Result<u8> {
     let mut worst = 0u8;
-    let mut json = Vec::new();
-    let mut out = String::new();
-    if matches!(format, CheckFormat::Csv) {
-        out.push_str(&csv_caution_line());
-        out.push('\n');
-        out.push_str(CSV_HEADER);
-        out.push('\n');
+    // several files make a JSON array (one object per file), one file an object
+    let array = files.len() > 1;
+    let mut written = 0usize;
+    let mut any_text = false;
+    match format {
+        CheckFormat::Csv => writeln!(out, "{}\n{CSV_HEADER}", csv_caution_line())?,
+        CheckFormat::Json if array => out.write_all(b"[")?,
+        _ => {}
     }
     for path in files {
         let name = path.display().to_string();
@@ -45,24 +61,28 @@ pub fn run(files: &[PathBuf], format: CheckFormat, case: Option<&str>) -> ExitCo
             worst = worst.max(1);
         }
         match format {
-            CheckFormat::Text => out.push_str(&check_text(&name, &a)),
-            CheckFormat::Json => json.push(check_json(&name, &a)),
-            CheckFormat::Csv => out.push_str(&check_csv_rows(&name, &a)),
+            CheckFormat::Text => {
+                out.write_all(check_text(&name, &a).as_bytes())?;
+                any_text = true;
+            }
+            CheckFormat::Json => {
+                if array {
+                    out.write_all(if written == 0 { b"\n" } else { b",\n" })?;
+                }
+                write_check_json(out, &name, &a)?;
+            }
+            CheckFormat::Csv => write_csv_rows(out, &name, &a)?,
         }
+        written += 1;
+        // a large rig's analysis is dropped here, before the next file is read
+        drop(a);
     }
     match format {
-        CheckFormat::Json => {
-            let v = if json.len() == 1 { json.remove(0) } else { serde_json::Value::Array(json) };
-            match serde_json::to_string_pretty(&v) {
-                Ok(s) => println!("{s}"),
-                Err(e) => {
-                    eprintln!("tautspan: cannot write JSON: {e}");
-                    return ExitCode::from(EXIT_INPUT);
-                }
-            }
-        }
-        CheckFormat::Text if out.is_empty() => eprintln!("CAUTION: {CAUTION}"),
-        _ => print!("{out}"),
+        CheckFormat::Json if array => out.write_all(b"\n]\n")?,
+        CheckFormat::Json if written > 0 => out.write_all(b"\n")?,
+        CheckFormat::Json => out.write_all(b"[]\n")?,
+        CheckFormat::Text if !any_text => eprintln!("CAUTION: {CAUTION}"),
+        _ => {}
     }
-    ExitCode::from(worst)
+    Ok(worst)
 }

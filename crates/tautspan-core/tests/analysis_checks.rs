@@ -4,7 +4,7 @@
 
 #![allow(clippy::expect_used, clippy::unwrap_used, reason = "test helpers fail loudly on broken fixtures")]
 
-use tautspan_core::analysis::{Analysis, State, analyse};
+use tautspan_core::analysis::{Analysis, State, WarningKind, analyse};
 use tautspan_core::file::{CaseDto, Qty};
 use tautspan_core::model::{build, load_scenario};
 
@@ -40,9 +40,15 @@ fn case<'a>(a: &'a Analysis, id: &str) -> &'a tautspan_core::analysis::CaseResul
     a.cases.iter().find(|c| c.id == id).unwrap_or_else(|| panic!("case {id}"))
 }
 
-fn has_warning(a: &Analysis, needle: &str) -> bool {
-    a.cases.iter().any(|c| c.warnings.iter().any(|w| w.contains(needle)))
-        || a.warnings.iter().any(|w| w.message.contains(needle))
+/// A warning of `kind` whose text contains `needle`, in a case or the
+/// scenario's own; its group (one per kind and case) carries the same text.
+fn has_warning(a: &Analysis, kind: WarningKind, needle: &str) -> bool {
+    let case_hit = a.cases.iter().any(|c| {
+        c.warning_items.iter().any(|w| w.kind == kind && w.message.contains(needle))
+            && c.warning_groups().iter().any(|g| g.kind == kind && g.message.contains(needle))
+            && c.warnings.iter().any(|w| w.contains(needle))
+    });
+    case_hit || a.warnings.iter().any(|w| w.kind == kind && w.message.contains(needle))
 }
 
 // Timoshenko & Woinowsky-Krieger, central point load on a simply supported
@@ -219,11 +225,11 @@ fn each_state_and_warning_is_raised() {
     // over and near: same line, two masses
     let over = analysed(&single_line(STEEL_LINE, "2500 kg", r#"Static(id: "s")"#));
     assert_eq!(over.cases[0].members[0].state, State::Over);
-    assert!(has_warning(&over, "over its allowable 20 kN by"));
+    assert!(has_warning(&over, WarningKind::MemberOver, "over its allowable 20 kN by"));
     assert!(!over.all_within());
     let near = analysed(&single_line(STEEL_LINE, "1800 kg", r#"Static(id: "s")"#));
     assert_eq!(near.cases[0].members[0].state, State::Near);
-    assert!(has_warning(&near, "near-limit threshold 80 %"));
+    assert!(has_warning(&near, WarningKind::MemberNear, "near-limit threshold 80 %"));
     let ok = analysed(&single_line(STEEL_LINE, "100 kg", r#"Static(id: "s")"#));
     assert_eq!(ok.cases[0].members[0].state, State::Ok);
     assert!(ok.all_within());
@@ -237,10 +243,10 @@ fn each_state_and_warning_is_raised() {
         cases: [ Static(id: "s") ])"#;
     let a = analysed(slack);
     assert_eq!(a.cases[0].members[1].state, State::Slack);
-    assert!(has_warning(&a, "member backup: slack in case s, where it was meant to carry"));
+    assert!(has_warning(&a, WarningKind::MemberSlack, "member backup: slack in case s, where it was meant to carry"));
     assert!(!a.all_within());
     let a = analysed(&slack.replace(r#"slack: "0.2 m")"#, r#"slack: "0.2 m", may_go_slack: true)"#));
-    assert!(a.all_within() && !has_warning(&a, "meant to carry"));
+    assert!(a.all_within() && !has_warning(&a, WarningKind::MemberSlack, "meant to carry"));
 
     // sling angle below 30° from horizontal: a wide, flat bridle
     let flat = r#"Scenario(format: 1, title: "flat",
@@ -250,7 +256,7 @@ fn each_state_and_warning_is_raised() {
         masses: [ Mass(id: "load", at: "M", mass: "100 kg") ],
         cases: [ Static(id: "s"), Sudden(id: "su", mass: "load") ])"#;
     let a = analysed(flat);
-    assert!(has_warning(&a, "is below 30 deg"), "{:?}", a.cases[0].warnings);
+    assert!(has_warning(&a, WarningKind::LowSlingAngle, "is below 30 deg"), "{:?}", a.cases[0].warnings);
     // ASME B30.9 load-angle factor 1/sin β, here β = atan(1/3) = 18.4°: 3.162
     let f = a.cases[0].members[0].force_n / (100.0 * G / 2.0);
     assert!(rel(f, 1.0 / (1.0_f64).atan2(3.0).sin()) < 5e-3, "{f}");
@@ -268,7 +274,7 @@ fn each_state_and_warning_is_raised() {
     let a = analysed(tie);
     let spreader = &a.cases[0].members[2];
     assert!(spreader.force_n > 0.0 && spreader.sling_angle_deg < 0.5, "{spreader:?}");
-    assert!(!has_warning(&a, "member spreader: runs level"), "{:?}", a.cases[0].warnings);
+    assert!(!has_warning(&a, WarningKind::LevelLeg, "member spreader: runs level"), "{:?}", a.cases[0].warnings);
     assert!(!a.cases[0].warnings.iter().any(|w| w.contains("spreader") && w.contains("sling angle")));
 
     // dynamic case far above static: a drop on a stiff line
@@ -277,7 +283,7 @@ fn each_state_and_warning_is_raised() {
         "100 kg",
         r#"Static(id: "s"), Drop(id: "d", mass: "load", height: "0.05 m")"#,
     ));
-    assert!(has_warning(&a, "x its static"));
+    assert!(has_warning(&a, WarningKind::DynamicRatio, "x its static"));
 
     // floor contact that lifts off: a pretensioned rope pulls a floor node up
     let lift = r#"Scenario(format: 1, title: "lift",
@@ -290,7 +296,7 @@ fn each_state_and_warning_is_raised() {
     let fl = &a.cases[0].floors[0];
     assert_eq!(fl.state, State::Slack);
     assert!(fl.normal_force_n == 0.0);
-    assert!(has_warning(&a, "floor s: contact lifts off"));
+    assert!(has_warning(&a, WarningKind::FloorLifts, "floor s: contact lifts off"));
     // the tie then carries the box's weight alone (the node hangs from it)
     assert!(rel(a.cases[0].members[0].force_n, 50.0 * G) < 1e-6);
 
@@ -311,11 +317,15 @@ fn each_state_and_warning_is_raised() {
         "300 kg",
         r#"Static(id: "s")"#,
     ));
-    assert!(has_warning(&a, "outside the model's validity"));
+    assert!(has_warning(&a, WarningKind::SteelStrain, "outside the model's validity"));
 
     // design factor below the kind's default
     let a = analysed(&single_line(&format!("{STEEL_LINE}, design_factor: 3.0"), "100 kg", r#"Static(id: "s")"#));
-    assert!(has_warning(&a, "design factor 3 is below the wire rope default of 5 (ASME B30.9"));
+    assert!(has_warning(
+        &a,
+        WarningKind::DesignFactorLow,
+        "design factor 3 is below the wire rope default of 5 (ASME B30.9"
+    ));
 
     // own-weight sag beyond 1/8: a heavy cable pulled nearly straight by a light
     // pretension, its far end hung from a plumb rope
@@ -326,7 +336,7 @@ fn each_state_and_warning_is_raised() {
         masses: [ Mass(id: "lamp", at: "M", mass: "2 kg") ],
         cases: [ Static(id: "s") ])"#;
     let a = analysed(sag);
-    assert!(has_warning(&a, "sag/span"), "{:?}", a.cases[0].warnings);
+    assert!(has_warning(&a, WarningKind::SagRatio, "sag/span"), "{:?}", a.cases[0].warnings);
 
     // soft line in a swing: nylon
     let nylon = single_line(
@@ -335,7 +345,7 @@ fn each_state_and_warning_is_raised() {
         r#"Static(id: "s"), Swing(id: "w", mass: "load", release: "60 deg")"#,
     );
     let a = analysed(&nylon);
-    assert!(has_warning(&a, "soft line"), "{:?}", a.cases[1].warnings);
+    assert!(has_warning(&a, WarningKind::SoftLine, "soft line"), "{:?}", a.cases[1].warnings);
 
     // stress waves: a short, stiff steel rod arresting a hard drop
     let rod = single_line(
@@ -344,11 +354,11 @@ fn each_state_and_warning_is_raised() {
         r#"Static(id: "s"), Drop(id: "d", mass: "load", height: "0.5 m")"#,
     );
     let a = analysed(&rod);
-    assert!(has_warning(&a, "stress-wave transits"), "{:?}", a.cases[1].warnings);
+    assert!(has_warning(&a, WarningKind::WaveTransit, "stress-wave transits"), "{:?}", a.cases[1].warnings);
 
     // rod in compression over its buckling allowable (the mezzanine tripod's drop)
     let a = analysed(&example("mezzanine-hoist.ron"));
-    assert!(has_warning(&a, "over its buckling allowable"));
+    assert!(has_warning(&a, WarningKind::MemberOver, "over its buckling allowable"));
 }
 
 // The release limit of a single line inverts the swing formula: at the

@@ -315,6 +315,9 @@ fn lifted_foot_with_a_horizontal_reaction_is_reported() {
     assert_eq!(fb.state, State::Over);
     assert_eq!(f.state, State::Over);
     assert!(a.cases[0].warnings.iter().any(|w| w.contains("foot b has lifted off yet needs a horizontal reaction")));
+    // its kind: a foot over on friction
+    assert!(a.cases[0].warning_items.iter().any(|w| w.kind == tautspan_core::analysis::WarningKind::FootOver
+        && w.message.contains("foot b has lifted off yet needs a horizontal reaction")));
     // the plate under b still deflects from a's load
     let panel = l.scenario.floors[0].plate.as_ref().unwrap();
     assert!(panel.deflection_at(&[fa.normal_force_n, 0.0], [2.4, 2.0]) > 0.0);

@@ -6,7 +6,7 @@
 
 #![allow(clippy::expect_used, clippy::unwrap_used, reason = "test helpers fail loudly on broken fixtures")]
 
-use tautspan_core::analysis::{Analysis, State, Verdict, analyse};
+use tautspan_core::analysis::{Analysis, State, Verdict, WarningKind, analyse};
 use tautspan_core::model::load_scenario;
 use tautspan_core::output::check_json;
 
@@ -22,8 +22,15 @@ fn analysed(text: &str) -> Analysis {
     analyse(&l.scenario)
 }
 
+/// Some case has a warning containing `needle` (each warning on its own:
+/// `warnings` holds one group per kind, whose text is the first one's).
 fn warned(a: &Analysis, needle: &str) -> bool {
-    a.cases.iter().any(|c| c.warnings.iter().any(|w| w.contains(needle)))
+    a.cases.iter().any(|c| c.warning_items.iter().any(|w| w.message.contains(needle)))
+}
+
+/// As [`warned`], of the given kind (the kind its group is named by).
+fn warned_as(a: &Analysis, kind: WarningKind, needle: &str) -> bool {
+    a.cases.iter().any(|c| c.warning_items.iter().any(|w| w.kind == kind && w.message.contains(needle)))
 }
 
 /// A symmetric two-leg bridle: anchors at (±`half` m, 5 m), the ring at
@@ -79,7 +86,11 @@ fn shackle_on_a_leg_carries_the_leg_force_and_counts_in_the_verdict() {
     assert_eq!(s.state, State::Over);
     assert!(rel(s.utilisation, leg / (500.0 * G)) < 1e-4, "{}", s.utilisation);
     assert_eq!(a.verdict(), Verdict::NotWithin);
-    assert!(warned(&a, "shackle west/shackle:") && warned(&a, "is over its WLL 4.903 kN"), "{:?}", a.cases[0].warnings);
+    assert!(
+        warned_as(&a, WarningKind::PartOver, "shackle west/shackle:") && warned(&a, "is over its WLL 4.903 kN"),
+        "{:?}",
+        a.cases[0].warnings
+    );
     // the member itself is well within: the part alone fails the verdict
     assert_eq!(a.cases[0].members[0].state, State::Ok);
     // JSON: the member entry has fittings[] with kind, wll_n, force_n, utilisation, state
@@ -140,7 +151,11 @@ fn eye_bolts_are_derated_by_the_angle_from_their_axis() {
     assert_eq!(e.state, State::Over);
     assert!(e.reason.as_deref().unwrap().contains("in-line pull only"), "{e:?}");
     assert_eq!(a.verdict(), Verdict::NotWithin);
-    assert!(warned(&a, "eye bolt west/eye bolt: OVER in case s: plain (shoulderless) eye bolt pulled 26.6 deg"));
+    assert!(warned_as(
+        &a,
+        WarningKind::PartOver,
+        "eye bolt west/eye bolt: OVER in case s: plain (shoulderless) eye bolt pulled 26.6 deg"
+    ));
 }
 
 #[test]
@@ -165,7 +180,11 @@ fn rated_anchor_is_checked_on_the_reaction() {
     // rated 5 kN: 5482 N is over
     let a = analysed(&bridle("1 m", "1000 kg", "", "", r#", rated: "5 kN""#));
     assert_eq!(a.verdict(), Verdict::NotWithin);
-    assert!(warned(&a, "rated anchor A/anchor: 5.482 kN is over its WLL 5 kN"), "{:?}", a.cases[0].warnings);
+    assert!(
+        warned_as(&a, WarningKind::PartOver, "rated anchor A/anchor: 5.482 kN is over its WLL 5 kN"),
+        "{:?}",
+        a.cases[0].warnings
+    );
 }
 
 /// A hoist hung from anchor A at (`x` m, 5 m) down to the load at (0, 1 m),
@@ -202,7 +221,11 @@ fn hoist_side_pull_against_the_makers_limit() {
     // no limit entered: no made-up default, an advisory with the angle
     let a = analysed(&hoist_rig("0.4 m", r#"Hoist(wll: "1 t")"#));
     assert_eq!(a.cases[0].members[0].fittings[0].state, State::Ok);
-    assert!(warned(&a, "hoist hoist/hoist: pulled 5.71 deg off plumb in case s; no side-pull limit entered"));
+    assert!(warned_as(
+        &a,
+        WarningKind::HoistSidePull,
+        "hoist hoist/hoist: pulled 5.71 deg off plumb in case s; no side-pull limit entered"
+    ));
 
     // plumb: nothing to ask
     let a = analysed(&hoist_rig("0 m", r#"Hoist(wll: "1 t")"#));
@@ -234,7 +257,7 @@ fn sling_angle_warning_for_sling_legs_only() {
     let flat = bridle("3 m", "100 kg", "", "", "").replace(r#"("0 m", "3 m")"#, r#"("0 m", "4 m")"#);
     let a = analysed(&flat);
     assert!(
-        warned(&a, "member west: sling angle 18.4 deg from horizontal is below 30 deg"),
+        warned_as(&a, WarningKind::LowSlingAngle, "member west: sling angle 18.4 deg from horizontal is below 30 deg"),
         "{:?}",
         a.cases[0].warnings
     );
@@ -316,11 +339,11 @@ fn sling_angle_warning_for_legs_gathered_at_the_hook() {
         cases: [ Static(id: "s") ])"#;
     let a = analysed(text);
     assert!(
-        warned(&a, "member leg-1: sling angle 18.4 deg from horizontal is below 30 deg"),
+        warned_as(&a, WarningKind::LowSlingAngle, "member leg-1: sling angle 18.4 deg from horizontal is below 30 deg"),
         "{:?}",
         a.cases[0].warnings
     );
-    assert!(warned(&a, "member leg-2: sling angle 18.4 deg"));
+    assert!(warned_as(&a, WarningKind::LowSlingAngle, "member leg-2: sling angle 18.4 deg"));
     // the load's body is a level strut, not a leg
     assert!(!warned(&a, "member body: sling angle") && !warned(&a, "member body: runs level"));
 }

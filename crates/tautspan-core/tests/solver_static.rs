@@ -314,8 +314,14 @@ fn load_paths_follow_force_carrying_members() {
     let eq = solve_static(&net, &opts()).unwrap();
     let paths = load_paths(&net, &eq, &loads, 1e-9);
     assert_eq!(paths.len(), 2);
-    assert_eq!((paths[0].node, paths[0].members.clone(), paths[0].supports.clone()), (4, vec![0, 1], vec![0, 1]));
-    assert_eq!((paths[1].node, paths[1].members.clone(), paths[1].supports.clone()), (5, vec![3], vec![2]));
+    let ids = |v: &[(usize, f64)]| v.iter().map(|x| x.0).collect::<Vec<_>>();
+    assert_eq!((paths[0].node, ids(&paths[0].members), ids(&paths[0].supports)), (4, vec![0, 1], vec![0, 1]));
+    assert_eq!((paths[1].node, ids(&paths[1].members), ids(&paths[1].supports)), (5, vec![3], vec![2]));
+    // symmetric legs: half the weight each (statics); the single line all of it
+    for (_, share) in paths[0].members.iter().chain(&paths[0].supports) {
+        assert!(rel(*share, 0.5) < 1e-9, "{share}");
+    }
+    assert!(rel(paths[1].members[0].1, 1.0) < 1e-12);
 }
 
 #[test]

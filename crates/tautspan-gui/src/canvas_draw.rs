@@ -196,9 +196,10 @@ pub fn draw(
         Selection::Node(n) => geo.masses.iter().find(|m| &m.at == n).map(|m| m.id.clone()),
         _ => None,
     };
-    let path: Vec<&str> = path_mass
+    // members carrying at least the threshold share of its weight, with their shares
+    let path: HashMap<&str, f64> = path_mass
         .and_then(|m| case?.load_path.iter().find(|p| p.mass == m))
-        .map(|p| p.members.iter().map(String::as_str).collect())
+        .map(|p| p.members.iter().map(String::as_str).zip(p.shares.iter().copied()).collect())
         .unwrap_or_default();
 
     let results: HashMap<&str, &MemberResult> =
@@ -211,19 +212,25 @@ pub fn draw(
         pts.iter().fold(Pos2::ZERO, |acc, p| acc + p.to_vec2() / n)
     };
     let mut labels = Vec::new();
+    // every member's strokes gathered and handed to the painter at once (a
+    // large net has tens of thousands; one call each costs more than drawing)
+    let mut shapes: Vec<Shape> = Vec::with_capacity(geo.members.len() * 2);
     for (k, m) in geo.members.iter().enumerate() {
         let (Some(a), Some(b)) = (geo.node(&m.ends.0), geo.node(&m.ends.1)) else { continue };
         let (sa, sb) = (view.to_screen(a.pos_m[0], a.pos_m[1]), view.to_screen(b.pos_m[0], b.pos_m[1]));
         let result = results.get(m.id.as_str()).copied();
         let picked = *input.selection == Selection::Member(m.id.clone());
-        if path.contains(&m.id.as_str()) {
-            painter.line_segment([sa, sb], Stroke::new(16.0, PATH_GLOW));
+        if let Some(share) = path.get(m.id.as_str()) {
+            // the glow widens with the member's share of the mass's weight
+            shapes
+                .push(Shape::line_segment([sa, sb], Stroke::new(8.0 + 8.0 * share.clamp(0.0, 1.0) as f32, PATH_GLOW)));
         }
         if picked {
-            painter.line_segment([sa, sb], Stroke::new(11.0, PICK));
+            shapes.push(Shape::line_segment([sa, sb], Stroke::new(11.0, PICK)));
         }
-        line(painter, sa, sb, result);
+        line(&mut shapes, painter, sa, sb, result);
         if !m.parts.is_empty() {
+            painter.extend(std::mem::take(&mut shapes));
             parts_mark(painter, parts_mark_at(sa, sb), m.parts.len());
         }
         if input.labels
@@ -243,13 +250,16 @@ pub fn draw(
         let result = results.get(r.id.as_str()).copied();
         let picked = *input.selection == Selection::Rope(r.id.clone());
         for &(sa, sb) in &spans {
-            if path.contains(&r.id.as_str()) {
-                painter.line_segment([sa, sb], Stroke::new(16.0, PATH_GLOW));
+            if let Some(share) = path.get(r.id.as_str()) {
+                shapes.push(Shape::line_segment(
+                    [sa, sb],
+                    Stroke::new(8.0 + 8.0 * share.clamp(0.0, 1.0) as f32, PATH_GLOW),
+                ));
             }
             if picked {
-                painter.line_segment([sa, sb], Stroke::new(11.0, PICK));
+                shapes.push(Shape::line_segment([sa, sb], Stroke::new(11.0, PICK)));
             }
-            line(painter, sa, sb, result);
+            line(&mut shapes, painter, sa, sb, result);
         }
         let longest = spans.iter().max_by(|x, y| x.0.distance(x.1).total_cmp(&y.0.distance(y.1)));
         if input.labels
@@ -259,6 +269,7 @@ pub fn draw(
             labels.push(Candidate { member, ends: [sa, sb], utilisation: res.utilisation, picked });
         }
     }
+    painter.extend(shapes);
     for n in &geo.nodes {
         if let Some(d) = n.sheave_m {
             sheave_symbol(painter, view, view.to_screen(n.pos_m[0], n.pos_m[1]), d);
@@ -310,12 +321,21 @@ pub fn draw(
         painter.extend(Shape::dashed_line(&route, Stroke::new(2.0, PICK), 6.0, 4.0));
     }
 
+    // names and mass boxes only where they can be read: with more joints
+    // than fit one a 40 × 40 pt square of the canvas, a small mark instead
+    let readable = view.rect.area() / geo.nodes.len().max(1) as f32 >= READABLE_PT * READABLE_PT;
+    let mut marks: Vec<Shape> = Vec::new();
     for m in &geo.masses {
         let (Some(n), Some(r)) = (geo.node(&m.at), mass_rect(geo, view, m)) else { continue };
+        let picked = *input.selection == Selection::Mass(m.id.clone());
+        if !readable && !picked {
+            let p = view.to_screen(n.pos_m[0], n.pos_m[1]);
+            marks.push(Shape::rect_filled(Rect::from_center_size(p + vec2(0.0, 6.0), vec2(5.0, 5.0)), 0.0, MASS_FILL));
+            continue;
+        }
         let p = view.to_screen(n.pos_m[0], n.pos_m[1]);
         painter.line_segment([p, r.center_top()], Stroke::new(1.5, INK));
-        let picked = *input.selection == Selection::Mass(m.id.clone());
-        painter.rect_filled(r, 3.0, Color32::from_rgb(0x4b, 0x4f, 0x5a));
+        painter.rect_filled(r, 3.0, MASS_FILL);
         if picked {
             painter.rect_stroke(r.expand(2.0), 3.0, Stroke::new(2.5, PICK), egui::StrokeKind::Outside);
         }
@@ -323,7 +343,10 @@ pub fn draw(
         painter.text(r.center(), Align2::CENTER_CENTER, text, FontId::proportional(11.0), Color32::WHITE);
     }
 
+    painter.extend(marks);
     let stroke = Stroke::new(1.5, INK);
+    let mut joints: Vec<Shape> = Vec::with_capacity(geo.nodes.len() * 2);
+    let mut names: Vec<(Pos2, &str)> = Vec::new();
     for n in &geo.nodes {
         let p = view.to_screen(n.pos_m[0], n.pos_m[1]);
         if *input.selection == Selection::Node(n.id.clone())
@@ -335,8 +358,8 @@ pub fn draw(
         match n.support {
             SupportDto::Anchor => anchor_symbol(painter, p, stroke),
             SupportDto::Joint => {
-                painter.circle_filled(p, 5.5, Color32::WHITE);
-                painter.circle_stroke(p, 5.5, Stroke::new(2.0, INK));
+                joints.push(Shape::circle_filled(p, 5.5, Color32::WHITE));
+                joints.push(Shape::circle_stroke(p, 5.5, Stroke::new(2.0, INK)));
             }
             SupportDto::Floor(_) => {
                 painter.add(Shape::convex_polygon(
@@ -346,31 +369,45 @@ pub fn draw(
                 ));
             }
         }
-        painter.text(p + vec2(9.0, 9.0), Align2::LEFT_TOP, &n.id, FontId::proportional(11.0), CASING);
+        if readable {
+            names.push((p, n.id.as_str()));
+        }
+    }
+    painter.extend(joints);
+    for (p, id) in names {
+        painter.text(p + vec2(9.0, 9.0), Align2::LEFT_TOP, id, FontId::proportional(11.0), CASING);
     }
     // in the deflected view the caption holds the top left; the legend goes below it
     let legend_top = if deflection.is_some() { CAPTION_HEIGHT + 16.0 } else { 12.0 };
     legend(painter, view, input.derived.solved.as_ref().map(|s| s.scenario.near_limit).unwrap_or(0.8), legend_top);
 }
 
-/// One member or rope span: shaded by utilisation, dashed when slack, heavy
-/// and hatched when over, grey before there are results.
-fn line(painter: &Painter, sa: Pos2, sb: Pos2, result: Option<&MemberResult>) {
+/// One member or rope span into `shapes`: shaded by utilisation, dashed
+/// when slack, heavy and hatched when over, grey before there are results.
+fn line(shapes: &mut Vec<Shape>, painter: &Painter, sa: Pos2, sb: Pos2, result: Option<&MemberResult>) {
     let (col, width, state) = match result {
         Some(r) => (colour(r.utilisation), if r.state == State::Over { 6.0 } else { 3.5 }, Some(r.state)),
         None => (UNSOLVED, 3.0, None),
     };
     if state == Some(State::Slack) {
-        painter.extend(Shape::dashed_line(&[sa, sb], Stroke::new(width + 1.5, CASING), 9.0, 6.0));
-        painter.extend(Shape::dashed_line(&[sa, sb], Stroke::new(width, col), 9.0, 6.0));
+        shapes.extend(Shape::dashed_line(&[sa, sb], Stroke::new(width + 1.5, CASING), 9.0, 6.0));
+        shapes.extend(Shape::dashed_line(&[sa, sb], Stroke::new(width, col), 9.0, 6.0));
     } else {
-        painter.line_segment([sa, sb], Stroke::new(width + 2.0, CASING));
-        painter.line_segment([sa, sb], Stroke::new(width, col));
+        shapes.push(Shape::line_segment([sa, sb], Stroke::new(width + 2.0, CASING)));
+        shapes.push(Shape::line_segment([sa, sb], Stroke::new(width, col)));
         if state == Some(State::Over) {
+            painter.extend(std::mem::take(shapes));
             hatch_over(painter, sa, sb, CASING);
         }
     }
 }
+
+/// Canvas room a joint needs, pt square, for its name and mass box to be
+/// drawn (fewer room: they would only cover each other).
+const READABLE_PT: f32 = 40.0;
+
+/// Fill of a mass's box.
+const MASS_FILL: Color32 = Color32::from_rgb(0x4b, 0x4f, 0x5a);
 
 /// Height the deflected view's caption takes at the top of the canvas, pt.
 const CAPTION_HEIGHT: f32 = 48.0;

@@ -5,7 +5,8 @@
 
 use std::time::Instant;
 use tautspan_core::analysis::{
-    Analysis, CaseSimulation, Prior, SimulateRequest, analyse_from, member_allowable, release_curve, simulate_case,
+    Analysis, CaseSimulation, Prior, SimulateRequest, WarningGroup, analyse_from, member_allowable, release_curve,
+    simulate_case,
 };
 use tautspan_core::file::ScenarioDto;
 use tautspan_core::model::{Problem, Scenario, build};
@@ -20,6 +21,9 @@ pub struct Solved {
     pub analysis: Analysis,
     /// Wall time of validation and analysis, ms.
     pub solve_ms: f64,
+    /// The warnings grouped by kind: the scenario's (case `None`), then
+    /// each case's; grouped once here, off the UI thread.
+    pub warning_groups: Vec<(Option<String>, WarningGroup)>,
 }
 
 /// Validate and analyse a document. With a `prior` answer (the previous
@@ -42,7 +46,13 @@ pub fn validate(dto: &ScenarioDto) -> Result<Scenario, Vec<Problem>> {
 pub fn analyse_model(scenario: Scenario, prior: Option<&Solved>, start: Instant) -> Solved {
     let prior = prior.map(|p| Prior { scenario: &p.scenario, analysis: &p.analysis });
     let analysis = analyse_from(&scenario, prior);
-    Solved { scenario, analysis, solve_ms: start.elapsed().as_secs_f64() * 1e3 }
+    let warning_groups = analysis
+        .warning_groups()
+        .into_iter()
+        .map(|g| (None, g))
+        .chain(analysis.cases.iter().flat_map(|c| c.warning_groups().into_iter().map(|g| (Some(c.id.clone()), g))))
+        .collect();
+    Solved { scenario, analysis, solve_ms: start.elapsed().as_secs_f64() * 1e3, warning_groups }
 }
 
 /// How a member's allowable was found, in words (formula, inputs, sources).

@@ -263,10 +263,24 @@ fn mass(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, bufs: &mut FieldBuffe
     });
     if let Some(p) = input.derived.case(input.case).and_then(|c| c.load_path.iter().find(|p| p.mass == m.id)) {
         ui.separator();
-        ui.label(format!("Load path: {}", p.members.join(", ")));
-        ui.label(format!("Reaches: {}", p.supports.join(", ")));
+        let listed = |ids: &[String], shares: &[f64]| {
+            let named: Vec<String> = ids.iter().zip(shares).map(|(id, f)| format!("{id} {:.0} %", f * 100.0)).collect();
+            tautspan_core::analysis::first_few(&named, PATH_NAMED)
+        };
+        ui.label(format!(
+            "Load path (members carrying at least {:.0} % of its weight): {}",
+            tautspan_core::analysis::LOAD_PATH_THRESHOLD * 100.0,
+            listed(&p.members, &p.shares)
+        ));
+        if p.below_threshold > 0 {
+            ui.label(RichText::new(format!("{} more members carry less each", p.below_threshold)).weak());
+        }
+        ui.label(format!("Reaches: {}", listed(&p.supports, &p.support_shares)));
     }
 }
+
+/// Members (and supports) of a load path named in the inspector; "and N more".
+const PATH_NAMED: usize = 6;
 
 fn floor(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, bufs: &mut FieldBuffers, out: &mut Vec<Command>) {
     let f = &input.doc.dto.floors[i];

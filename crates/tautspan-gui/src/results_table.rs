@@ -9,6 +9,7 @@ use crate::derived::Derived;
 use crate::selection::Selection;
 use crate::units_display::{Shown, UnitSystem, fmt_utilisation};
 use egui::{RichText, Ui};
+use std::borrow::Cow;
 use tautspan_core::analysis::{FittingResult, State};
 
 /// The column the table is sorted by.
@@ -53,10 +54,11 @@ struct Row<'a> {
     case: usize,
     /// Members in file order, then parts in the analysis's order.
     order: usize,
-    /// Shown id (`leg-1`, `leg-1/shackle`).
-    id: String,
+    /// Shown id (`leg-1`, `leg-1/shackle`); a member's borrowed (no copy
+    /// of every id every frame on a large rig).
+    id: Cow<'a, str>,
     /// The member or node the row belongs to.
-    owner: String,
+    owner: Cow<'a, str>,
     force_n: f64,
     allowable_n: f64,
     utilisation: f64,
@@ -98,8 +100,8 @@ pub fn ui(
             let members = cr.members.iter().enumerate().map(move |(k, m)| Row {
                 case: c,
                 order: k,
-                id: m.id.clone(),
-                owner: m.id.clone(),
+                id: Cow::Borrowed(m.id.as_str()),
+                owner: Cow::Borrowed(m.id.as_str()),
                 force_n: m.force_n,
                 allowable_n: m.allowable_n,
                 utilisation: m.utilisation,
@@ -110,8 +112,8 @@ pub fn ui(
             let parts = cr.part_ids().into_iter().zip(cr.parts()).enumerate().map(move |(k, (id, p))| Row {
                 case: c,
                 order: n + k,
-                owner: id.split('/').next().unwrap_or_default().to_string(),
-                id,
+                owner: Cow::Owned(id.split('/').next().unwrap_or_default().to_string()),
+                id: Cow::Owned(id),
                 force_n: p.force_n,
                 allowable_n: p.wll_n,
                 utilisation: p.utilisation,
@@ -159,14 +161,14 @@ pub fn ui(
             let case = &a.cases[r.case];
             let resp = ui.horizontal(|ui| {
                 // a part selects what it belongs to: its member, else its node
-                let target = if case.members.iter().any(|m| m.id == r.owner) {
+                let target = if case.members.iter().any(|m| m.id == *r.owner) {
                     // ropes are among the members' results
                     Selection::of_member_result(&solved.scenario, &r.owner)
                 } else {
-                    Selection::Node(r.owner.clone())
+                    Selection::Node(r.owner.to_string())
                 };
                 let picked = r.part.is_none() && *selection == target;
-                if ui.add_sized([COLUMNS[0].2, row_h], egui::Button::selectable(picked, r.id.as_str())).clicked() {
+                if ui.add_sized([COLUMNS[0].2, row_h], egui::Button::selectable(picked, r.id.as_ref())).clicked() {
                     out.push(Command::Select(target));
                     out.push(Command::ShowCase(case.id.clone()));
                 }
@@ -182,7 +184,7 @@ pub fn ui(
                     st
                 };
                 ui.add_sized([COLUMNS[5].2, row_h], egui::Label::new(st));
-                let limits = a.comparison.iter().find(|row| row.id == r.id).map(|row| &row.limits);
+                let limits = a.comparison.iter().find(|row| row.id == *r.id).map(|row| &row.limits);
                 let text = limits
                     .map(|l| {
                         let mut parts = Vec::new();

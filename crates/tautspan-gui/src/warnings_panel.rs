@@ -9,7 +9,7 @@ use crate::qty_field::ERROR;
 use crate::selection::Selection;
 use egui::{RichText, Ui};
 
-/// Warnings listed before the rest are offered behind a button.
+/// Warning groups listed before the rest are offered behind a button.
 const SHOWN_FIRST: usize = 20;
 
 fn subject_selection(doc: &Document, subject: &str) -> Selection {
@@ -64,34 +64,30 @@ pub fn ui(ui: &mut Ui, doc: &Document, derived: &Derived, out: &mut Vec<Command>
         return;
     }
     let Some(solved) = derived.solved.as_ref() else { return };
-    let all = solved.analysis.warnings.iter().map(|w| (None, w)).chain(
-        solved.analysis.cases.iter().flat_map(|c| c.warning_items.iter().map(move |w| (Some(c.id.as_str()), w))),
-    );
-    let total =
-        solved.analysis.warnings.len() + solved.analysis.cases.iter().map(|c| c.warning_items.len()).sum::<usize>();
+    // one line per kind and case (grouped off the UI thread), the first
+    // subjects named and "and N more"; a click selects the first subject
+    let groups = &solved.warning_groups;
+    let total = groups.len();
     if total == 0 {
         ui.label(RichText::new("None.").weak());
         return;
     }
-    // a large rig can carry a warning per member: list the first ones and
-    // offer the rest, so the panel is not laid out a thousand lines a frame
     let show_all_id = ui.scope_id().with("show-all-warnings");
     let show_all = ui.data(|d| d.get_temp::<bool>(show_all_id)).unwrap_or(false);
     let shown = if show_all { total } else { total.min(SHOWN_FIRST) };
-    for (case, w) in all.take(shown) {
+    for (case, g) in groups.iter().take(shown) {
         let text = match case {
-            Some(c) => format!("[{c}] {}", w.message),
-            None => w.message.clone(),
+            Some(c) => format!("[{c}] {}", g.message),
+            None => g.message.clone(),
         };
         if ui.link(text).clicked() {
-            // looked up on the click only: the lists are long on a large rig
-            if let Some(sel) = w.subject.as_deref().map(|s| subject_selection(doc, s))
+            if let Some(sel) = g.subjects.first().map(|s| subject_selection(doc, s))
                 && sel != Selection::None
             {
                 out.push(Command::Select(sel));
             }
             if let Some(c) = case {
-                out.push(Command::ShowCase(c.to_string()));
+                out.push(Command::ShowCase(c.clone()));
             }
         }
     }

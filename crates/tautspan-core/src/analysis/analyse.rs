@@ -5,9 +5,11 @@
 use super::evaluate::{Allowables, Evaluated, evaluate};
 use super::formulas::{arrest_time_s, drop_factor, height_for_factor, swing_factor};
 use super::limits::{LimitSearch, predict_start, search_limits};
+use super::load_paths::load_path_results;
 use super::results::{Analysis, ArcSummary, CaseResult, ComparisonRow, DynamicLoad, Limits, Warning};
 use super::scope::scope;
 use super::swing_arc::{Arc, ReleaseLimits, SwingSetup, arc_loads, release_limits, sweep};
+use super::warning_kind::WarningKind;
 use super::warnings::case_warnings;
 use crate::CAUTION;
 use crate::library::MemberKind;
@@ -45,7 +47,7 @@ fn failed_case(case: &Case, message: String) -> CaseResult {
         kind: case.kind_name().to_string(),
         error: Some(message.clone()),
         warnings: vec![message.clone()],
-        warning_items: vec![Warning { subject: None, message }],
+        warning_items: vec![Warning { kind: WarningKind::CaseFailed, subject: None, message }],
         ..empty_case()
     }
 }
@@ -67,6 +69,7 @@ fn empty_case() -> CaseResult {
         nodes: Vec::new(),
         supports: Vec::new(),
         load_path: Vec::new(),
+        combined_load_path: None,
         limits: Limits::default(),
         warnings: Vec::new(),
         warning_items: Vec::new(),
@@ -107,6 +110,7 @@ fn solved_case(
     dynamic: Option<DynamicLoad>,
 ) -> Solved {
     let ev = evaluate(s, net, a, loads, &eq);
+    let (load_path, combined_load_path) = load_path_results(s, net, &eq, dynamic.as_ref());
     Solved {
         result: CaseResult {
             id: case.id().to_string(),
@@ -121,7 +125,8 @@ fn solved_case(
             floors: ev.floors,
             nodes: ev.nodes,
             supports: ev.supports,
-            load_path: ev.load_path,
+            load_path,
+            combined_load_path,
             limits: Limits::default(),
             warnings: Vec::new(),
             warning_items: Vec::new(),
@@ -133,10 +138,12 @@ fn solved_case(
 /// Scenario-wide warnings: design factors below the kind's default.
 fn input_warnings(s: &Scenario) -> Vec<Warning> {
     let mut w = Vec::new();
+    let whole_kinds = kinds_without_weight(s);
     for m in &s.members {
         let df = &m.design_factor;
         if df.from_file && df.value < df.default.value - 1e-12 {
             w.push(Warning {
+                kind: WarningKind::DesignFactorLow,
                 subject: Some(m.id.clone()),
                 message: format!(
                     "member {}: design factor {} is below the {} default of {} ({})",
@@ -148,14 +155,48 @@ fn input_warnings(s: &Scenario) -> Vec<Warning> {
                 ),
             });
         }
-        if m.linear_mass.value == 0.0 {
+        // said once in the assumptions where it holds for every member of the kind
+        if m.linear_mass.value == 0.0 && !whole_kinds.contains(&m.kind) {
             w.push(Warning {
+                kind: WarningKind::OwnWeightUnknown,
                 subject: Some(m.id.clone()),
-                message: format!("member {}: own weight not known and left out ({})", m.id, m.weight_note),
+                message: format!("member {}: own weight not known and left out (give `linear_mass`)", m.id),
             });
         }
     }
     w
+}
+
+/// The member kinds none of whose members has a known own weight, in the
+/// order they first occur (one pass over the members).
+fn kinds_without_weight(s: &Scenario) -> Vec<MemberKind> {
+    // (kind, every member of it without own weight so far)
+    let mut kinds: Vec<(MemberKind, bool)> = Vec::new();
+    for m in &s.members {
+        let unknown = m.linear_mass.value == 0.0;
+        match kinds.iter_mut().find(|k| k.0 == m.kind) {
+            Some(k) => k.1 &= unknown,
+            None => kinds.push((m.kind, unknown)),
+        }
+    }
+    kinds.into_iter().filter(|k| k.1).map(|k| k.0).collect()
+}
+
+/// The assumption for each member kind none of whose members has a known
+/// own weight (instead of a warning on every member).
+fn own_weight_assumptions(s: &Scenario) -> Vec<String> {
+    kinds_without_weight(s)
+        .into_iter()
+        .map(|k| {
+            let n = s.members.iter().filter(|m| m.kind == k).count();
+            format!(
+                "Own weight of the {} member{} ({}) not known and left out: no construction, material or `linear_mass` given; give `linear_mass` to include it.",
+                n,
+                if n == 1 { "" } else { "s" },
+                k.label()
+            )
+        })
+        .collect()
 }
 
 /// The assumptions printed beside every result.
@@ -185,6 +226,11 @@ pub fn assumptions(s: &Scenario) -> Vec<String> {
         )
     }))
     .collect::<Vec<String>>();
+    v.extend(own_weight_assumptions(s));
+    v.push(format!(
+        "Load path: each mass's weight is traced through the solved vertical member forces to the supports, split at every joint among the members holding it up in proportion to their vertical forces; a member's share is the fraction of the mass's weight it carries. Members and supports carrying at least {} % of a mass's weight are listed with their shares, the rest counted; the combined path traces all masses together.",
+        format_number(super::load_paths::LOAD_PATH_THRESHOLD * 100.0, 3)
+    ));
     let (multiplier, why) = s.duty.multiplier();
     v.push(if multiplier == 1.0 {
         "Duty: standard (nobody under the load, no persons lifted); give `duty: OverPeople` or `duty: LiftingPersons` for higher design factors.".to_string()
@@ -350,19 +396,21 @@ pub fn analyse_from(s: &Scenario, prior: Option<Prior<'_>>) -> Analysis {
     };
     for (r, items) in results.iter_mut().zip(items) {
         if let Some(items) = items {
-            r.warnings = items.iter().map(|w| w.message.clone()).collect();
             r.warning_items = items;
+            r.warnings = r.warning_groups().into_iter().map(|g| g.message).collect();
         }
     }
     let comparison = match static_at.map(|i| &results[i]).or(fallback_static.as_ref()) {
         Some(st) => comparison(s, &allow, &results, st, &searches, &mass_limits, &swing_limits),
         None => Vec::new(),
     };
-    warnings.extend(
-        results.iter().filter_map(|r| {
-            r.error.as_ref().map(|e| Warning { subject: None, message: format!("case {}: {e}", r.id) })
-        }),
-    );
+    warnings.extend(results.iter().filter_map(|r| {
+        r.error.as_ref().map(|e| Warning {
+            kind: WarningKind::CaseFailed,
+            subject: None,
+            message: format!("case {}: {e}", r.id),
+        })
+    }));
     Analysis {
         title: s.title.clone(),
         caution: CAUTION.to_string(),
@@ -487,6 +535,7 @@ fn dynamic_warnings(
                 let strain = mr.stretch_m / (mr.length_m - mr.stretch_m).max(1e-12);
                 if s.members[i].kind == MemberKind::FibreRope && strain > 0.01 {
                     w.push(Warning {
+                        kind: WarningKind::SoftLine,
                         subject: Some(mr.id.clone()),
                         message: format!(
                             "member {}: soft line (stretch {} % at the swing peak); as a spring pendulum the peak can exceed the rigid-line value: run `tautspan simulate` on this case",
@@ -507,6 +556,7 @@ fn dynamic_warnings(
                 let transit = r.members[i].length_m / c_wave;
                 if t_arrest < WAVE_TRANSITS_NEEDED * transit {
                     w.push(Warning {
+                        kind: WarningKind::WaveTransit,
                         subject: Some(mem.id.clone()),
                         message: format!(
                             "member {}: arrest in {} ms is under {} stress-wave transits ({} ms each at {} m/s); the spring picture no longer holds, expect higher local forces",
@@ -743,6 +793,7 @@ fn run_swing(
         nodes: g.nodes.clone(),
         supports: g.supports.clone(),
         load_path: Vec::new(),
+        combined_load_path: None,
         limits: Limits::default(),
         warnings: Vec::new(),
         warning_items: Vec::new(),
@@ -800,7 +851,7 @@ fn run_swing(
         }
     }
     let low = arc.lowest();
-    r.load_path = ev.at(low).load_path.clone();
+    (r.load_path, r.combined_load_path) = load_path_results(s, net, &arc.samples[low].eq, r.dynamic.as_ref());
     if let Some(l) = &limits {
         r.limits.release_deg = l.critical_deg;
     }
@@ -822,6 +873,7 @@ fn slack_over_arc(s: &Scenario, c: &Case, arc: &Arc) -> Vec<Warning> {
             let lo = slack.iter().copied().fold(f64::INFINITY, f64::min);
             let hi = slack.iter().copied().fold(f64::NEG_INFINITY, f64::max);
             out.push(Warning {
+                kind: WarningKind::SlackOverArc,
                 subject: Some(m.id.clone()),
                 message: format!(
                     "member {}: goes slack over part of the swing in case {} (at {} of {} angles solved, between {} and {} deg), where it was meant to carry; it snatches when it takes up again (set may_go_slack if that is intended)",

@@ -4,11 +4,11 @@
 use super::allowable::{floor_allowable, member_allowable_n};
 use super::fittings::{anchor_rating, member_fittings, node_fittings, part_utilisations};
 use super::floor_check::floor_results;
-use super::results::{FloorResult, LoadPathResult, MemberResult, NodeResult, SegmentResult, State, SupportResult};
+use super::results::{FloorResult, MemberResult, NodeResult, SegmentResult, State, SupportResult};
 use super::strut::{Compression, compression};
 use crate::library::Carries;
 use crate::model::{Scenario, Support};
-use crate::solve::{Equilibrium, Network, load_paths_from};
+use crate::solve::{Equilibrium, Network};
 
 /// The allowables of a scenario, computed once.
 #[derive(Debug, Clone)]
@@ -84,8 +84,6 @@ pub struct Evaluated {
     pub nodes: Vec<NodeResult>,
     /// Supports.
     pub supports: Vec<SupportResult>,
-    /// Load paths.
-    pub load_path: Vec<LoadPathResult>,
 }
 
 /// Evaluate an equilibrium of scenario `s` under `loads`.
@@ -198,32 +196,5 @@ pub fn evaluate(s: &Scenario, net: &Network, a: &Allowables, loads: &[[f64; 3]],
             peak_at_deg: None,
         })
         .collect();
-    // walks only from the masses' nodes (those with a load): the paths shown
-    let mut starts: Vec<usize> = s
-        .masses
-        .iter()
-        .map(|m| m.node)
-        .filter(|&i| loads.get(i).is_some_and(|l| l.iter().any(|c| *c != 0.0)))
-        .collect();
-    starts.sort_unstable();
-    starts.dedup();
-    let paths = load_paths_from(net, eq, &starts, 1e-9);
-    let load_path = s
-        .masses
-        .iter()
-        .map(|m| {
-            let p = paths.iter().find(|p| p.node == m.node);
-            LoadPathResult {
-                mass: m.id.clone(),
-                members: p.map(|p| p.members.iter().map(|&k| s.members[k].id.clone()).collect()).unwrap_or_default(),
-                supports: match p {
-                    Some(p) => p.supports.iter().map(|&k| s.nodes[k].id.clone()).collect(),
-                    // a mass hung directly at a support is its own path
-                    None if s.nodes[m.node].support != Support::Joint => vec![s.nodes[m.node].id.clone()],
-                    None => Vec::new(),
-                },
-            }
-        })
-        .collect();
-    Evaluated { members, floors, nodes, supports, load_path }
+    Evaluated { members, floors, nodes, supports }
 }

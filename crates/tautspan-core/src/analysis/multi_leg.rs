@@ -78,6 +78,7 @@ pub fn multi_leg_warnings(s: &Scenario, r: &CaseResult, legs: &[bool]) -> Vec<Wa
                 g.legs.iter().map(|(id, f)| format!("{id} {} kN", Sig(f / 1e3, 4))).collect();
             let over = g.carried_vertical_n > g.standard_vertical_n;
             Warning {
+                kind: super::warning_kind::WarningKind::MultiLeg,
                 subject: Some(g.node.clone()),
                 message: format!(
                     "gathering point {}: {} sling legs in case {}; EN 818-4 / EN 13414-2 count two legs of a 3- or 4-leg sling on a rigid load (from memory): 2 x weakest leg allowable {} kN x cos {} deg = {} kN vertical, against {} kN carried{}; the solve shares it: {}",

@@ -3,6 +3,8 @@
 //! limits and warnings. Plain `f64` in SI units, names carry the unit.
 
 use super::scope::Scope;
+use super::warning_group::{WarningGroup, group_warnings};
+use super::warning_kind::WarningKind;
 use serde::Serialize;
 
 /// A member's or floor's state in a case.
@@ -215,15 +217,33 @@ pub struct SupportResult {
     pub rated: Option<FittingResult>,
 }
 
-/// The members and supports that carry one mass.
+/// The members and supports that carry one mass (or all masses together),
+/// each with its share: the fraction of the weight it carries (vertical
+/// component), traced through the solved forces (`solve::LoadFlow`).
 #[derive(Debug, Clone, PartialEq, Serialize)]
 pub struct LoadPathResult {
-    /// Mass id.
+    /// Mass id (for the combined path: `all masses`).
     pub mass: String,
-    /// Member ids on the path.
+    /// Member ids carrying at least the threshold share of the weight (the
+    /// largest shares, at most `analysis::MAX_LISTED` a mass; the combined
+    /// path lists every member carrying any of the weight).
     pub members: Vec<String>,
-    /// Support node ids reached.
+    /// Their shares, same order as `members` (fractions of the weight).
+    pub shares: Vec<f64>,
+    /// How many members carry some of the weight, below the threshold.
+    pub below_threshold: usize,
+    /// How many members at or above the threshold are not listed (only the
+    /// largest shares are: `analysis::MAX_LISTED` a mass).
+    pub not_listed: usize,
+    /// Support node ids taking at least the threshold share.
     pub supports: Vec<String>,
+    /// Their shares, same order as `supports`.
+    pub support_shares: Vec<f64>,
+    /// How many supports take some of the weight, below the threshold.
+    pub supports_below_threshold: usize,
+    /// Fraction of the weight not followed to a support (flows far below
+    /// the threshold): a bound on how much any share may read low.
+    pub untraced: f64,
 }
 
 /// Largest release angle and drop height inside the allowable.
@@ -240,6 +260,8 @@ pub struct Limits {
 /// A specific warning: who, what limit, by how much.
 #[derive(Debug, Clone, PartialEq, Serialize)]
 pub struct Warning {
+    /// What kind of warning: warnings of one kind in one case are grouped.
+    pub kind: WarningKind,
     /// Member, floor, node or case it concerns, if any.
     #[serde(skip_serializing_if = "Option::is_none")]
     pub subject: Option<String>,
@@ -307,18 +329,25 @@ pub struct CaseResult {
     pub nodes: Vec<NodeResult>,
     /// Supports.
     pub supports: Vec<SupportResult>,
-    /// Load paths.
+    /// Load paths, one per mass (members and supports above the threshold share).
     pub load_path: Vec<LoadPathResult>,
+    /// The path of all masses together, each at its load in this case.
+    pub combined_load_path: Option<LoadPathResult>,
     /// Limits for the case's mass.
     pub limits: Limits,
-    /// Warnings.
+    /// Warnings, one per kind (grouped: `warning_groups`).
     pub warnings: Vec<String>,
-    /// Warnings with their subjects (same text as `warnings`).
+    /// Every warning with its kind and subject, ungrouped.
     #[serde(skip)]
     pub warning_items: Vec<Warning>,
 }
 
 impl CaseResult {
+    /// The case's warnings, one group per kind (their texts are `warnings`).
+    pub fn warning_groups(&self) -> Vec<WarningGroup> {
+        group_warnings(&self.warning_items, Some(&self.id))
+    }
+
     /// Every rated part of the case with the id of what it belongs to
     /// (`leg-1/shackle`): member fittings in member order, then node
     /// fittings, then anchor ratings. The comparison table and
@@ -415,6 +444,11 @@ impl Verdict {
 }
 
 impl Analysis {
+    /// The scenario-wide warnings, one group per kind.
+    pub fn warning_groups(&self) -> Vec<WarningGroup> {
+        group_warnings(&self.warnings, None)
+    }
+
     /// True when every member and floor is within allowable in every case
     /// and nothing meant to carry went slack; false otherwise (exit code 1).
     pub fn all_within(&self) -> bool {

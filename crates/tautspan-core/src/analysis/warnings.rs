@@ -2,6 +2,7 @@
 //! the limit, and by how much.
 
 use super::results::{CaseResult, State, Warning};
+use super::warning_kind::WarningKind;
 use crate::library::{Carries, MemberKind};
 use crate::model::{Case, Scenario};
 use crate::units::Sig;
@@ -51,11 +52,14 @@ pub const SAG_RATIO_LIMIT: f64 = 0.125;
 pub fn case_warnings(s: &Scenario, case: &Case, r: &CaseResult, static_r: Option<&CaseResult>) -> Vec<Warning> {
     let mut w = Vec::new();
     let legs = sling_legs(s, r);
-    let mut push = |subject: &str, message: String| w.push(Warning { subject: Some(subject.to_string()), message });
+    let mut push = |kind: WarningKind, subject: &str, message: String| {
+        w.push(Warning { kind, subject: Some(subject.to_string()), message })
+    };
     for (i, m) in r.members.iter().enumerate() {
         let member = &s.members[i];
         match m.state {
             State::Over => push(
+                WarningKind::MemberOver,
                 &m.id,
                 msg(format_args!(
                     "member {}: {} is over its {} {} by {} (utilisation {})",
@@ -72,6 +76,7 @@ pub fn case_warnings(s: &Scenario, case: &Case, r: &CaseResult, static_r: Option
                 )),
             ),
             State::Near => push(
+                WarningKind::MemberNear,
                 &m.id,
                 msg(format_args!(
                     "member {}: at {} of its allowable {} (near-limit threshold {})",
@@ -82,6 +87,7 @@ pub fn case_warnings(s: &Scenario, case: &Case, r: &CaseResult, static_r: Option
                 )),
             ),
             State::Slack if !member.may_go_slack => push(
+                WarningKind::MemberSlack,
                 &m.id,
                 msg(format_args!(
                     "member {}: slack in case {}, where it was meant to carry (set may_go_slack if that is intended)",
@@ -89,6 +95,7 @@ pub fn case_warnings(s: &Scenario, case: &Case, r: &CaseResult, static_r: Option
                 )),
             ),
             State::Unchecked => push(
+                WarningKind::MemberUnchecked,
                 &m.id,
                 msg(format_args!(
                     "member {}: UNCHECKED in case {}: {}",
@@ -104,6 +111,7 @@ pub fn case_warnings(s: &Scenario, case: &Case, r: &CaseResult, static_r: Option
                 // 1 / sin β grows without bound: a level member takes no
                 // share of the weight, so it is a tie, not a sling leg
                 push(
+                    WarningKind::LevelLeg,
                     &m.id,
                     msg(format_args!(
                         "member {}: runs level (sling angle {} deg) and carries {} as a tie; a sling leg this flat takes no share of the weight, so if it is meant as one the rig geometry is wrong (ASME B30.9 wants 30 deg or more)",
@@ -115,6 +123,7 @@ pub fn case_warnings(s: &Scenario, case: &Case, r: &CaseResult, static_r: Option
             } else {
                 let factor = 1.0 / m.sling_angle_deg.to_radians().sin();
                 push(
+                    WarningKind::LowSlingAngle,
                     &m.id,
                     msg(format_args!(
                         "member {}: sling angle {} deg from horizontal is below 30 deg (load-angle factor {}); ASME B30.9 allows it only with a qualified person's approval",
@@ -130,6 +139,7 @@ pub fn case_warnings(s: &Scenario, case: &Case, r: &CaseResult, static_r: Option
             matches!(member.kind, MemberKind::WireRope | MemberKind::Chain | MemberKind::Rod | MemberKind::Cable);
         if steel && strain.abs() > STEEL_STRAIN_LIMIT {
             push(
+                WarningKind::SteelStrain,
                 &m.id,
                 msg(format_args!(
                     "member {}: strain {} is beyond the {} the linear spring model holds for steel; the result is outside the model's validity",
@@ -143,6 +153,7 @@ pub fn case_warnings(s: &Scenario, case: &Case, r: &CaseResult, static_r: Option
             let (sag, span) = (m.sag_m, m.length_m);
             if span > 0.0 && sag / span > SAG_RATIO_LIMIT {
                 push(
+                    WarningKind::SagRatio,
                     &m.id,
                     msg(format_args!(
                         "member {}: own-weight sag/span {} exceeds 1/8; the parabolic sag view (Irvine) does not hold",
@@ -158,6 +169,7 @@ pub fn case_warnings(s: &Scenario, case: &Case, r: &CaseResult, static_r: Option
             let f0 = st.members[i].force_n;
             if f0 > 0.0 && m.force_n > s.dynamic_ratio_warning * f0 {
                 push(
+                    WarningKind::DynamicRatio,
                     &m.id,
                     msg(format_args!(
                         "member {}: {} case force {} is {} x its static {} (warning set at {} x)",
@@ -175,8 +187,11 @@ pub fn case_warnings(s: &Scenario, case: &Case, r: &CaseResult, static_r: Option
     for f in &r.floors {
         for foot in f.feet.iter().filter(|x| x.state == State::Over) {
             match (&foot.reason, foot.utilisation) {
-                (Some(why), _) => push(&f.id, msg(format_args!("floor {}, case {}: {}", f.id, r.id, why))),
+                (Some(why), _) => {
+                    push(WarningKind::FootOver, &f.id, msg(format_args!("floor {}, case {}: {}", f.id, r.id, why)))
+                }
                 (None, Some(u)) => push(
+                    WarningKind::FootOver,
                     &f.id,
                     msg(format_args!(
                         "floor {}, foot {}: normal force {} against the rated concentrated load {}: utilisation {} (over by {})",
@@ -194,6 +209,7 @@ pub fn case_warnings(s: &Scenario, case: &Case, r: &CaseResult, static_r: Option
         if f.state != State::Slack {
             for foot in f.feet.iter().filter(|x| x.state == State::Slack) {
                 push(
+                    WarningKind::FootLifts,
                     &f.id,
                     msg(format_args!("floor {}: foot {} lifts off in case {}; normal force 0", f.id, foot.node, r.id)),
                 );
@@ -206,10 +222,13 @@ pub fn case_warnings(s: &Scenario, case: &Case, r: &CaseResult, static_r: Option
             continue;
         }
         match f.state {
-            State::Slack => {
-                push(&f.id, msg(format_args!("floor {}: contact lifts off in case {}; normal force 0", f.id, r.id)))
-            }
+            State::Slack => push(
+                WarningKind::FloorLifts,
+                &f.id,
+                msg(format_args!("floor {}: contact lifts off in case {}; normal force 0", f.id, r.id)),
+            ),
             State::Over => push(
+                WarningKind::FloorOver,
                 &f.id,
                 msg(format_args!(
                     "floor {}: total normal force {} against rated uniform x area {}, largest deflection {} mm against limit {} mm: utilisation {} (over by {})",
@@ -223,6 +242,7 @@ pub fn case_warnings(s: &Scenario, case: &Case, r: &CaseResult, static_r: Option
                 )),
             ),
             State::Near => push(
+                WarningKind::FloorNear,
                 &f.id,
                 msg(format_args!(
                     "floor {}: at {} of its allowable (near-limit threshold {})",
@@ -232,6 +252,7 @@ pub fn case_warnings(s: &Scenario, case: &Case, r: &CaseResult, static_r: Option
                 )),
             ),
             State::Unchecked => push(
+                WarningKind::FloorUnchecked,
                 &f.id,
                 msg(format_args!(
                     "floor {}: UNCHECKED in case {}: {}",
@@ -360,6 +381,11 @@ fn part_warnings(s: &Scenario, r: &CaseResult) -> Vec<Warning> {
     for (id, p) in ids.iter().zip(r.parts()) {
         let what = if p.kind == "anchor" { "rated anchor" } else { p.kind.as_str() };
         let what = what.replace('_', " ");
+        let kind = match p.state {
+            State::Near => WarningKind::PartNear,
+            State::Unchecked => WarningKind::PartUnchecked,
+            _ => WarningKind::PartOver,
+        };
         let message = match p.state {
             State::Over => match &p.reason {
                 Some(reason) => msg(format_args!("{what} {id}: OVER in case {}: {reason}", r.id)),
@@ -385,7 +411,7 @@ fn part_warnings(s: &Scenario, r: &CaseResult) -> Vec<Warning> {
             _ => String::new(),
         };
         if !message.is_empty() {
-            w.push(Warning { subject: Some(id.clone()), message });
+            w.push(Warning { kind, subject: Some(id.clone()), message });
         }
     }
     // hoists without the maker's side-pull limit: the angle, and a request for it
@@ -396,6 +422,7 @@ fn part_warnings(s: &Scenario, r: &CaseResult) -> Vec<Warning> {
                 && fr.force_n > 0.0
             {
                 w.push(Warning {
+                    kind: WarningKind::HoistSidePull,
                     subject: Some(format!("{}/{}", m.id, f.name)),
                     message: msg(format_args!(
                         "hoist {}/{}: pulled {} deg off plumb in case {}; no side-pull limit entered: give the maker's limit as `max_off_plumb` (a hoist is made for a plumb pull; its maker states any side-pull allowance)",

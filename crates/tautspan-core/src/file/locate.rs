@@ -20,10 +20,12 @@ struct Entry {
     at: Location,
 }
 
-/// The index of value positions in one text.
+/// The index of value positions in one text. The scan runs on the first
+/// question asked of it: a file that reads and validates never pays for it.
 #[derive(Debug, Clone, Default)]
 pub struct SpanIndex {
-    entries: Vec<Entry>,
+    text: String,
+    entries: std::sync::OnceLock<Vec<Entry>>,
 }
 
 #[derive(Debug, Clone, PartialEq)]
@@ -172,74 +174,86 @@ fn child_path(frame: Option<&Frame>) -> String {
 }
 
 impl SpanIndex {
-    /// Scan `text`. Never fails; an unreadable tail simply records nothing.
+    /// The index of `text` (scanned when first asked). Never fails; an
+    /// unreadable tail simply records nothing.
     pub fn scan(text: &str) -> SpanIndex {
-        let toks = tokenize(text);
-        let mut entries = Vec::new();
-        let mut stack: Vec<Frame> = Vec::new();
-        let mut k = 0;
-        // cap the depth so a hostile file cannot make the index quadratic
-        const MAX_DEPTH: usize = 256;
-        while k < toks.len() {
-            let (tok, at) = (&toks[k].0, toks[k].1);
-            match tok {
-                Tok::Ident(name)
-                    if matches!(toks.get(k + 1), Some((Tok::Colon, _))) && stack.last().is_some_and(|f| !f.list) =>
-                {
-                    if let Some(f) = stack.last_mut() {
-                        f.field = Some(name.clone());
-                    }
-                    entries.push(Entry { path: child_path(stack.last()), at });
-                    k += 2;
-                    continue;
-                }
-                Tok::Ident(_) if matches!(toks.get(k + 1), Some((Tok::Open('('), _))) => {
-                    let path = child_path(stack.last());
-                    entries.push(Entry { path: path.clone(), at });
-                    if stack.len() < MAX_DEPTH {
-                        stack.push(Frame { path, list: false, index: 0, field: None });
-                    }
-                    k += 2;
-                    continue;
-                }
-                Tok::Ident(_) | Tok::Atom => {
-                    entries.push(Entry { path: child_path(stack.last()), at });
-                }
-                Tok::Open(c) => {
-                    let path = child_path(stack.last());
-                    entries.push(Entry { path: path.clone(), at });
-                    if stack.len() < MAX_DEPTH {
-                        stack.push(Frame { path, list: *c == '[', index: 0, field: None });
-                    }
-                }
-                Tok::Close => {
-                    stack.pop();
-                }
-                Tok::Comma => {
-                    if let Some(f) = stack.last_mut() {
-                        f.index += 1;
-                        f.field = None;
-                    }
-                }
-                Tok::Colon => {}
-            }
-            k += 1;
-        }
-        SpanIndex { entries }
+        SpanIndex { text: text.to_string(), entries: std::sync::OnceLock::new() }
     }
 
+    fn entries(&self) -> &[Entry] {
+        self.entries.get_or_init(|| scan_entries(&self.text))
+    }
+}
+
+/// Every value's path and place in `text`.
+fn scan_entries(text: &str) -> Vec<Entry> {
+    let toks = tokenize(text);
+    let mut entries = Vec::new();
+    let mut stack: Vec<Frame> = Vec::new();
+    let mut k = 0;
+    // cap the depth so a hostile file cannot make the index quadratic
+    const MAX_DEPTH: usize = 256;
+    while k < toks.len() {
+        let (tok, at) = (&toks[k].0, toks[k].1);
+        match tok {
+            Tok::Ident(name)
+                if matches!(toks.get(k + 1), Some((Tok::Colon, _))) && stack.last().is_some_and(|f| !f.list) =>
+            {
+                if let Some(f) = stack.last_mut() {
+                    f.field = Some(name.clone());
+                }
+                entries.push(Entry { path: child_path(stack.last()), at });
+                k += 2;
+                continue;
+            }
+            Tok::Ident(_) if matches!(toks.get(k + 1), Some((Tok::Open('('), _))) => {
+                let path = child_path(stack.last());
+                entries.push(Entry { path: path.clone(), at });
+                if stack.len() < MAX_DEPTH {
+                    stack.push(Frame { path, list: false, index: 0, field: None });
+                }
+                k += 2;
+                continue;
+            }
+            Tok::Ident(_) | Tok::Atom => {
+                entries.push(Entry { path: child_path(stack.last()), at });
+            }
+            Tok::Open(c) => {
+                let path = child_path(stack.last());
+                entries.push(Entry { path: path.clone(), at });
+                if stack.len() < MAX_DEPTH {
+                    stack.push(Frame { path, list: *c == '[', index: 0, field: None });
+                }
+            }
+            Tok::Close => {
+                stack.pop();
+            }
+            Tok::Comma => {
+                if let Some(f) = stack.last_mut() {
+                    f.index += 1;
+                    f.field = None;
+                }
+            }
+            Tok::Colon => {}
+        }
+        k += 1;
+    }
+    entries
+}
+
+impl SpanIndex {
     /// Where the value at `path` starts; for a path the text lacks (a
     /// missing field), the nearest enclosing value that it has.
     pub fn locate(&self, path: &str) -> Option<Location> {
         let mut p = path.to_string();
         loop {
-            if let Some(e) = self.entries.iter().find(|e| e.path == p) {
+            if let Some(e) = self.entries().iter().find(|e| e.path == p) {
                 return Some(e.at);
             }
             let cut = p.rfind(['.', '['])?;
             p.truncate(cut);
             if p.is_empty() {
-                return self.entries.first().map(|e| e.at);
+                return self.entries().first().map(|e| e.at);
             }
         }
     }
@@ -247,7 +261,7 @@ impl SpanIndex {
     /// The path of the value at or just before a location (for errors the
     /// parser reports by position only).
     pub fn path_at(&self, at: Location) -> Option<&str> {
-        self.entries.iter().rev().find(|e| e.at <= at).map(|e| e.path.as_str()).filter(|p| !p.is_empty())
+        self.entries().iter().rev().find(|e| e.at <= at).map(|e| e.path.as_str()).filter(|p| !p.is_empty())
     }
 }
 

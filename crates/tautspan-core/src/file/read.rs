@@ -71,30 +71,33 @@ pub fn parse_scenario_text(text: &str) -> Result<(ScenarioDto, SpanIndex), FileE
     }
     let index = SpanIndex::scan(text);
     let opts = ron_options();
-    // The format number first, so a newer file is refused for what it is
-    // rather than for a field this build does not know.
-    if let Ok(probe) = opts.from_str::<FormatProbe>(text) {
-        match probe.format {
-            None => {
-                return Err(FileErrors(vec![located(
-                    &index,
-                    "format",
-                    format!("missing field `format`; this build reads format {}", list(FORMATS_READ)),
-                )]));
-            }
-            Some(n) if !FORMATS_READ.iter().any(|&f| i64::from(f) == n) => {
-                return Err(FileErrors(vec![located(
-                    &index,
-                    "format",
-                    format!("format {n} is not one this build reads; it reads format {}", list(FORMATS_READ)),
-                )]));
-            }
-            Some(_) => {}
-        }
-    }
+    let unreadable = |n: i64| {
+        FileErrors(vec![located(
+            &index,
+            "format",
+            format!("format {n} is not one this build reads; it reads format {}", list(FORMATS_READ)),
+        )])
+    };
     match opts.from_str::<ScenarioDto>(text) {
-        Ok(dto) => Ok((dto, index)),
+        Ok(dto) if FORMATS_READ.contains(&dto.format) => Ok((dto, index)),
+        Ok(dto) => Err(unreadable(i64::from(dto.format))),
         Err(e) => {
+            // The format number first, so a newer file is refused for what
+            // it is rather than for a field this build does not know (only
+            // read again when the file does not parse: one pass otherwise).
+            if let Ok(probe) = opts.from_str::<FormatProbe>(text) {
+                match probe.format {
+                    None => {
+                        return Err(FileErrors(vec![located(
+                            &index,
+                            "format",
+                            format!("missing field `format`; this build reads format {}", list(FORMATS_READ)),
+                        )]));
+                    }
+                    Some(n) if !FORMATS_READ.iter().any(|&f| i64::from(f) == n) => return Err(unreadable(n)),
+                    Some(_) => {}
+                }
+            }
             let at = Location { line: e.span.start.line.max(1), column: e.span.start.col.max(1) };
             // ron's span for a value error covers the value; name the field there
             let field = index.path_at(at).map(str::to_string);

@@ -853,7 +853,7 @@ pub(super) fn build_member(
             (MemberKind::Rod | MemberKind::WireRope | MemberKind::Cable, _, _, Some(mat), _) => {
                 (mat.data().density_kg_m3 * area, format!("{} density x area", mat.name()))
             }
-            _ => (0.0, "not known: own weight left out (give `linear_mass`)".to_string()),
+            _ => (0.0, "not known, left out (give `linear_mass`)".to_string()),
         },
     };
     let wave_speed_m_s = if linear_mass > 0.0 { Some((ea / linear_mass).sqrt()) } else { None };

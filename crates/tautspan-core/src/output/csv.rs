@@ -1,6 +1,8 @@
 //! `check --format csv`: one row per case and item (member, floor or rated part), with
 //! the case's limits; the caution on a leading `#` line.
 
+use std::io::{self, Write};
+
 use crate::CAUTION;
 use crate::analysis::Analysis;
 
@@ -44,13 +46,27 @@ pub fn scope_lines(file: &str, a: &Analysis) -> String {
 
 /// The rows of one file (no header), after its verdict and scope lines.
 pub fn check_csv_rows(file: &str, a: &Analysis) -> String {
-    let mut out = scope_lines(file, a);
+    let mut buf = Vec::new();
+    // writing to memory cannot fail
+    let _ = write_csv_rows(&mut buf, file, a);
+    String::from_utf8_lossy(&buf).into_owned()
+}
+
+/// Write the rows of one file (no header), after its verdict and scope
+/// lines, to `w` row by row (a large rig's table never sits whole in memory).
+///
+/// # Errors
+/// Whatever writing to `w` fails with.
+pub fn write_csv_rows<W: Write>(w: &mut W, file: &str, a: &Analysis) -> io::Result<()> {
+    w.write_all(scope_lines(file, a).as_bytes())?;
     for (ci, c) in a.cases.iter().enumerate() {
         let lim = (opt(c.limits.release_deg), opt(c.limits.drop_height_m));
         for (k, m) in c.members.iter().enumerate() {
             let row = a.comparison.get(k);
-            out.push_str(
-                &[
+            writeln!(
+                w,
+                "{}",
+                [
                     field(file),
                     field(&c.id),
                     field(&c.kind),
@@ -71,13 +87,14 @@ pub fn check_csv_rows(file: &str, a: &Analysis) -> String {
                     opt(m.buckling_resistance_n),
                 ]
                 .join(","),
-            );
-            out.push('\n');
+            )?;
         }
         for (k, f) in c.floors.iter().enumerate() {
             let row = a.comparison.get(c.members.len() + k);
-            out.push_str(
-                &[
+            writeln!(
+                w,
+                "{}",
+                [
                     field(file),
                     field(&c.id),
                     field(&c.kind),
@@ -98,13 +115,14 @@ pub fn check_csv_rows(file: &str, a: &Analysis) -> String {
                     String::new(),
                 ]
                 .join(","),
-            );
-            out.push('\n');
+            )?;
             for x in &f.feet {
                 // a foot: force its normal force, allowable the rated
                 // concentrated load (empty without one), item "floor/node"
-                out.push_str(
-                    &[
+                writeln!(
+                    w,
+                    "{}",
+                    [
                         field(file),
                         field(&c.id),
                         field(&c.kind),
@@ -125,16 +143,17 @@ pub fn check_csv_rows(file: &str, a: &Analysis) -> String {
                         String::new(),
                     ]
                     .join(","),
-                );
-                out.push('\n');
+                )?;
             }
         }
         // rated parts after the floors, as in the comparison
         let first = c.members.len() + c.floors.len();
         for (k, (id, p)) in c.part_ids().into_iter().zip(c.parts()).enumerate() {
             let row = a.comparison.get(first + k);
-            out.push_str(
-                &[
+            writeln!(
+                w,
+                "{}",
+                [
                     field(file),
                     field(&c.id),
                     field(&c.kind),
@@ -155,9 +174,8 @@ pub fn check_csv_rows(file: &str, a: &Analysis) -> String {
                     String::new(),
                 ]
                 .join(","),
-            );
-            out.push('\n');
+            )?;
         }
     }
-    out
+    Ok(())
 }

@@ -2,7 +2,7 @@
 //! caution first and last.
 
 use crate::CAUTION;
-use crate::analysis::{Analysis, CaseResult};
+use crate::analysis::{Analysis, CaseResult, LOAD_PATH_THRESHOLD, LoadPathResult};
 use crate::units::format_number;
 use std::fmt::Write;
 
@@ -214,8 +214,14 @@ fn case_text(c: &CaseResult, out: &mut String) {
             "  (angle: an eye bolt's pull from its axis; a hoist's line from plumb. A fitting at a joint carries the resultant of the members above it.)"
         );
     }
-    for p in &c.load_path {
-        let _ = writeln!(out, "  load path of {}: {} -> {}", p.mass, p.members.join(", "), p.supports.join(", "));
+    // a few masses: each path; many: the combined path, each mass's in JSON
+    if c.load_path.len() <= PATHS_IN_TEXT {
+        for p in &c.load_path {
+            path_line(out, &format!("load path of {}", p.mass), p);
+        }
+    } else if let Some(p) = &c.combined_load_path {
+        path_line(out, &format!("load path of all {} masses together", c.load_path.len()), p);
+        let _ = writeln!(out, "  (each mass's own path: --format json, `load_path`)");
     }
     if let Some(r) = c.limits.release_deg {
         let _ = writeln!(out, "  largest release angle inside the allowable: {} deg", format_number(r, 4));
@@ -226,6 +232,46 @@ fn case_text(c: &CaseResult, out: &mut String) {
     for w in &c.warnings {
         let _ = writeln!(out, "  warning: {w}");
     }
+}
+
+/// Up to this many masses the text lists each one's path.
+const PATHS_IN_TEXT: usize = 10;
+
+/// Members (and supports) named in a path's line; the rest are counted.
+const PATH_ITEMS_IN_TEXT: usize = 8;
+
+/// "a 50 %, b 50 %" of the largest shares, "and N more" for the rest listed.
+fn shares_text(ids: &[String], shares: &[f64]) -> String {
+    let mut order: Vec<usize> = (0..ids.len()).collect();
+    order.sort_by(|&a, &b| shares[b].total_cmp(&shares[a]));
+    let shown: Vec<String> =
+        order.iter().take(PATH_ITEMS_IN_TEXT).map(|&k| format!("{} {} %", ids[k], pct(shares[k]))).collect();
+    let more = ids.len().saturating_sub(PATH_ITEMS_IN_TEXT);
+    if more > 0 { format!("{} and {more} more", shown.join(", ")) } else { shown.join(", ") }
+}
+
+fn path_line(out: &mut String, what: &str, p: &LoadPathResult) {
+    let mut below = String::new();
+    if p.not_listed > 0 {
+        below.push_str(&format!(
+            " (+{} more at or above {} %)",
+            p.not_listed,
+            format_number(LOAD_PATH_THRESHOLD * 100.0, 3)
+        ));
+    }
+    if p.below_threshold > 0 {
+        below.push_str(&format!(
+            " (+{} members below {} % each)",
+            p.below_threshold,
+            format_number(LOAD_PATH_THRESHOLD * 100.0, 3)
+        ));
+    }
+    let _ = writeln!(
+        out,
+        "  {what}: {}{below} -> {}",
+        shares_text(&p.members, &p.shares),
+        shares_text(&p.supports, &p.support_shares)
+    );
 }
 
 fn indent(s: &str) -> String {
@@ -278,8 +324,8 @@ pub fn check_text(file: &str, a: &Analysis) -> String {
     }
     if !a.warnings.is_empty() {
         let _ = writeln!(out);
-        for w in &a.warnings {
-            let _ = writeln!(out, "warning: {}", w.message);
+        for g in a.warning_groups() {
+            let _ = writeln!(out, "warning: {}", g.message);
         }
     }
     out.push_str(&scope_text(a));

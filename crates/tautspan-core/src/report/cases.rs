@@ -8,7 +8,7 @@ use super::parts::case_parts;
 use super::table::{NONE, table, with_note};
 use super::unit_system::{UnitSystem, degrees, number, percent};
 use super::warnings::{case_items, item};
-use crate::analysis::{Analysis, CaseResult, DynamicLoad};
+use crate::analysis::{ALL_MASSES, Analysis, CaseResult, DynamicLoad, LOAD_PATH_THRESHOLD, LoadPathResult, State};
 use crate::model::{Case, Scenario};
 
 /// The per-case section.
@@ -94,12 +94,44 @@ fn dynamic(d: &DynamicLoad, units: UnitSystem) -> String {
     )
 }
 
+/// Above this many members a case shows a summary (members by state and
+/// the most utilised) with the full table behind a disclosure.
+pub const LARGE_RIG_MEMBERS: usize = 100;
+
+/// Rows of the most utilised members shown in a large rig's summary.
+const MOST_UTILISED: usize = 10;
+
 fn members(c: &CaseResult, units: UnitSystem) -> String {
-    let struts = c.members.iter().any(|m| m.euler_n.is_some() || m.reason.is_some());
-    let rows: Vec<Vec<String>> = c
-        .members
+    let full = members_table(c, units, &(0..c.members.len()).collect::<Vec<_>>());
+    if c.members.len() <= LARGE_RIG_MEMBERS {
+        return full;
+    }
+    let states = [State::Over, State::Unchecked, State::Near, State::Slack, State::Ok];
+    let counts: Vec<String> = states
         .iter()
-        .map(|m| {
+        .map(|st| (st, c.members.iter().filter(|m| m.state == *st).count()))
+        .filter(|(_, n)| *n > 0)
+        .map(|(st, n)| format!("{n} {}", state_word(*st)))
+        .collect();
+    let mut order: Vec<usize> = (0..c.members.len()).collect();
+    order.sort_by(|&a, &b| c.members[b].utilisation.total_cmp(&c.members[a].utilisation));
+    order.truncate(MOST_UTILISED);
+    format!(
+        "<p>{} members: {}. The {} most utilised:</p>{}<details><summary>All {} members</summary>{full}</details>",
+        c.members.len(),
+        counts.join(", "),
+        order.len(),
+        members_table(c, units, &order),
+        c.members.len()
+    )
+}
+
+fn members_table(c: &CaseResult, units: UnitSystem, which: &[usize]) -> String {
+    let struts = c.members.iter().any(|m| m.euler_n.is_some() || m.reason.is_some());
+    let rows: Vec<Vec<String>> = which
+        .iter()
+        .map(|&k| {
+            let m = &c.members[k];
             let mut row = vec![
                 format!("<b>{}</b>", escape(&m.id)),
                 units.force(m.force_n),
@@ -188,19 +220,45 @@ fn floors(c: &CaseResult, units: UnitSystem) -> String {
     out
 }
 
+/// Above this many masses the per-mass paths go behind a disclosure.
+const MANY_MASSES: usize = 10;
+
 fn load_paths(c: &CaseResult) -> String {
-    let list = |v: &[String]| v.iter().map(|s| escape(s)).collect::<Vec<_>>().join(", ");
-    c.load_path
-        .iter()
-        .map(|p| {
-            format!(
-                "<p>Load path of mass <b>{}</b>: members {} to supports {}.</p>",
-                escape(&p.mass),
-                if p.members.is_empty() { "none".to_string() } else { list(&p.members) },
-                if p.supports.is_empty() { "none".to_string() } else { list(&p.supports) }
-            )
-        })
-        .collect()
+    let share = |ids: &[String], shares: &[f64]| {
+        ids.iter().zip(shares).map(|(id, f)| format!("{} {}", escape(id), percent(*f))).collect::<Vec<_>>().join(", ")
+    };
+    let one = |p: &LoadPathResult| {
+        let mut below = String::new();
+        if p.not_listed > 0 {
+            below.push_str(&format!(" ({} more at or above {})", p.not_listed, percent(LOAD_PATH_THRESHOLD)));
+        }
+        if p.below_threshold > 0 {
+            below.push_str(&format!(
+                " ({} more members below {} each)",
+                p.below_threshold,
+                percent(LOAD_PATH_THRESHOLD)
+            ));
+        }
+        format!(
+            "<p>Load path of {}: members {}{below} to supports {}.</p>",
+            if p.mass == ALL_MASSES {
+                "all masses together".to_string()
+            } else {
+                format!("mass <b>{}</b>", escape(&p.mass))
+            },
+            if p.members.is_empty() { "none".to_string() } else { share(&p.members, &p.shares) },
+            if p.supports.is_empty() { "none".to_string() } else { share(&p.supports, &p.support_shares) }
+        )
+    };
+    let per_mass: String = c.load_path.iter().map(one).collect();
+    match &c.combined_load_path {
+        Some(all) if c.load_path.len() > MANY_MASSES => format!(
+            "{}<details><summary>The load path of each of the {} masses</summary>{per_mass}</details>",
+            one(all),
+            c.load_path.len()
+        ),
+        _ => per_mass,
+    }
 }
 
 fn supports(c: &CaseResult, units: UnitSystem) -> String {

@@ -3,11 +3,11 @@
 //! analysis names one.
 
 use super::escape::escape;
-use crate::analysis::{Analysis, CaseResult, Warning};
+use crate::analysis::{Analysis, CaseResult, Warning, WarningGroup, WarningKind};
 
 /// The warnings section.
 pub fn warnings(analysis: &Analysis) -> String {
-    let mut items: Vec<String> = analysis.warnings.iter().map(|w| item(None, w)).collect();
+    let mut items: Vec<String> = grouped(analysis.warning_groups()).iter().map(|w| item(None, w)).collect();
     for case in &analysis.cases {
         items.extend(case_items(case).iter().map(|w| item(Some(&case.id), w)));
     }
@@ -19,13 +19,28 @@ pub fn warnings(analysis: &Analysis) -> String {
     format!("<section id=\"warnings\"><h2>Warnings</h2>{body}</section>")
 }
 
-/// A case's warnings with subjects; the plain strings when it has no items.
+/// A case's warnings, one per kind (a single one with its subject); the
+/// plain strings when it has no items.
 pub fn case_items(case: &CaseResult) -> Vec<Warning> {
     if case.warning_items.is_empty() {
-        case.warnings.iter().map(|m| Warning { subject: None, message: m.clone() }).collect()
+        case.warnings
+            .iter()
+            .map(|m| Warning { kind: WarningKind::CaseFailed, subject: None, message: m.clone() })
+            .collect()
     } else {
-        case.warning_items.clone()
+        grouped(case.warning_groups())
     }
+}
+
+fn grouped(groups: Vec<WarningGroup>) -> Vec<Warning> {
+    groups
+        .into_iter()
+        .map(|g| Warning {
+            kind: g.kind,
+            subject: if g.count == 1 { g.subjects.into_iter().next() } else { None },
+            message: g.message,
+        })
+        .collect()
 }
 
 /// One warning as a list item.

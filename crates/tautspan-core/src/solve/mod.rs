@@ -19,7 +19,7 @@ mod validate;
 
 pub use equilibrium::Equilibrium;
 pub use error::SolveError;
-pub use load_path::{LoadPath, load_paths, load_paths_from};
+pub use load_path::{CUT_RATIO, LoadFlow, LoadPath, TraceScratch, load_paths, load_paths_from};
 pub use network::{AxialLaw, Fixity, NetMember, NetNode, NetPlate, Network};
 pub use newmark::{SimulateOptions, Simulation, SimulationStart, simulate};
 pub use newton::SolveOptions;
