@@ -97,3 +97,20 @@ fn located_errors() {
     let e = err(r#", rated: "1 t", rated_direction: (0, 0, 0)"#);
     assert!(e.contains("nodes[0].rated_direction") && e.contains("non-zero"), "{e}");
 }
+
+// The worst item over all cases is named, parts included: with a side
+// rating of 0.4 t the anchor A (1.5 by the interaction above) is worse than
+// any leg, and `check`'s JSON and text carry it.
+#[test]
+fn the_worst_part_is_named() {
+    let a = analysed(&bridle(r#", rated: "2 t", rated_direction: (0, -1, 0), rated_across: "400 kg""#));
+    let w = tautspan_core::analysis::worst(&a).unwrap();
+    assert_eq!(w.id, "A/anchor");
+    assert_eq!(w.host, "A");
+    assert_eq!(w.kind, tautspan_core::analysis::ItemKind::Part);
+    assert!(w.line().contains("rated part A/anchor in case s"), "{}", w.line());
+    let j = tautspan_core::output::check_json("f.ron", &a);
+    assert_eq!(j["worst"]["id"], "A/anchor");
+    assert_eq!(j["worst"]["kind"], "part");
+    assert!(tautspan_core::output::check_text("f.ron", &a).contains("worst: rated part A/anchor"));
+}

@@ -256,3 +256,19 @@ fn sudden_load_on_a_rope_peaks_at_twice_static_in_the_time_domain() {
     assert!(rel(peak, 2.0 * 300.0 * G) < 1e-2, "{peak}");
     assert!(sim.run.energy_drift < 1e-3, "{}", sim.run.energy_drift);
 }
+
+// The load path runs through the rope's spans: on the running block the
+// rope's two spans together hold the whole weight up (share 1), and the
+// anchors share it by their spans' vertical pulls, T cos φ each over
+// frictionless sheaves: half each (statics of the pulley, equal angles).
+// Tolerance 1e-6: the trace's cut-off bound is 1e-5 of the threshold.
+#[test]
+fn load_path_runs_through_the_spans() {
+    let a = analysed(&running_block("", "200 GPa"));
+    let p = &a.cases[0].load_path[0];
+    let k = p.members.iter().position(|m| m == "fall").expect("the rope is on the path");
+    assert!((p.shares[k] - 1.0).abs() < 1e-6, "{}", p.shares[k]);
+    for (s, share) in p.supports.iter().zip(&p.support_shares) {
+        assert!((share - 0.5).abs() < 1e-6, "{s}: {share}");
+    }
+}

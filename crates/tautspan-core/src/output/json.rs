@@ -283,6 +283,18 @@ pub fn write_check_json<W: Write>(w: &mut W, file: &str, a: &Analysis) -> io::Re
     o.field("title", &a.title)?;
     o.field("caution", &a.caution)?;
     o.field("verdict", a.verdict().as_str())?;
+    if let Some(wst) = crate::analysis::worst(a) {
+        let kind = match wst.kind {
+            crate::analysis::ItemKind::Member => "member",
+            crate::analysis::ItemKind::Floor => "floor",
+            crate::analysis::ItemKind::Part => "part",
+        };
+        o.field(
+            "worst",
+            &json!({ "id": wst.id, "kind": kind, "case": wst.case, "state": wst.state.as_str(),
+                     "utilisation": num(wst.utilisation) }),
+        )?;
+    }
     o.field("scope", &json!({ "checked": a.scope.checked, "not_checked": a.scope.not_checked }))?;
     o.key("cases")?;
     o.w.write_all(b"[")?;
