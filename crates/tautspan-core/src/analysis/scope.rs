@@ -56,7 +56,8 @@ fn has_hitch_asme(s: &Scenario) -> bool {
 }
 
 fn has_bend(s: &Scenario) -> bool {
-    s.members.iter().any(|m| m.bend.is_some())
+    // a rope's D/d over its sheaves is said in the ropes' own line
+    s.members.iter().any(|m| m.bend.is_some() && m.run.is_none())
 }
 
 fn has_rope(s: &Scenario) -> bool {

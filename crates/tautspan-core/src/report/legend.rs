@@ -14,7 +14,7 @@ const BAR_W: f64 = 300.0;
 /// The legend as an inline SVG; `near_limit` is the scenario's threshold.
 pub fn legend(near_limit: f64) -> String {
     let mut svg = format!(
-        "<svg class=\"legend\" viewBox=\"0 0 {WIDTH:.0} 96\" role=\"img\" aria-label=\"Legend\">\
+        "<svg class=\"legend\" viewBox=\"0 0 {WIDTH:.0} 110\" role=\"img\" aria-label=\"Legend\">\
          <defs><linearGradient id=\"ramp\" x1=\"0\" x2=\"1\" y1=\"0\" y2=\"0\">{}</linearGradient></defs>\
          <text x=\"{BAR_X}\" y=\"14\" class=\"lbl\">Shade: highest utilisation over all cases</text>\
          <rect x=\"{BAR_X}\" y=\"22\" width=\"{BAR_W}\" height=\"14\" fill=\"url(#ramp)\" stroke=\"#1b1f24\" stroke-width=\"0.8\"/>",
@@ -48,7 +48,7 @@ fn line_samples() -> String {
         )
     };
     [
-        sample(20.0, LINE_WIDTH, "", "member"),
+        sample(20.0, LINE_WIDTH, "", "member or rope"),
         sample(42.0, LINE_WIDTH, " stroke-dasharray=\"9 6\"", "slack in the static case"),
         sample(64.0, OVER_WIDTH, "", "over allowable in some case"),
     ]
@@ -67,6 +67,8 @@ fn symbol_samples() -> String {
         label(632.0, 82.0, "bearing on a floor"),
         mass([700.0, 36.0], ""),
         label(716.0, 26.0, "mass"),
+        "<circle cx=\"700\" cy=\"98\" r=\"6\" fill=\"none\" stroke=\"#1b1f24\" stroke-width=\"1.6\"/>".to_string(),
+        label(716.0, 102.0, "sheave"),
     ]
     .concat()
 }
