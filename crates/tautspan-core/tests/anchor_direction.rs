@@ -114,3 +114,27 @@ fn the_worst_part_is_named() {
     assert_eq!(j["worst"]["kind"], "part");
     assert!(tautspan_core::output::check_text("f.ron", &a).contains("worst: rated part A/anchor"));
 }
+
+// The rated-part warnings of the kinds `part_unchecked` and `part_near`,
+// each once with its text: the side pull without a side rating above, and
+// an anchor rated 750 kg in line with the west leg, whose pull W / √2 gives
+// (1000 kg / √2) / 750 kg = 94.3 %, above the default near-limit
+// threshold 80 % (statics of the bridle, tolerance 1e-4 as above).
+#[test]
+fn rated_part_warning_kinds() {
+    use tautspan_core::analysis::WarningKind;
+    let a = analysed(&bridle(r#", rated: "2 t", rated_direction: (0, -1, 0)"#));
+    let w = a.cases[0].warning_items.iter().find(|w| w.kind == WarningKind::PartUnchecked).expect("unchecked part");
+    assert!(
+        w.message.starts_with("rated anchor A/anchor: UNCHECKED in case s: anchor A is pulled 45"),
+        "{}",
+        w.message
+    );
+    assert!(w.message.contains("give `rated_across`"), "{}", w.message);
+
+    let a = analysed(&bridle(r#", rated: "750 kg", rated_direction: (1, -1, 0)"#));
+    let w = a.cases[0].warning_items.iter().find(|w| w.kind == WarningKind::PartNear).expect("near part");
+    let u = 1.0 / 2.0_f64.sqrt() / 0.75;
+    assert!((anchor_a(&a).utilisation - u).abs() < 1e-4);
+    assert!(w.message.starts_with("rated anchor A/anchor: at 94.3 % of its WLL"), "{}", w.message);
+}
