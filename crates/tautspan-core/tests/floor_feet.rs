@@ -204,6 +204,13 @@ fn no_point_rating_is_unchecked() {
         assert!(f.feet.iter().all(|x| x.state == State::Unchecked));
         assert!(f.reason.as_deref().unwrap_or("").contains("rated_point"));
         assert!(!a.all_within());
+        // its warning, of the kind floor_unchecked, asks for the rating
+        let w = a.cases[0]
+            .warning_items
+            .iter()
+            .find(|w| w.kind == tautspan_core::analysis::WarningKind::FloorUnchecked)
+            .expect("a floor_unchecked warning");
+        assert!(w.message.contains("UNCHECKED") && w.message.contains("rated_point"), "{}", w.message);
         if fields.contains("rated_uniform") {
             assert!(rel(f.total_allowable_n.unwrap(), 5e3 * 16.0) < 1e-12);
         } else {

@@ -98,6 +98,13 @@ fn strut_without_a_section_is_unchecked() {
     assert!(reason.contains("rod strut in compression") && reason.contains("section unknown"), "{reason}");
     assert_eq!(a.verdict(), Verdict::Unchecked);
     assert_eq!(m.euler_n, None);
+    // its warning, of the kind member_unchecked, carries the reason
+    let w = a.cases[0]
+        .warning_items
+        .iter()
+        .find(|w| w.kind == tautspan_core::analysis::WarningKind::MemberUnchecked)
+        .expect("a member_unchecked warning");
+    assert!(w.message.contains("UNCHECKED") && w.message.contains(reason), "{}", w.message);
 
     let a = analysed(&jib(
         r#"section: SolidRound(diameter: "30 mm"), material: "steel", rating: Yield("235 MPa")"#,
