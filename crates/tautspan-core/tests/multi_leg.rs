@@ -53,6 +53,11 @@ fn three_legs_on_a_rigid_load_are_set_beside_the_two_leg_rating() {
     assert!(advisory.contains(&format!("against {} kN carried", format_4(300.0 * G / 1e3))), "{advisory}");
     assert!(advisory.contains("west ") && advisory.contains("mid ") && advisory.contains("east "), "{advisory}");
     assert!(!advisory.contains("OVER"), "{advisory}");
+    // the advisory is of the kind multi_leg, once for the gathering point
+    let items: Vec<_> =
+        a.cases[0].warning_items.iter().filter(|w| w.kind == tautspan_core::analysis::WarningKind::MultiLeg).collect();
+    assert_eq!(items.len(), 1);
+    assert_eq!(&items[0].message, advisory);
     // every leg's own check is unchanged: 18 kN each
     for m in &a.cases[0].members[..3] {
         assert!(((m.allowable_n - 18e3) / 18e3).abs() < 1e-9);
