@@ -177,8 +177,9 @@ fn reeved_block_four_parts() {
     }
     assert!(rel(rope.force_n, lead) < 1e-12);
 
-    // lowering: the friction reverses, the dead end pulls hardest, and the
-    // lead only W (K − 1)/(Kⁿ − 1) · K⁻¹ ... by the same statics with 1/K
+    // lowering: the friction reverses, so the same statics hold with K
+    // replaced by q = 1/K: the lead pulls W qⁿ (q − 1)/(qⁿ − 1) and the dead
+    // end pulls hardest
     let a = analysed(&reeved(", bearing: Bronze", ", motion: Lowering"));
     let rope = a.cases[0].members.iter().find(|m| m.id == "fall").unwrap();
     let q = 1.0 / k;
@@ -271,4 +272,28 @@ fn load_path_runs_through_the_spans() {
     for (s, share) in p.supports.iter().zip(&p.support_shares) {
         assert!((share - 0.5).abs() < 1e-6, "{s}: {share}");
     }
+}
+
+// A rope's printed sag is the largest of its spans' own-weight sags, each
+// by the parabolic form d = μ g cos α L² / (8 T) (Irvine, Cable Structures,
+// the member's own formula), and its sling angle is its first span's from
+// the horizontal (asin |Δy| / L, the definition); recomputed here from the
+// solved spans, tolerance 1e-9 (same arithmetic, rounding only).
+#[test]
+fn rope_sag_and_angle_from_its_spans() {
+    let text = running_block("", "200 GPa").replace(r#"linear_mass: "0 kg/m""#, r#"linear_mass: "0.5 kg/m""#);
+    let a = analysed(&text);
+    let c = &a.cases[0];
+    let rope = c.members.iter().find(|m| m.id == "fall").unwrap();
+    let pos = |id: &str| c.nodes.iter().find(|n| n.id == id).unwrap().position_m;
+    let sag_of = |g: &tautspan_core::analysis::SegmentResult| {
+        let (p, q) = (pos(&g.from), pos(&g.to));
+        let cos_a = ((q[0] - p[0]).powi(2) + (q[2] - p[2]).powi(2)).sqrt() / g.length_m;
+        0.5 * G * cos_a * g.length_m * g.length_m / (8.0 * g.force_n)
+    };
+    let expect = rope.segments.iter().map(sag_of).fold(0.0, f64::max);
+    assert!(expect > 1e-4 && rel(rope.sag_m, expect) < 1e-9, "{} vs {expect}", rope.sag_m);
+    let (p, q) = (pos("A"), pos("K"));
+    let angle = ((q[1] - p[1]).abs() / rope.segments[0].length_m).asin().to_degrees();
+    assert!(rel(rope.sling_angle_deg, angle) < 1e-9, "{} vs {angle}", rope.sling_angle_deg);
 }

@@ -96,7 +96,7 @@ pub fn evaluate(s: &Scenario, net: &Network, a: &Allowables, loads: &[[f64; 3]],
             let force = eq.member_force_n[i];
             let length = eq.member_length_m[i];
             // a rope over sheaves: the angle of its first span (from the dead end)
-            let (a0, b0, _) = m.segments()[0];
+            let [a0, b0] = m.first_span();
             let [pa, pb] = [eq.positions_m[a0], eq.positions_m[b0]];
             let span0 = ((pb[0] - pa[0]).powi(2) + (pb[1] - pa[1]).powi(2) + (pb[2] - pa[2]).powi(2)).sqrt();
             let dy = (pb[1] - pa[1]).abs();

@@ -102,7 +102,7 @@ pub fn member_fittings(s: &Scenario, i: usize, eq: &Equilibrium) -> Vec<FittingR
     }
     let force = eq.member_force_n[i];
     // a rope over sheaves: its first span, where the dead end's parts sit
-    let [a, b] = if m.run.is_some() { m.segments().first().map_or(m.ends, |&(a, b, _)| [a, b]) } else { m.ends };
+    let [a, b] = m.first_span();
     let u = unit(eq.positions_m[a], eq.positions_m[b]).unwrap_or([0.0, 1.0, 0.0]);
     m.fittings
         .iter()

@@ -171,6 +171,15 @@ impl Member {
         p
     }
 
+    /// The first span's two nodes: the member's ends, or a rope's dead end
+    /// and its first sheave (no allocation: used per member per solve).
+    pub fn first_span(&self) -> [usize; 2] {
+        match self.run.as_ref().and_then(|r| r.via.first()) {
+            Some(&s) => [self.ends[0], s],
+            None => self.ends,
+        }
+    }
+
     /// The segments `(from, to, factor)`: one for a member, one per span of a rope.
     pub fn segments(&self) -> Vec<(usize, usize, f64)> {
         let p = self.path();

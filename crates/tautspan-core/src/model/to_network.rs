@@ -60,9 +60,15 @@ pub fn to_network(s: &Scenario) -> (Network, NetworkLoads) {
         .map(|(i, m)| {
             let rest = s.rest_length_m(i);
             let own_kg = m.linear_mass.value * rest;
-            // half of each span's share (by drawn length) at each of its ends
-            let drawn = s.drawn_length_m(i);
-            for (a, b, _) in m.segments() {
+            if m.run.is_none() {
+                for &e in &m.ends {
+                    nodes[e].load_n[1] -= 0.5 * own_kg * g;
+                    nodes[e].mass_kg += 0.5 * own_kg;
+                }
+            }
+            // a rope: half of each span's share (by drawn length) at each of its ends
+            let drawn = if m.run.is_some() { s.drawn_length_m(i) } else { 0.0 };
+            for (a, b, _) in if m.run.is_some() { m.segments() } else { Vec::new() } {
                 let (pa, pb) = (s.position_m(a), s.position_m(b));
                 let span = ((pb[0] - pa[0]).powi(2) + (pb[1] - pa[1]).powi(2) + (pb[2] - pa[2]).powi(2)).sqrt();
                 let share = if drawn > 0.0 { span / drawn } else { 1.0 };

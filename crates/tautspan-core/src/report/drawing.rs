@@ -223,7 +223,11 @@ fn directions(scenario: &Scenario, elev: &Elevation, view: &View, i: usize) -> V
     let mut dirs: Vec<[f64; 2]> = scenario
         .members
         .iter()
-        .flat_map(|m| m.segments())
+        .flat_map(|m| {
+            // a rope: each of its spans; a member: its ends (no allocation)
+            let spans = if m.run.is_some() { m.segments() } else { Vec::new() };
+            spans.into_iter().chain(m.run.is_none().then_some((m.ends[0], m.ends[1], 1.0)))
+        })
         .filter_map(|(a, b, _)| match (a, b) {
             (a, b) if a == i => Some(b),
             (a, b) if b == i => Some(a),
