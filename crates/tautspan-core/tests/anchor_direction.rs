@@ -138,3 +138,18 @@ fn rated_part_warning_kinds() {
     assert!((anchor_a(&a).utilisation - u).abs() < 1e-4);
     assert!(w.message.starts_with("rated anchor A/anchor: at 94.3 % of its WLL"), "{}", w.message);
 }
+
+// Near the limit by the interaction, the warning says the interaction, not
+// a share of one WLL: a side rating of 0.7 t gives 0.25 + 500/700 = 0.964,
+// near (threshold 80 %); the bridle's statics as above, tolerance 1e-4.
+#[test]
+fn interaction_near_the_limit_is_said_as_such() {
+    use tautspan_core::analysis::WarningKind;
+    let a = analysed(&bridle(r#", rated: "2 t", rated_direction: (0, -1, 0), rated_across: "700 kg""#));
+    let r = anchor_a(&a);
+    assert!((r.utilisation - (0.25 + 500.0 / 700.0)).abs() < 1e-4, "{}", r.utilisation);
+    assert_eq!(r.state, State::Near);
+    let w = a.cases[0].warning_items.iter().find(|w| w.kind == WarningKind::PartNear).expect("near part");
+    assert!(w.message.starts_with("rated anchor A/anchor: near its limit in case s: along "), "{}", w.message);
+    assert!(w.message.contains("(linear interaction)"), "{}", w.message);
+}

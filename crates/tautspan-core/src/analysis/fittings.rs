@@ -275,16 +275,21 @@ pub fn anchor_rating(s: &Scenario, n: usize, eq: &Equilibrium) -> Option<Fitting
         Some(side) => {
             r.utilisation = u_along + across / side.wll.value;
             r.state = state_of(r.utilisation, s.near_limit);
-            if r.state == State::Over {
-                r.reason = Some(format!(
-                    "along {} / rated {} + across {} / rated across {} = {} (linear interaction), over by {} %",
-                    kn(along.max(0.0)),
-                    kn(f.wll.value),
-                    kn(across),
-                    kn(side.wll.value),
-                    format_number(r.utilisation, 3),
-                    format_number((r.utilisation - 1.0) * 100.0, 3)
-                ));
+            // the warnings say the interaction, not a share of one WLL
+            let sum = format!(
+                "along {} / rated {} + across {} / rated across {} = {} (linear interaction)",
+                kn(along.max(0.0)),
+                kn(f.wll.value),
+                kn(across),
+                kn(side.wll.value),
+                format_number(r.utilisation, 3)
+            );
+            match r.state {
+                State::Over => {
+                    r.reason = Some(format!("{sum}, over by {} %", format_number((r.utilisation - 1.0) * 100.0, 3)));
+                }
+                State::Near => r.reason = Some(sum),
+                _ => {}
             }
             r.source = format!(
                 "rated load {} along {dir}, {} across it ({}); along {} / rated + across {} / rated across (linear interaction, common practice, conservative)",

@@ -397,12 +397,20 @@ fn part_warnings(s: &Scenario, r: &CaseResult) -> Vec<Warning> {
                     Sig(p.utilisation, 3)
                 )),
             },
-            State::Near => msg(format_args!(
-                "{what} {id}: at {} of its WLL {} (near-limit threshold {})",
-                Pct(p.utilisation),
-                Kn(p.wll_n),
-                Pct(s.near_limit)
-            )),
+            State::Near => match &p.reason {
+                // an anchor rated along and across: its interaction
+                Some(reason) => msg(format_args!(
+                    "{what} {id}: near its limit in case {}: {reason} (near-limit threshold {})",
+                    r.id,
+                    Pct(s.near_limit)
+                )),
+                None => msg(format_args!(
+                    "{what} {id}: at {} of its WLL {} (near-limit threshold {})",
+                    Pct(p.utilisation),
+                    Kn(p.wll_n),
+                    Pct(s.near_limit)
+                )),
+            },
             State::Unchecked => msg(format_args!(
                 "{what} {id}: UNCHECKED in case {}: {}",
                 r.id,
