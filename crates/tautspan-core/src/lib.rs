@@ -4,6 +4,7 @@
 
 pub mod analysis;
 pub mod caution;
+pub mod colour_ramp;
 pub mod file;
 pub mod library;
 pub mod model;

@@ -2,22 +2,23 @@
 //! UI state. Each frame draws the panels, which return commands; the
 //! commands are applied after the frame. A changed document goes to the
 //! solve worker (`derived`, `solve_worker`); the frame never waits for it.
-//! File handling is in `app_files`.
+//! File handling is in `files::app_files`.
 
+use crate::canvas::view::View;
 use crate::canvas::{self, CanvasInput, CanvasState};
-use crate::command::Command;
-use crate::derived::Derived;
+use crate::document::command::Command;
+use crate::document::derived::Derived;
+use crate::document::edits;
+use crate::document::selection::{Selection, Tool};
 use crate::document::{Document, blank_scenario};
+use crate::fields::qty_field::{ERROR, FieldBuffers};
 use crate::files::Files;
-use crate::inspector::{self, InspectorInput};
-use crate::plots::Plots;
-use crate::prefs::{LowerTab, Prefs};
-use crate::qty_field::{ERROR, FieldBuffers};
-use crate::results_table::{self, Sort};
-use crate::selection::{Selection, Tool};
-use crate::toolbar::{self, ToolbarInput};
-use crate::view::View;
-use crate::{cases_panel, edits, warnings_panel};
+use crate::files::prefs::{LowerTab, Prefs};
+use crate::panels::inspector::{self, InspectorInput};
+use crate::panels::plots::Plots;
+use crate::panels::results_table::{self, Sort};
+use crate::panels::toolbar::{self, ToolbarInput};
+use crate::panels::{cases, warnings};
 use egui::{Key, KeyboardShortcut, Modifiers, RichText, Ui};
 use std::path::PathBuf;
 use tautspan_core::library::MemberKind;
@@ -322,7 +323,7 @@ impl TautspanApp {
             toolbar::ui(ui, input, &mut out);
             self.message_ui(ui);
         });
-        egui::Panel::top("verdict").show(ui, |ui| crate::verdict_bar::ui(ui, &self.derived, &mut out));
+        egui::Panel::top("verdict").show(ui, |ui| crate::panels::verdict_bar::ui(ui, &self.derived, &mut out));
         egui::Panel::bottom("status").show(ui, |ui| self.status_ui(ui));
         egui::Panel::bottom("lower").resizable(true).default_size(250.0).show(ui, |ui| {
             ui.horizontal(|ui| {
@@ -348,7 +349,7 @@ impl TautspanApp {
         });
         egui::Panel::left("cases").resizable(true).default_size(270.0).show(ui, |ui| {
             egui::ScrollArea::vertical().show(ui, |ui| {
-                cases_panel::ui(
+                cases::ui(
                     ui,
                     &self.doc,
                     &self.derived,
@@ -358,7 +359,7 @@ impl TautspanApp {
                     &mut out,
                 );
                 ui.separator();
-                warnings_panel::ui(ui, &self.doc, &self.derived, &mut out);
+                warnings::ui(ui, &self.doc, &self.derived, &mut out);
             });
         });
         egui::Panel::right("inspector").resizable(true).default_size(330.0).show(ui, |ui| {
@@ -455,6 +456,6 @@ impl eframe::App for TautspanApp {
     }
 
     fn save(&mut self, storage: &mut dyn eframe::Storage) {
-        eframe::set_value(storage, crate::prefs::STORAGE_KEY, &self.prefs);
+        eframe::set_value(storage, crate::files::prefs::STORAGE_KEY, &self.prefs);
     }
 }

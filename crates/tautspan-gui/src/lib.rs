@@ -4,50 +4,21 @@
 //! All numbers come from `tautspan_core`; this crate draws and edits.
 
 mod app;
-mod app_files;
 mod canvas;
-mod canvas_draw;
-mod cases_panel;
-mod colour_ramp;
-mod command;
-pub mod core_bridge;
-mod deflected;
-mod derived;
 mod document;
-mod edits;
-mod explain;
+mod fields;
 mod files;
-mod geometry;
-mod id_field;
-mod inspector;
-mod inspector_hitch;
-mod inspector_member;
-mod inspector_parts;
-mod inspector_rope;
-mod member_labels;
-mod parts_view;
-mod plots;
-mod prefs;
-mod qty_field;
-mod qty_text;
-mod rename;
-mod results_table;
-mod selection;
-mod solve_worker;
-mod toolbar;
-mod undo;
-mod units_display;
-mod verdict_bar;
-mod view;
-mod warnings_panel;
+mod panels;
+
+pub use document::core_bridge;
 
 pub use app::{Message, Pending, TautspanApp};
-pub use command::Command;
+pub use canvas::view::View;
+pub use document::command::Command;
+pub use document::selection::{Selection, Tool};
 pub use document::{Document, blank_scenario};
-pub use prefs::Prefs;
-pub use selection::{Selection, Tool};
-pub use units_display::{Shown, UnitSystem};
-pub use view::View;
+pub use fields::units_display::{Shown, UnitSystem};
+pub use files::prefs::Prefs;
 
 use std::path::PathBuf;
 
@@ -83,7 +54,8 @@ pub fn run(file: Option<PathBuf>) -> Result<(), String> {
         "Tautspan",
         options,
         Box::new(move |cc| {
-            let prefs = cc.storage.and_then(|s| eframe::get_value::<Prefs>(s, prefs::STORAGE_KEY)).unwrap_or_default();
+            let prefs =
+                cc.storage.and_then(|s| eframe::get_value::<Prefs>(s, files::prefs::STORAGE_KEY)).unwrap_or_default();
             Ok(Box::new(TautspanApp::start(file, prefs)))
         }),
     )

@@ -1,0 +1,270 @@
+//! The drawing's geometry read from the document: nodes at their drawn
+//! positions (with their sheaves), members by their end ids (with their
+//! rated parts named), ropes by their paths, masses, and the slabs under floor
+//! nodes. Items that do not parse are left out (their fields say why). A
+//! drag moves one node a frame, so the geometry can follow such an edit in
+//! place instead of being read afresh.
+
+use crate::canvas::view::View;
+use egui::{Rect, pos2};
+use std::collections::HashMap;
+use tautspan_core::file::{ScenarioDto, SupportDto};
+use tautspan_core::units::{Dimension, Sign, parse_quantity};
+
+/// A node as drawn.
+#[derive(Debug, Clone)]
+pub struct GeoNode {
+    /// Id.
+    pub id: String,
+    /// Drawn (x, y), m.
+    pub pos_m: [f64; 2],
+    /// How it is held.
+    pub support: SupportDto,
+    /// Its sheave's tread diameter, m: `None` without a sheave, `Some(None)`
+    /// while the diameter does not parse (drawn at the smallest size).
+    pub sheave_m: Option<Option<f64>>,
+}
+
+/// A member as drawn.
+#[derive(Debug, Clone)]
+pub struct GeoMember {
+    /// Id.
+    pub id: String,
+    /// End node ids.
+    pub ends: (String, String),
+    /// The rated parts in series with it, as written (name or kind, WLL).
+    pub parts: Vec<String>,
+}
+
+/// A rope over sheaves as drawn: a polyline through its path.
+#[derive(Debug, Clone)]
+pub struct GeoRope {
+    /// Id.
+    pub id: String,
+    /// The node ids it runs through, end to end.
+    pub path: Vec<String>,
+}
+
+impl GeoRope {
+    /// Its spans as pairs of node ids, in path order.
+    pub fn spans(&self) -> impl Iterator<Item = (&str, &str)> {
+        self.path.windows(2).map(|w| (w[0].as_str(), w[1].as_str()))
+    }
+}
+
+/// A mass as drawn.
+#[derive(Debug, Clone)]
+pub struct GeoMass {
+    /// Id.
+    pub id: String,
+    /// Node id.
+    pub at: String,
+    /// Mass, kg, when it parses.
+    pub kg: Option<f64>,
+}
+
+/// A slab under a floor node.
+#[derive(Debug, Clone)]
+pub struct GeoFloor {
+    /// The slab's id.
+    pub floor_id: String,
+    /// The floor node's id.
+    pub node_id: String,
+    /// The node's position, m.
+    pub at_m: [f64; 2],
+    /// Span along x, m.
+    pub span_m: f64,
+    /// Thickness, m.
+    pub thickness_m: f64,
+}
+
+impl GeoFloor {
+    /// The slab's rectangle on screen (thickness at least 8 points so it reads).
+    pub fn rect_screen(&self, view: &View) -> Rect {
+        let left = view.to_screen(self.at_m[0] - self.span_m / 2.0, self.at_m[1]);
+        let right = view.to_screen(self.at_m[0] + self.span_m / 2.0, self.at_m[1]);
+        let t = ((self.thickness_m * view.px_per_m) as f32).max(8.0);
+        Rect::from_min_max(pos2(left.x, left.y), pos2(right.x, right.y + t))
+    }
+}
+
+/// The drawing's geometry, read from the document.
+#[derive(Debug, Clone, Default)]
+pub struct Geometry {
+    /// Nodes whose positions parse.
+    pub nodes: Vec<GeoNode>,
+    /// Members.
+    pub members: Vec<GeoMember>,
+    /// Ropes over sheaves.
+    pub ropes: Vec<GeoRope>,
+    /// Masses.
+    pub masses: Vec<GeoMass>,
+    /// Slabs under floor nodes.
+    pub floors: Vec<GeoFloor>,
+    /// Node index by id.
+    index: HashMap<String, usize>,
+}
+
+fn len(text: &str) -> Option<f64> {
+    parse_quantity(text, Dimension::Length, Sign::Any).ok()
+}
+
+fn mass_kg(text: &str) -> Option<f64> {
+    parse_quantity(text, Dimension::Mass, Sign::Positive).ok()
+}
+
+fn sheave_of(n: &tautspan_core::file::NodeDto) -> Option<Option<f64>> {
+    n.sheave.as_ref().map(|s| parse_quantity(&s.diameter.0, Dimension::Length, Sign::Positive).ok())
+}
+
+fn ropes_of(dto: &ScenarioDto) -> Vec<GeoRope> {
+    dto.ropes.iter().map(|r| GeoRope { id: r.id.clone(), path: r.path.clone() }).collect()
+}
+
+fn parts_of(fittings: &[tautspan_core::file::FittingDto]) -> Vec<String> {
+    fittings.iter().map(crate::panels::inspector::parts::describe).collect()
+}
+
+/// The slabs under the floor nodes.
+fn floors_of(nodes: &[GeoNode], dto: &ScenarioDto) -> Vec<GeoFloor> {
+    nodes
+        .iter()
+        .filter_map(|n| {
+            let SupportDto::Floor(fid) = &n.support else { return None };
+            let f = dto.floors.iter().find(|f| &f.id == fid)?;
+            Some(GeoFloor {
+                floor_id: fid.clone(),
+                node_id: n.id.clone(),
+                at_m: n.pos_m,
+                span_m: len(&f.span.0.0).unwrap_or(1.0).abs(),
+                thickness_m: len(&f.thickness.0).unwrap_or(0.15).abs(),
+            })
+        })
+        .collect()
+}
+
+impl Geometry {
+    /// Read the geometry of a document (items that do not parse are left out).
+    pub fn of(dto: &ScenarioDto) -> Geometry {
+        let nodes: Vec<GeoNode> = dto
+            .nodes
+            .iter()
+            .filter_map(|n| {
+                Some(GeoNode {
+                    id: n.id.clone(),
+                    pos_m: [len(&n.at.x.0)?, len(&n.at.y.0)?],
+                    support: n.support.clone(),
+                    sheave_m: sheave_of(n),
+                })
+            })
+            .collect();
+        let floors = floors_of(&nodes, dto);
+        let index = nodes.iter().enumerate().map(|(i, n)| (n.id.clone(), i)).collect();
+        Geometry {
+            index,
+            members: dto
+                .members
+                .iter()
+                .map(|m| GeoMember { id: m.id.clone(), ends: m.ends.clone(), parts: parts_of(&m.fittings) })
+                .collect(),
+            ropes: ropes_of(dto),
+            masses: dto
+                .masses
+                .iter()
+                .map(|m| GeoMass { id: m.id.clone(), at: m.at.clone(), kg: mass_kg(&m.mass.0) })
+                .collect(),
+            nodes,
+            floors,
+        }
+    }
+
+    /// Bring the geometry up to an edit of `dto` that moved things but kept
+    /// the same nodes, members and masses (a drag, a typed coordinate or
+    /// mass): positions are read again, nothing else is rebuilt. False, with
+    /// nothing changed, when the items themselves changed.
+    pub fn follow(&mut self, dto: &ScenarioDto) -> bool {
+        let same = self.nodes.len() == dto.nodes.len()
+            && self.nodes.iter().zip(&dto.nodes).all(|(g, n)| g.id == n.id && g.support == n.support)
+            && self.members.len() == dto.members.len()
+            && self.members.iter().zip(&dto.members).all(|(g, m)| g.id == m.id && g.ends == m.ends)
+            && self.ropes.len() == dto.ropes.len()
+            && self.ropes.iter().zip(&dto.ropes).all(|(g, r)| g.id == r.id && g.path == r.path)
+            && self.masses.len() == dto.masses.len()
+            && self.masses.iter().zip(&dto.masses).all(|(g, m)| g.id == m.id && g.at == m.at);
+        let Some(positions) = same
+            .then(|| dto.nodes.iter().map(|n| Some([len(&n.at.x.0)?, len(&n.at.y.0)?])).collect::<Option<Vec<_>>>())
+            .flatten()
+        else {
+            return false;
+        };
+        for ((g, p), n) in self.nodes.iter_mut().zip(positions).zip(&dto.nodes) {
+            g.pos_m = p;
+            // a sheave added, removed or resized in place
+            g.sheave_m = sheave_of(n);
+        }
+        for (g, m) in self.masses.iter_mut().zip(&dto.masses) {
+            g.kg = mass_kg(&m.mass.0);
+        }
+        for (g, m) in self.members.iter_mut().zip(&dto.members) {
+            // the parts may have been edited in place (a WLL typed)
+            if !(g.parts.is_empty() && m.fittings.is_empty()) {
+                g.parts = parts_of(&m.fittings);
+            }
+        }
+        self.floors = floors_of(&self.nodes, dto);
+        true
+    }
+
+    /// A node by id.
+    pub fn node(&self, id: &str) -> Option<&GeoNode> {
+        self.index.get(id).and_then(|&i| self.nodes.get(i))
+    }
+
+    /// The drawing's extent, m, slabs included.
+    pub fn bounds(&self) -> Option<([f64; 2], [f64; 2])> {
+        let mut pts: Vec<[f64; 2]> = self.nodes.iter().map(|n| n.pos_m).collect();
+        for f in &self.floors {
+            pts.push([f.at_m[0] - f.span_m / 2.0, f.at_m[1] - f.thickness_m]);
+            pts.push([f.at_m[0] + f.span_m / 2.0, f.at_m[1]]);
+        }
+        let first = *pts.first()?;
+        let (mut min, mut max) = (first, first);
+        for p in pts {
+            for k in 0..2 {
+                min[k] = min[k].min(p[k]);
+                max[k] = max[k].max(p[k]);
+            }
+        }
+        // room below for the masses
+        min[1] -= 0.6;
+        Some((min, max))
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn geometry_reads_positions_in_any_unit() {
+        let dto: ScenarioDto =
+            tautspan_core::file::parse_scenario_text(crate::DEMO_SCENARIO).map(|(d, _)| d).unwrap_or_default();
+        let g = Geometry::of(&dto);
+        assert!(g.nodes.len() >= 2);
+        assert!(g.bounds().is_some());
+    }
+
+    #[test]
+    fn following_a_move_matches_reading_afresh() {
+        let mut dto: ScenarioDto =
+            tautspan_core::file::parse_scenario_text(crate::DEMO_SCENARIO).map(|(d, _)| d).unwrap_or_default();
+        let mut g = Geometry::of(&dto);
+        crate::document::edits::move_node(&mut dto, &g.nodes[1].id.clone(), 0.25, 1.75, crate::UnitSystem::Si);
+        assert!(g.follow(&dto), "same items: followed in place");
+        let fresh = Geometry::of(&dto);
+        let pos = |g: &Geometry| g.nodes.iter().map(|n| n.pos_m).collect::<Vec<_>>();
+        assert_eq!(pos(&g), pos(&fresh));
+        dto.nodes.pop();
+        assert!(!g.follow(&dto), "a node removed: read afresh instead");
+    }
+}

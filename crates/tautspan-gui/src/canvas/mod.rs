@@ -1,0 +1,365 @@
+//! The canvas folder: the drawing the rig is built on. This file holds the
+//! tools, picking and drag; `input` what the canvas is given, `draw` the
+//! painting, `geometry` the positions drawn, `labels` the force labels,
+//! `deflected` the solved shape, `view` the pan and zoom.
+//!
+//! The canvas: the elevation (x–y) of the rig, with the tools that place
+//! and move things, and a tooltip naming a member's fittings. It reads the document and the analysis, and returns
+//! commands; it never edits the document itself. Drawing is in
+//! `draw`.
+
+pub(crate) mod deflected;
+pub(crate) mod draw;
+pub(crate) mod geometry;
+pub(crate) mod input;
+pub(crate) mod labels;
+pub(crate) mod view;
+
+use crate::canvas::geometry::Geometry;
+use crate::canvas::view::View;
+use crate::document::Document;
+use crate::document::command::Command;
+use crate::document::edits;
+use crate::document::selection::{Selection, Tool};
+use crate::fields::units_display::UnitSystem;
+use draw::Deflection;
+use egui::{Pos2, Sense, Ui};
+pub use input::CanvasInput;
+use std::sync::Arc;
+use tautspan_core::file::SupportDto;
+
+/// The canvas's own state between frames.
+#[derive(Debug, Default, Clone)]
+pub struct CanvasState {
+    /// The geometry of the document revision it was read from.
+    geometry: Option<(u64, Arc<Geometry>)>,
+    /// The first node picked with the member tool.
+    pub member_start: Option<String>,
+    /// The nodes picked so far with the rope tool, in order.
+    pub rope_path: Vec<String>,
+    /// The node being dragged.
+    pub dragging: Option<String>,
+    /// Panning with a drag on the background.
+    pub panning: bool,
+}
+
+impl CanvasState {
+    /// The document's geometry, read again only when its revision changed.
+    /// The canvas holds its copy only for the frame, so following an edit
+    /// in place does not copy it.
+    fn geometry(&mut self, doc: &Document) -> Arc<Geometry> {
+        if let Some((rev, g)) = &mut self.geometry {
+            // a drag moves one node a frame: follow it in place when the items are the same
+            if *rev == doc.revision || Arc::make_mut(g).follow(&doc.dto) {
+                *rev = doc.revision;
+                return g.clone();
+            }
+        }
+        let g = Arc::new(Geometry::of(&doc.dto));
+        self.geometry = Some((doc.revision, g.clone()));
+        g
+    }
+}
+
+/// What is under a screen point.
+fn hit(geo: &Geometry, view: &View, p: Pos2) -> Selection {
+    fn nearest(cands: impl Iterator<Item = (f32, Selection)>, radius: f32) -> Option<Selection> {
+        cands.filter(|(d, _)| *d <= radius).min_by(|a, b| a.0.total_cmp(&b.0)).map(|(_, s)| s)
+    }
+    let node = nearest(
+        geo.nodes.iter().map(|n| (view.to_screen(n.pos_m[0], n.pos_m[1]).distance(p), Selection::Node(n.id.clone()))),
+        9.0,
+    );
+    if let Some(s) = node {
+        return s;
+    }
+    for m in &geo.masses {
+        if draw::mass_rect(geo, view, m).is_some_and(|r| r.expand(2.0).contains(p)) {
+            return Selection::Mass(m.id.clone());
+        }
+    }
+    let span = |a: &str, b: &str| {
+        let (a, b) = (geo.node(a)?, geo.node(b)?);
+        let (sa, sb) = (view.to_screen(a.pos_m[0], a.pos_m[1]), view.to_screen(b.pos_m[0], b.pos_m[1]));
+        Some(segment_distance(p, sa, sb))
+    };
+    let members =
+        geo.members.iter().filter_map(|m| Some((span(&m.ends.0, &m.ends.1)?, Selection::Member(m.id.clone()))));
+    // a rope is picked by any of its spans
+    let ropes = geo.ropes.iter().filter_map(|r| {
+        let d = r.spans().filter_map(|(a, b)| span(a, b)).min_by(f32::total_cmp)?;
+        Some((d, Selection::Rope(r.id.clone())))
+    });
+    let member = nearest(members.chain(ropes), 6.0);
+    if let Some(s) = member {
+        return s;
+    }
+    for f in &geo.floors {
+        if f.rect_screen(view).contains(p) {
+            return Selection::Floor(f.floor_id.clone());
+        }
+    }
+    Selection::None
+}
+
+/// The tooltip naming a member's fittings, when the pointer is on that
+/// member or its parts mark.
+fn parts_tip(geo: &Geometry, view: &View, over: &Selection, p: Pos2) -> Option<String> {
+    let on_mark = geo.members.iter().find(|m| {
+        !m.parts.is_empty()
+            && geo.node(&m.ends.0).zip(geo.node(&m.ends.1)).is_some_and(|(a, b)| {
+                let (sa, sb) = (view.to_screen(a.pos_m[0], a.pos_m[1]), view.to_screen(b.pos_m[0], b.pos_m[1]));
+                draw::parts_mark_at(sa, sb).distance(p) <= 8.0
+            })
+    });
+    let m = on_mark.or_else(|| match over {
+        Selection::Member(id) => geo.members.iter().find(|m| &m.id == id),
+        _ => None,
+    })?;
+    parts_text(&m.id, &m.parts)
+}
+
+/// The text naming a member's fittings (none without parts).
+pub fn parts_text(member: &str, parts: &[String]) -> Option<String> {
+    if parts.is_empty() {
+        return None;
+    }
+    Some(format!("Fittings on {member}:\n{}", parts.iter().map(|p| format!("• {p}")).collect::<Vec<_>>().join("\n")))
+}
+
+fn segment_distance(p: Pos2, a: Pos2, b: Pos2) -> f32 {
+    let ab = b - a;
+    let len2 = ab.length_sq();
+    if len2 <= f32::EPSILON {
+        return p.distance(a);
+    }
+    let t = ((p - a).dot(ab) / len2).clamp(0.0, 1.0);
+    p.distance(a + ab * t)
+}
+
+/// Draw the canvas and turn pointer input into commands.
+pub fn ui(ui: &mut Ui, state: &mut CanvasState, view: &mut View, input: &CanvasInput<'_>, out: &mut Vec<Command>) {
+    let size = ui.available_size();
+    let (rect, response) = ui.allocate_exact_size(size, Sense::click_and_drag());
+    response.widget_info(|| egui::WidgetInfo::labeled(egui::Role::Canvas, true, "Canvas"));
+    view.rect = rect;
+    let drawn = state.geometry(input.doc);
+    // the deflected view draws and picks at the solved positions; nodes are
+    // dragged in the drawn view only
+    let deflected = if view.deflected {
+        input.derived.solved.as_ref().zip(input.derived.case(input.case)).map(|(s, c)| {
+            let by = deflected::displacements(s, c);
+            (
+                deflected::displaced(&drawn, &by, f64::from(view.magnification)),
+                deflected::caption(&c.id, view.magnification),
+            )
+        })
+    } else {
+        None
+    };
+    let geo: &Geometry = deflected.as_ref().map_or(&drawn, |(g, _)| g);
+    if view.fit_pending && rect.width() > 10.0 {
+        if let Some((min, max)) = drawn.bounds() {
+            view.fit(min, max);
+        } else {
+            view.fit_pending = false;
+        }
+    }
+
+    // zoom with the wheel (or a pinch) about the pointer
+    if let Some(p) = response.hover_pos() {
+        let (scroll, pinch) = ui.input(|i| (i.smooth_scroll_delta.y, i.zoom_delta()));
+        let factor = f64::from(pinch) * (f64::from(scroll) / 300.0).exp();
+        if (factor - 1.0).abs() > 1e-4 {
+            view.zoom(factor, p);
+        }
+    }
+    if response.dragged_by(egui::PointerButton::Middle) || response.dragged_by(egui::PointerButton::Secondary) {
+        view.pan(response.drag_delta());
+    }
+
+    let pointer = response.interact_pointer_pos().or_else(|| response.hover_pos());
+    let units = input.units;
+    match input.tool {
+        Tool::Select => select_tool(state, view, geo, &response, pointer, units, deflected.is_none(), out),
+        Tool::Anchor | Tool::Joint | Tool::FloorNode => {
+            if response.clicked()
+                && let Some(p) = pointer
+            {
+                match hit(geo, view, p) {
+                    Selection::Node(id) => out.push(Command::Select(Selection::Node(id))),
+                    _ => {
+                        let [x, y] = view.snapped(view.to_world(p), units);
+                        let tool = input.tool;
+                        out.push(Command::place(move |d| {
+                            let id = match tool {
+                                Tool::Anchor => edits::add_node(d, x, y, SupportDto::Anchor, units),
+                                Tool::FloorNode => edits::add_floor_node(d, x, y, units),
+                                _ => edits::add_node(d, x, y, SupportDto::Joint, units),
+                            };
+                            Selection::Node(id)
+                        }));
+                    }
+                }
+            }
+            background_pan(state, view, &response);
+        }
+        Tool::Member(kind) => {
+            if response.clicked()
+                && let Some(p) = pointer
+            {
+                if let Selection::Node(id) = hit(geo, view, p) {
+                    match state.member_start.take() {
+                        Some(first) if first != id => {
+                            out.push(Command::place(move |d| {
+                                Selection::Member(edits::add_member(d, &first, &id, kind, units))
+                            }));
+                        }
+                        _ => state.member_start = Some(id),
+                    }
+                } else {
+                    state.member_start = None;
+                }
+            }
+            background_pan(state, view, &response);
+        }
+        Tool::Rope => {
+            if response.clicked()
+                && let Some(p) = pointer
+                && let Selection::Node(id) = hit(geo, view, p)
+            {
+                // the last node clicked again (or the second click of a double click) finishes
+                if state.rope_path.last() == Some(&id) {
+                    out.extend(finish_rope(state, units));
+                } else {
+                    state.rope_path.push(id);
+                }
+            } else if response.double_clicked() {
+                out.extend(finish_rope(state, units));
+            }
+            background_pan(state, view, &response);
+        }
+        Tool::Mass => {
+            if response.clicked()
+                && let Some(p) = pointer
+                && let Selection::Node(id) = hit(geo, view, p)
+            {
+                out.push(Command::place(move |d| Selection::Mass(edits::add_mass(d, &id, units))));
+            }
+            background_pan(state, view, &response);
+        }
+    }
+    if let Some(p) = response.hover_pos()
+        && matches!(input.tool, Tool::Select)
+        && state.dragging.is_none()
+    {
+        let over = hit(geo, view, p);
+        if over != Selection::None {
+            ui.ctx().set_cursor_icon(egui::CursorIcon::PointingHand);
+        }
+        if let Some(text) = parts_tip(geo, view, &over, p) {
+            response.clone().on_hover_text_at_pointer(text);
+        }
+    }
+
+    let painter = ui.painter_at(rect);
+    let deflection = deflected.as_ref().map(|_| Deflection { drawn: &drawn });
+    let picking = draw::Picking {
+        member_start: state.member_start.as_deref(),
+        rope_path: &state.rope_path,
+        hover: response.hover_pos(),
+    };
+    draw::draw(&painter, view, geo, input, &picking, deflection.as_ref());
+    if let Some((_, caption)) = &deflected {
+        draw::deflection_caption(ui, view, caption);
+    } else if view.deflected {
+        draw::deflection_caption(ui, view, "Deflected shape: no results to show yet");
+    }
+}
+
+/// The rope routed so far with the rope tool, placed as one edit (one undo
+/// step) and selected; `None`, with the route kept, while it has fewer than
+/// three nodes (a rope runs over at least one sheave).
+pub fn finish_rope(state: &mut CanvasState, units: UnitSystem) -> Option<Command> {
+    if state.rope_path.len() < 3 {
+        return None;
+    }
+    let path = std::mem::take(&mut state.rope_path);
+    Some(Command::place(move |d| Selection::Rope(edits::add_rope(d, &path, units))))
+}
+
+fn background_pan(state: &mut CanvasState, view: &mut View, response: &egui::Response) {
+    if response.drag_started_by(egui::PointerButton::Primary) {
+        state.panning = true;
+    }
+    if state.panning && response.dragged_by(egui::PointerButton::Primary) {
+        view.pan(response.drag_delta());
+    }
+    if response.drag_stopped() {
+        state.panning = false;
+    }
+}
+
+#[allow(clippy::too_many_arguments, reason = "the canvas's pieces, passed apart to keep the borrows short")]
+fn select_tool(
+    state: &mut CanvasState,
+    view: &mut View,
+    geo: &Geometry,
+    response: &egui::Response,
+    pointer: Option<Pos2>,
+    units: UnitSystem,
+    can_drag: bool,
+    out: &mut Vec<Command>,
+) {
+    if response.clicked()
+        && let Some(p) = pointer
+    {
+        out.push(Command::Select(hit(geo, view, p)));
+    }
+    if response.drag_started_by(egui::PointerButton::Primary)
+        && let Some(p) = response.interact_pointer_pos()
+    {
+        // the press point, not where the pointer is after the drag threshold
+        let press = response.ctx.input(|i| i.pointer.press_origin()).unwrap_or(p);
+        match hit(geo, view, press) {
+            Selection::Node(id) if can_drag => {
+                out.push(Command::Select(Selection::Node(id.clone())));
+                state.dragging = Some(id);
+            }
+            _ => state.panning = true,
+        }
+    }
+    if response.dragged_by(egui::PointerButton::Primary) {
+        if let (Some(id), Some(p)) = (state.dragging.clone(), pointer) {
+            let [x, y] = view.snapped(view.to_world(p), units);
+            let moved = geo.node(&id).is_some_and(|n| (n.pos_m[0] - x).abs() > 1e-9 || (n.pos_m[1] - y).abs() > 1e-9);
+            if moved {
+                let key = format!("drag:{id}");
+                out.push(Command::edit_merged(key, move |d| edits::move_node(d, &id, x, y, units)));
+            }
+        } else if state.panning {
+            view.pan(response.drag_delta());
+        }
+    }
+    if response.drag_stopped() {
+        if state.dragging.take().is_some() {
+            out.push(Command::SealUndo);
+        }
+        state.panning = false;
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn the_tooltip_names_each_part() {
+        assert_eq!(parts_text("leg", &[]), None);
+        let parts = vec!["shackle, WLL 3.25 t".to_string(), "swivel, WLL 20 kN".to_string()];
+        assert_eq!(
+            parts_text("leg", &parts).as_deref(),
+            Some("Fittings on leg:\n• shackle, WLL 3.25 t\n• swivel, WLL 20 kN")
+        );
+    }
+}
