@@ -15,6 +15,7 @@ use crate::canvas::view::View;
 use crate::document::selection::Selection;
 use crate::fields::units_display::{Shown, UnitSystem, fmt_utilisation};
 use egui::{Align2, Color32, FontId, Painter, Pos2, Rect, Shape, Stroke, pos2, vec2};
+use std::cell::OnceCell;
 use std::collections::HashMap;
 use tautspan_core::analysis::MemberResult;
 use tautspan_core::analysis::State;
@@ -202,8 +203,17 @@ pub fn draw(
         .map(|p| p.members.iter().map(String::as_str).zip(p.shares.iter().copied()).collect())
         .unwrap_or_default();
 
-    let results: HashMap<&str, &MemberResult> =
-        case.map(|c| c.members.iter().map(|r| (r.id.as_str(), r)).collect()).unwrap_or_default();
+    // a case's results are in the order of the members, then the ropes;
+    // looked up by id only when the drawing and the results differ (an edit
+    // not yet solved), so a frame of a large net does not hash every id
+    let by_id: OnceCell<HashMap<&str, &MemberResult>> = OnceCell::new();
+    let result_at = |k: usize, id: &str| -> Option<&MemberResult> {
+        let c = case?;
+        match c.members.get(k) {
+            Some(r) if r.id == id => Some(r),
+            _ => by_id.get_or_init(|| c.members.iter().map(|r| (r.id.as_str(), r)).collect()).get(id).copied(),
+        }
+    };
     // labels go on the side of each member away from the middle of the rig,
     // so the labels of members meeting at a joint do not sit on each other
     let centre = {
@@ -216,10 +226,10 @@ pub fn draw(
     // large net has tens of thousands; one call each costs more than drawing)
     let mut shapes: Vec<Shape> = Vec::with_capacity(geo.members.len() * 2);
     for (k, m) in geo.members.iter().enumerate() {
-        let (Some(a), Some(b)) = (geo.node(&m.ends.0), geo.node(&m.ends.1)) else { continue };
+        let Some((a, b)) = geo.ends(m) else { continue };
         let (sa, sb) = (view.to_screen(a.pos_m[0], a.pos_m[1]), view.to_screen(b.pos_m[0], b.pos_m[1]));
-        let result = results.get(m.id.as_str()).copied();
-        let picked = *input.selection == Selection::Member(m.id.clone());
+        let result = result_at(k, &m.id);
+        let picked = matches!(input.selection, Selection::Member(id) if *id == m.id);
         if let Some(share) = path.get(m.id.as_str()) {
             // the glow widens with the member's share of the mass's weight
             shapes
@@ -247,8 +257,8 @@ pub fn draw(
     };
     for (k, r) in geo.ropes.iter().enumerate() {
         let spans: Vec<(Pos2, Pos2)> = r.spans().filter_map(|(a, b)| on_screen(a, b)).collect();
-        let result = results.get(r.id.as_str()).copied();
-        let picked = *input.selection == Selection::Rope(r.id.clone());
+        let result = result_at(geo.members.len() + k, &r.id);
+        let picked = matches!(input.selection, Selection::Rope(id) if *id == r.id);
         for &(sa, sb) in &spans {
             if let Some(share) = path.get(r.id.as_str()) {
                 shapes.push(Shape::line_segment(
@@ -283,7 +293,7 @@ pub fn draw(
                 Some(m) => m.id.as_str(),
                 None => geo.ropes.get(k - geo.members.len()).map_or("", |r| r.id.as_str()),
             };
-            match results.get(id) {
+            match result_at(k, id) {
                 Some(r) if r.state == State::Slack => format!("{id} slack"),
                 // a rope's force is its largest span's tension
                 Some(r) if !r.segments.is_empty() => format!("{id} {} max", units.fmt(r.force_n, Shown::Force)),
@@ -327,7 +337,7 @@ pub fn draw(
     let mut marks: Vec<Shape> = Vec::new();
     for m in &geo.masses {
         let (Some(n), Some(r)) = (geo.node(&m.at), mass_rect(geo, view, m)) else { continue };
-        let picked = *input.selection == Selection::Mass(m.id.clone());
+        let picked = matches!(input.selection, Selection::Mass(id) if *id == m.id);
         if !readable && !picked {
             let p = view.to_screen(n.pos_m[0], n.pos_m[1]);
             marks.push(Shape::rect_filled(Rect::from_center_size(p + vec2(0.0, 6.0), vec2(5.0, 5.0)), 0.0, MASS_FILL));
@@ -349,7 +359,7 @@ pub fn draw(
     let mut names: Vec<(Pos2, &str)> = Vec::new();
     for n in &geo.nodes {
         let p = view.to_screen(n.pos_m[0], n.pos_m[1]);
-        if *input.selection == Selection::Node(n.id.clone())
+        if matches!(input.selection, Selection::Node(id) if *id == n.id)
             || member_start == Some(n.id.as_str())
             || picking.rope_path.contains(&n.id)
         {

@@ -23,6 +23,8 @@ pub struct GeoNode {
     /// Its sheave's tread diameter, m: `None` without a sheave, `Some(None)`
     /// while the diameter does not parse (drawn at the smallest size).
     pub sheave_m: Option<Option<f64>>,
+    /// The (x, y) text `pos_m` was read from: a drag re-reads only what changed.
+    read_from: [String; 2],
 }
 
 /// A member as drawn.
@@ -34,6 +36,8 @@ pub struct GeoMember {
     pub ends: (String, String),
     /// The rated parts in series with it, as written (name or kind, WLL).
     pub parts: Vec<String>,
+    /// Where its ends are in `Geometry::nodes`, when both are drawn.
+    pub end_at: Option<[usize; 2]>,
 }
 
 /// A rope over sheaves as drawn: a polyline through its path.
@@ -61,6 +65,8 @@ pub struct GeoMass {
     pub at: String,
     /// Mass, kg, when it parses.
     pub kg: Option<f64>,
+    /// The text `kg` was read from.
+    read_from: String,
 }
 
 /// A slab under a floor node.
@@ -155,23 +161,35 @@ impl Geometry {
                     pos_m: [len(&n.at.x.0)?, len(&n.at.y.0)?],
                     support: n.support.clone(),
                     sheave_m: sheave_of(n),
+                    read_from: [n.at.x.0.clone(), n.at.y.0.clone()],
                 })
             })
             .collect();
         let floors = floors_of(&nodes, dto);
-        let index = nodes.iter().enumerate().map(|(i, n)| (n.id.clone(), i)).collect();
+        let index: HashMap<String, usize> = nodes.iter().enumerate().map(|(i, n)| (n.id.clone(), i)).collect();
+        let members = dto
+            .members
+            .iter()
+            .map(|m| GeoMember {
+                id: m.id.clone(),
+                ends: m.ends.clone(),
+                parts: parts_of(&m.fittings),
+                end_at: index.get(&m.ends.0).zip(index.get(&m.ends.1)).map(|(&a, &b)| [a, b]),
+            })
+            .collect();
         Geometry {
             index,
-            members: dto
-                .members
-                .iter()
-                .map(|m| GeoMember { id: m.id.clone(), ends: m.ends.clone(), parts: parts_of(&m.fittings) })
-                .collect(),
+            members,
             ropes: ropes_of(dto),
             masses: dto
                 .masses
                 .iter()
-                .map(|m| GeoMass { id: m.id.clone(), at: m.at.clone(), kg: mass_kg(&m.mass.0) })
+                .map(|m| GeoMass {
+                    id: m.id.clone(),
+                    at: m.at.clone(),
+                    kg: mass_kg(&m.mass.0),
+                    read_from: m.mass.0.clone(),
+                })
                 .collect(),
             nodes,
             floors,
@@ -191,19 +209,34 @@ impl Geometry {
             && self.ropes.iter().zip(&dto.ropes).all(|(g, r)| g.id == r.id && g.path == r.path)
             && self.masses.len() == dto.masses.len()
             && self.masses.iter().zip(&dto.masses).all(|(g, m)| g.id == m.id && g.at == m.at);
-        let Some(positions) = same
-            .then(|| dto.nodes.iter().map(|n| Some([len(&n.at.x.0)?, len(&n.at.y.0)?])).collect::<Option<Vec<_>>>())
-            .flatten()
-        else {
+        if !same {
             return false;
-        };
-        for ((g, p), n) in self.nodes.iter_mut().zip(positions).zip(&dto.nodes) {
+        }
+        // only the coordinates whose text changed are read again (a drag
+        // changes one node's; reading all of a large net's costs a frame)
+        let mut moved = Vec::new();
+        for (k, (g, n)) in self.nodes.iter().zip(&dto.nodes).enumerate() {
+            if g.read_from[0] != n.at.x.0 || g.read_from[1] != n.at.y.0 {
+                let (Some(x), Some(y)) = (len(&n.at.x.0), len(&n.at.y.0)) else { return false };
+                moved.push((k, [x, y]));
+            }
+        }
+        for (k, p) in moved {
+            let (g, n) = (&mut self.nodes[k], &dto.nodes[k]);
             g.pos_m = p;
+            g.read_from = [n.at.x.0.clone(), n.at.y.0.clone()];
+        }
+        for (g, n) in self.nodes.iter_mut().zip(&dto.nodes) {
             // a sheave added, removed or resized in place
-            g.sheave_m = sheave_of(n);
+            if g.sheave_m.is_some() || n.sheave.is_some() {
+                g.sheave_m = sheave_of(n);
+            }
         }
         for (g, m) in self.masses.iter_mut().zip(&dto.masses) {
-            g.kg = mass_kg(&m.mass.0);
+            if g.read_from != m.mass.0 {
+                g.kg = mass_kg(&m.mass.0);
+                g.read_from.clone_from(&m.mass.0);
+            }
         }
         for (g, m) in self.members.iter_mut().zip(&dto.members) {
             // the parts may have been edited in place (a WLL typed)
@@ -213,6 +246,12 @@ impl Geometry {
         }
         self.floors = floors_of(&self.nodes, dto);
         true
+    }
+
+    /// A member's two ends, when both are drawn.
+    pub fn ends(&self, m: &GeoMember) -> Option<(&GeoNode, &GeoNode)> {
+        let [a, b] = m.end_at?;
+        Some((self.nodes.get(a)?, self.nodes.get(b)?))
     }
 
     /// A node by id.
@@ -264,7 +303,28 @@ mod tests {
         let fresh = Geometry::of(&dto);
         let pos = |g: &Geometry| g.nodes.iter().map(|n| n.pos_m).collect::<Vec<_>>();
         assert_eq!(pos(&g), pos(&fresh));
+        // a mass typed in another unit, then a coordinate that no longer reads
+        if let Some(m) = dto.masses.first_mut() {
+            m.mass.0 = "2 t".to_string();
+            assert!(g.follow(&dto));
+            assert_eq!(g.masses[0].kg, Some(2000.0));
+        }
+        let x0 = g.nodes[0].pos_m;
+        dto.nodes[0].at.x.0 = "12 furlongs".to_string();
+        assert!(!g.follow(&dto), "a coordinate that does not read: read afresh instead");
+        assert_eq!(g.nodes[0].pos_m, x0, "nothing changed by a follow that failed");
         dto.nodes.pop();
         assert!(!g.follow(&dto), "a node removed: read afresh instead");
+    }
+
+    #[test]
+    fn members_know_where_their_ends_are() {
+        let dto: ScenarioDto =
+            tautspan_core::file::parse_scenario_text(crate::DEMO_SCENARIO).map(|(d, _)| d).unwrap_or_default();
+        let g = Geometry::of(&dto);
+        for m in &g.members {
+            let (a, b) = g.ends(m).unwrap_or_else(|| panic!("{}", m.id));
+            assert_eq!((a.id.as_str(), b.id.as_str()), (m.ends.0.as_str(), m.ends.1.as_str()));
+        }
     }
 }

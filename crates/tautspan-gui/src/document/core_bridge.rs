@@ -5,8 +5,8 @@
 
 use std::time::Instant;
 use tautspan_core::analysis::{
-    Analysis, CaseSimulation, Prior, SimulateRequest, WarningGroup, analyse_from, member_allowable, release_curve,
-    simulate_case,
+    Analysis, CaseSimulation, Prior, SimulateRequest, WarningGroup, Worst, analyse_from, member_allowable,
+    release_curve, simulate_case, worst,
 };
 use tautspan_core::file::ScenarioDto;
 use tautspan_core::model::{Problem, Scenario, build};
@@ -24,6 +24,8 @@ pub struct Solved {
     /// The warnings grouped by kind: the scenario's (case `None`), then
     /// each case's; grouped once here, off the UI thread.
     pub warning_groups: Vec<(Option<String>, WarningGroup)>,
+    /// The worst item over every case (the verdict bar's), found once here.
+    pub worst: Option<Worst>,
 }
 
 /// Validate and analyse a document. With a `prior` answer (the previous
@@ -52,7 +54,8 @@ pub fn analyse_model(scenario: Scenario, prior: Option<&Solved>, start: Instant)
         .map(|g| (None, g))
         .chain(analysis.cases.iter().flat_map(|c| c.warning_groups().into_iter().map(|g| (Some(c.id.clone()), g))))
         .collect();
-    Solved { scenario, analysis, solve_ms: start.elapsed().as_secs_f64() * 1e3, warning_groups }
+    let worst = worst(&analysis);
+    Solved { scenario, analysis, solve_ms: start.elapsed().as_secs_f64() * 1e3, warning_groups, worst }
 }
 
 /// How a member's allowable was found, in words (formula, inputs, sources).

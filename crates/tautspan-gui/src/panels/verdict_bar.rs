@@ -7,7 +7,7 @@ use crate::document::command::Command;
 use crate::document::derived::Derived;
 use crate::document::selection::Selection;
 use egui::{Color32, RichText, Ui};
-use tautspan_core::analysis::{Analysis, ItemKind, State, Verdict, worst};
+use tautspan_core::analysis::{Analysis, ItemKind, State, Verdict};
 
 /// Green-free colours so the verdict does not lean on a red/green pair:
 /// a dark blue band for within, the app's error colour for the rest.
@@ -49,7 +49,7 @@ pub fn ui(ui: &mut Ui, derived: &Derived, out: &mut Vec<Command>) {
         if !unsolved.is_empty() {
             ui.label(RichText::new(format!("not solved: {}", unsolved.join(", "))).color(AGAINST));
         }
-        if let Some(w) = worst(a) {
+        if let Some(w) = &solved.worst {
             let what = match w.state {
                 State::Unchecked => "unchecked".to_string(),
                 _ => format!("{:.1} %", w.utilisation * 100.0),
