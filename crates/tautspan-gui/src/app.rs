@@ -14,6 +14,7 @@ use crate::document::{Document, blank_scenario};
 use crate::fields::qty_field::{ERROR, FieldBuffers};
 use crate::files::Files;
 use crate::files::prefs::{LowerTab, Prefs};
+use crate::files::recovery::{self, Found, Recovery};
 use crate::panels::inspector::{self, InspectorInput};
 use crate::panels::plots::Plots;
 use crate::panels::results_table::{self, Sort};
@@ -85,6 +86,10 @@ pub struct TautspanApp {
     pub(crate) quit_allowed: bool,
     /// Set when the app asked the window to close.
     pub close_requested: bool,
+    /// The copy of unsaved work kept against a crash.
+    pub recovery: Recovery,
+    /// Unsaved work from an earlier run, offered back until answered.
+    pub recovered: Option<Found>,
     last_title: String,
 }
 
@@ -111,6 +116,8 @@ impl TautspanApp {
             export_waiting: false,
             quit_allowed: false,
             close_requested: false,
+            recovery: Recovery::default(),
+            recovered: None,
             last_title: String::new(),
         }
     }
@@ -130,6 +137,24 @@ impl TautspanApp {
     /// The app on a file, or on the demo when `None`. A file that does not
     /// load leaves a new scenario open and says why.
     pub fn start(file: Option<PathBuf>, prefs: Prefs) -> TautspanApp {
+        TautspanApp::start_in(file, prefs, recovery::state_dir())
+    }
+
+    /// As [`TautspanApp::start`], with unsaved work kept in (and looked for
+    /// in) `state_dir`; `None` keeps no copy.
+    pub fn start_in(file: Option<PathBuf>, prefs: Prefs, state_dir: Option<PathBuf>) -> TautspanApp {
+        let mut app = TautspanApp::open_at_start(file, prefs);
+        if let Some(dir) = state_dir {
+            match recovery::find(&dir) {
+                Ok(found) => app.recovered = found,
+                Err(e) => app.message = Some(Message::Error(e)),
+            }
+            app.recovery = Recovery::into_dir(dir);
+        }
+        app
+    }
+
+    fn open_at_start(file: Option<PathBuf>, prefs: Prefs) -> TautspanApp {
         match file {
             None => TautspanApp::demo(prefs),
             Some(p) => match crate::files::read_scenario(&p) {
@@ -251,6 +276,8 @@ impl TautspanApp {
             Pending::Open => self.files.ask(crate::files::Purpose::Open, ctx, self.doc.path.as_deref()),
             Pending::OpenPath(path) => self.open_path(&path),
             Pending::Quit => {
+                // the user chose to drop the changes: no copy is kept
+                self.recovery.discard();
                 self.quit_allowed = true;
                 self.close_requested = true;
                 ctx.send_viewport_cmd(egui::ViewportCommand::Close);
@@ -387,8 +414,14 @@ impl TautspanApp {
             canvas::ui(ui, &mut self.canvas, &mut self.view, &input, &mut out);
         });
         self.dialogs_ui(ui.ctx(), &mut out);
+        self.recovery_ui(ui.ctx());
         let ctx = ui.ctx().clone();
         self.apply(&ctx, out);
+        // unsaved work copied against a crash (not while an earlier copy is
+        // still being offered: it would be written over)
+        if self.recovered.is_none() {
+            self.recovery.tick(self.doc.dirty, self.doc.revision, self.doc.path.as_deref(), &self.doc.dto);
+        }
     }
 
     fn message_ui(&mut self, ui: &mut Ui) {

@@ -11,6 +11,7 @@ mod files;
 mod panels;
 
 pub use document::core_bridge;
+pub use files::recovery;
 
 pub use app::{Message, Pending, TautspanApp};
 pub use canvas::view::View;

@@ -160,4 +160,51 @@ impl TautspanApp {
             self.files.prompt = Some(prompt);
         }
     }
+
+    /// Offer back unsaved work found at start: restore it (as unsaved
+    /// changes to the file it belonged to) or discard it.
+    pub(crate) fn recovery_ui(&mut self, ctx: &Context) {
+        let Some(found) = self.recovered.clone() else { return };
+        let from =
+            found.original.as_ref().map_or_else(|| "an untitled scenario".to_string(), |p| p.display().to_string());
+        let when = found
+            .written
+            .and_then(|t| t.duration_since(std::time::UNIX_EPOCH).ok())
+            .map(|d| {
+                let secs = d.as_secs();
+                let date = tautspan_core::report::civil_date(secs);
+                format!(" (written {date} {:02}:{:02} UTC)", secs % 86_400 / 3600, secs % 3600 / 60)
+            })
+            .unwrap_or_default();
+        let mut answer = None;
+        egui::Modal::new(egui::Id::unique("recovered-work")).show(ctx, |ui| {
+            ui.heading("Unsaved work found");
+            ui.label(format!(
+                "Tautspan did not close normally. Unsaved changes to {from} were kept{when}: \"{}\".",
+                found.dto.title
+            ));
+            ui.label("Restore them as unsaved changes, or discard them?");
+            ui.horizontal(|ui| {
+                if ui.button("Restore unsaved work").clicked() {
+                    answer = Some(true);
+                }
+                if ui.button("Discard it").clicked() {
+                    answer = Some(false);
+                }
+            });
+        });
+        match answer {
+            Some(true) => {
+                self.doc.replace(found.dto, found.original);
+                self.doc.dirty = true;
+                self.after_replace();
+                self.recovered = None;
+            }
+            Some(false) => {
+                self.recovery.discard();
+                self.recovered = None;
+            }
+            None => {}
+        }
+    }
 }
