@@ -266,6 +266,7 @@ pub fn case_warnings(s: &Scenario, case: &Case, r: &CaseResult, static_r: Option
     }
     w.extend(part_warnings(s, r));
     w.extend(super::multi_leg::multi_leg_warnings(s, r, &legs));
+    w.extend(super::drawn_shape::drawn_shape_warnings(s, case, r, static_r));
     w
 }
 
