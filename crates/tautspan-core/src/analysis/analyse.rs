@@ -321,6 +321,13 @@ pub fn analyse_from(s: &Scenario, prior: Option<Prior<'_>>) -> Analysis {
         // a prior state that no longer fits (a member made much shorter, say): from the drawing
         base = solve_case(s, &net, &allow, &mut solver, &static_case, &loads.total_n, None, None);
     }
+    let base = base.and_then(|b| match solver.instability(&b.eq) {
+        Ok(Some(u)) => Err(format!(
+            "the rig as drawn balances unstably{}: a strut or line standing upright on a pin, with the load exactly above, topples at the least push, so it is a mechanism and no force is reported; brace it or hang the load below its support",
+            u.node.map(|n| format!(" at node {n}")).unwrap_or_default()
+        )),
+        _ => Ok(b),
+    });
     let base = match base {
         Ok(b) => b,
         Err(e) => {

@@ -60,7 +60,12 @@ pub(super) struct Ctx {
 
 impl Ctx {
     pub(super) fn err(&mut self, path: impl std::fmt::Display, message: impl Into<String>) {
-        self.problems.push(Problem { path: path.to_string(), message: message.into() });
+        let (path, message) = (path.to_string(), message.into());
+        // a value given but refused has its own message: not also "missing"
+        if message.starts_with("missing") && self.problems.iter().any(|p| p.path == path) {
+            return;
+        }
+        self.problems.push(Problem { path, message });
     }
 
     pub(super) fn qty(
@@ -924,13 +929,10 @@ pub(super) fn build_member(
                     "steel, EN 1993-1-1; chain stiffer than real (link bending ignored)".to_string(),
                 ),
                 _ => {
-                    // a modulus given but refused has its own message already
-                    if m.modulus.is_none() {
-                        ctx.err(
-                            p("modulus"),
-                            "missing: give `modulus` (e.g. \"100 GPa\"), a `construction`, or a `material`",
-                        );
-                    }
+                    ctx.err(
+                        p("modulus"),
+                        "missing: give `modulus` (e.g. \"100 GPa\"), a `construction`, or a `material`",
+                    );
                     return None;
                 }
             };
