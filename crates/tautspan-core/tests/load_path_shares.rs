@@ -229,12 +229,14 @@ fn a_loop_is_followed_round_until_the_weight_leaves() {
     let (net, _) = to_network(&s);
     let eq = tautspan_core::solve::Equilibrium {
         positions_m: net.nodes.iter().map(|n| n.position_m).collect(),
+        displacements_m: vec![[0.0; 3]; 3],
         member_force_n: vec![100.0, -50.0, 50.0],
         member_length_m: vec![1.0, 1.0, 1.0],
         floor_force_n: vec![0.0; 3],
         reaction_n: vec![[0.0; 3]; 3],
         iterations: 0,
         residual_n: 0.0,
+        tolerance_n: 1e-9,
     };
     let p = LoadFlow::new(&net, &eq).trace(&[(1, 1.0)], LOAD_PATH_THRESHOLD, usize::MAX, &mut TraceScratch::default());
     let share = |i: usize| p.members.iter().find(|m| m.0 == i).map_or(0.0, |m| m.1);

@@ -41,7 +41,10 @@ fn limits_from(m: &MassLimits, weight_n: f64) -> Limits {
     }
 }
 
-fn failed_case(case: &Case, message: String) -> CaseResult {
+/// A case that could not be solved, with its reason: the message names
+/// the case once (`case drop: …`), here and nowhere else.
+fn failed_case(case: &Case, reason: String) -> CaseResult {
+    let message = format!("case {}: {reason}", case.id());
     CaseResult {
         id: case.id().to_string(),
         kind: case.kind_name().to_string(),
@@ -318,6 +321,13 @@ pub fn analyse_from(s: &Scenario, prior: Option<Prior<'_>>) -> Analysis {
         // a prior state that no longer fits (a member made much shorter, say): from the drawing
         base = solve_case(s, &net, &allow, &mut solver, &static_case, &loads.total_n, None, None);
     }
+    let base = base.and_then(|b| match solver.instability(&b.eq) {
+        Ok(Some(u)) => Err(format!(
+            "the rig as drawn balances unstably{}: a strut or line standing upright on a pin, with the load exactly above, topples at the least push, so it is a mechanism and no force is reported; brace it or hang the load below its support",
+            u.node.map(|n| format!(" at node {n}")).unwrap_or_default()
+        )),
+        _ => Ok(b),
+    });
     let base = match base {
         Ok(b) => b,
         Err(e) => {
@@ -404,12 +414,9 @@ pub fn analyse_from(s: &Scenario, prior: Option<Prior<'_>>) -> Analysis {
         Some(st) => comparison(s, &allow, &results, st, &searches, &mass_limits, &swing_limits),
         None => Vec::new(),
     };
+    // a failed case's error already names it (`failed_case`)
     warnings.extend(results.iter().filter_map(|r| {
-        r.error.as_ref().map(|e| Warning {
-            kind: WarningKind::CaseFailed,
-            subject: None,
-            message: format!("case {}: {e}", r.id),
-        })
+        r.error.as_ref().map(|e| Warning { kind: WarningKind::CaseFailed, subject: None, message: e.clone() })
     }));
     Analysis {
         title: s.title.clone(),
@@ -463,11 +470,7 @@ fn run_case(
                 None => {
                     return failed_case(
                         c,
-                        format!(
-                            "case {}: the path stiffness at mass {} could not be found",
-                            c.id(),
-                            s.masses[*mass].id
-                        ),
+                        format!("the path stiffness at mass {} could not be found", s.masses[*mass].id),
                     );
                 }
             }
@@ -480,6 +483,17 @@ fn run_case(
     };
     let Some(m) = c.mass() else { return base.result.clone() };
     let w = s.masses[m].mass.value * g;
+    if !(factor.is_finite() && (factor * w).is_finite()) {
+        // a drop beyond what double precision holds (`1e300 km`): no load,
+        // no forces, a reason
+        return failed_case(
+            c,
+            format!(
+                "the load on mass {} overflows: {formula} is not a finite number; check the case's inputs for a slip of units or exponent",
+                s.masses[m].id
+            ),
+        );
+    }
     let l = loads.with_mass_factor(s, m, factor);
     let dynamic =
         DynamicLoad { mass: s.masses[m].id.clone(), factor, load_n: factor * w, formula, path_stiffness_n_per_m: k };
@@ -505,7 +519,7 @@ fn run_case(
             }
             solved.result
         }
-        Err(e) => failed_case(c, format!("case {}: {e}", c.id())),
+        Err(e) => failed_case(c, e),
     }
 }
 
@@ -737,12 +751,12 @@ fn run_swing(
     limits_cache: &mut Vec<(usize, f64, f64, Option<ReleaseLimits>)>,
 ) -> (CaseResult, Vec<Warning>) {
     let Case::Swing { mass, release, azimuth, .. } = c else {
-        return (failed_case(c, format!("case {}: not a swing", c.id())), Vec::new());
+        return (failed_case(c, "not a swing".to_string()), Vec::new());
     };
     let setup = SwingSetup { mass: *mass, release_rad: release.value, azimuth_rad: azimuth.value };
     let arc = match sweep(solver, s, allow, loads, setup, &base.eq) {
         Ok(a) => a,
-        Err(e) => return (failed_case(c, format!("case {}: {e}", c.id())), Vec::new()),
+        Err(e) => return (failed_case(c, e.to_string()), Vec::new()),
     };
     let limits = match limits_cache.iter().find(|x| x.0 == *mass && x.1 == azimuth.value && x.2 == release.value) {
         Some(x) => x.3.clone(),

@@ -4,6 +4,7 @@
 mod allowable;
 mod analyse;
 mod curves;
+mod drawn_shape;
 mod evaluate;
 mod fittings;
 mod floor_check;
@@ -25,6 +26,7 @@ mod worst;
 pub use allowable::{Allowable, NEEDS_RATED_POINT, floor_allowable, member_allowable, member_allowable_n};
 pub use analyse::{Prior, analyse, analyse_from, assumptions};
 pub use curves::{ReleaseCurve, release_curve, single_line_swing};
+pub use drawn_shape::{SHAPE_MOVE_FLOOR_M, SHAPE_MOVE_FRACTION, rig_size_m, shape_move_limit_m};
 pub use evaluate::Allowables;
 pub use fittings::node_load_n;
 pub use load_paths::{ALL_MASSES, LOAD_PATH_THRESHOLD, MAX_LISTED};

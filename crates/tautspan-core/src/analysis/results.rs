@@ -417,7 +417,8 @@ pub struct Analysis {
 pub enum Verdict {
     /// Every item within its allowable in every case, as far as this tool checks.
     Within,
-    /// Something over its allowable, slack where it must carry, or a case not solved.
+    /// Something over its allowable, slack where it must carry, a case not
+    /// solved, or a solved shape far from the drawing.
     NotWithin,
     /// Nothing over, but something the inputs cannot check.
     Unchecked,
@@ -456,7 +457,7 @@ impl Analysis {
     }
 
     /// The scenario's verdict: not within when anything is over, slack
-    /// where it must carry or not solved; else unchecked when any item could
+    /// where it must carry, not solved or far from its drawing; else unchecked when any item could
     /// not be checked; else within.
     pub fn verdict(&self) -> Verdict {
         if !self.cases.iter().all(|c| c.converged && c.error.is_none()) || self.any_fault() {
@@ -481,6 +482,10 @@ impl Analysis {
             c.members.iter().any(|m| m.state == State::Over)
                 || c.floors.iter().any(|f| f.state == State::Over)
                 || c.parts().any(|p| p.state == State::Over)
-        }) || self.cases.iter().any(|c| c.warning_items.iter().any(|w| w.message.contains("meant to carry")))
+        }) || self.cases.iter().any(|c| {
+            c.warning_items
+                .iter()
+                .any(|w| w.message.contains("meant to carry") || w.kind == WarningKind::FarFromDrawing)
+        })
     }
 }

@@ -60,6 +60,9 @@ pub enum WarningKind {
     OwnWeightUnknown,
     /// A case that could not be solved.
     CaseFailed,
+    /// A node far from its drawn position, or a member turned over: the
+    /// rig does not stand as drawn.
+    FarFromDrawing,
 }
 
 impl WarningKind {
@@ -92,6 +95,7 @@ impl WarningKind {
             WarningKind::DesignFactorLow => "design_factor_low",
             WarningKind::OwnWeightUnknown => "own_weight_unknown",
             WarningKind::CaseFailed => "case_failed",
+            WarningKind::FarFromDrawing => "far_from_drawing",
         }
     }
 
@@ -136,6 +140,9 @@ impl WarningKind {
             WarningKind::DesignFactorLow => "members with a design factor below their kind's default",
             WarningKind::OwnWeightUnknown => "members whose own weight is not known and left out (give `linear_mass`)",
             WarningKind::CaseFailed => "cases not solved",
+            WarningKind::FarFromDrawing => {
+                "nodes or members far from their drawn shape (the rig does not stand as drawn: check the drawing)"
+            }
         }
     }
 }

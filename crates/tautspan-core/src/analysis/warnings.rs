@@ -48,6 +48,20 @@ pub const HORIZONTAL_DEG: f64 = 0.5;
 /// Parabolic sag is good to sag/span ≈ 1/8 (Irvine, Cable Structures, 1981).
 pub const SAG_RATIO_LIMIT: f64 = 0.125;
 
+/// For a member held at both ends by anchors, why it is slack: it carries
+/// none of the rig's load, only its own pretension.
+fn between_anchors(s: &Scenario, m: &crate::model::Member) -> String {
+    let anchor = |k: usize| s.nodes[k].support == crate::model::Support::Anchor;
+    if m.run.is_none() && anchor(m.ends[0]) && anchor(m.ends[1]) {
+        format!(
+            "; it runs between anchors {} and {}, so it carries none of the rig's load, only a pretension given as negative `slack`",
+            s.nodes[m.ends[0]].id, s.nodes[m.ends[1]].id
+        )
+    } else {
+        String::new()
+    }
+}
+
 /// Warnings for a solved case.
 pub fn case_warnings(s: &Scenario, case: &Case, r: &CaseResult, static_r: Option<&CaseResult>) -> Vec<Warning> {
     let mut w = Vec::new();
@@ -90,8 +104,10 @@ pub fn case_warnings(s: &Scenario, case: &Case, r: &CaseResult, static_r: Option
                 WarningKind::MemberSlack,
                 &m.id,
                 msg(format_args!(
-                    "member {}: slack in case {}, where it was meant to carry (set may_go_slack if that is intended)",
-                    m.id, r.id
+                    "member {}: slack in case {}, where it was meant to carry (set may_go_slack if that is intended){}",
+                    m.id,
+                    r.id,
+                    between_anchors(s, member)
                 )),
             ),
             State::Unchecked => push(
@@ -137,7 +153,8 @@ pub fn case_warnings(s: &Scenario, case: &Case, r: &CaseResult, static_r: Option
         let strain = if m.length_m > 0.0 { m.stretch_m / (m.length_m - m.stretch_m) } else { 0.0 };
         let steel =
             matches!(member.kind, MemberKind::WireRope | MemberKind::Chain | MemberKind::Rod | MemberKind::Cable);
-        if steel && strain.abs() > STEEL_STRAIN_LIMIT {
+        // a slack tension member's negative stretch is its slack, not a strain
+        if steel && strain.abs() > STEEL_STRAIN_LIMIT && m.state != State::Slack {
             push(
                 WarningKind::SteelStrain,
                 &m.id,
@@ -266,6 +283,7 @@ pub fn case_warnings(s: &Scenario, case: &Case, r: &CaseResult, static_r: Option
     }
     w.extend(part_warnings(s, r));
     w.extend(super::multi_leg::multi_leg_warnings(s, r, &legs));
+    w.extend(super::drawn_shape::drawn_shape_warnings(s, case, r, static_r));
     w
 }
 

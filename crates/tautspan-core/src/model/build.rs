@@ -6,6 +6,7 @@
 use super::build_fittings::{Host, build_fittings, build_rated, build_rated_direction};
 use super::build_ropes::{build_ropes, build_sheave};
 use super::floor_feet::place_feet;
+use super::plausible::{AREA, COORDINATE, DROP_HEIGHT, MASS, MODULUS, Plausible};
 use super::scenario::{
     Bend, Case, DEFAULT_FRICTION_LIMIT, DesignFactor, Floor, Mass, Member, Node, Rating, Scenario, Strut, Support,
 };
@@ -59,7 +60,12 @@ pub(super) struct Ctx {
 
 impl Ctx {
     pub(super) fn err(&mut self, path: impl std::fmt::Display, message: impl Into<String>) {
-        self.problems.push(Problem { path: path.to_string(), message: message.into() });
+        let (path, message) = (path.to_string(), message.into());
+        // a value given but refused has its own message: not also "missing"
+        if message.starts_with("missing") && self.problems.iter().any(|p| p.path == path) {
+            return;
+        }
+        self.problems.push(Problem { path, message });
     }
 
     pub(super) fn qty(
@@ -75,6 +81,25 @@ impl Ctx {
                 self.err(path, e.to_string());
                 None
             }
+        }
+    }
+
+    /// As [`Ctx::qty`], then refused when outside its plausible range.
+    pub(super) fn plausible_qty(
+        &mut self,
+        q: &Qty,
+        path: impl std::fmt::Display + Copy,
+        dim: Dimension,
+        sign: Sign,
+        range: Plausible,
+    ) -> Option<f64> {
+        let v = self.qty(q, path, dim, sign)?;
+        match range.outside(v, &q.0) {
+            Some(message) => {
+                self.err(path, message);
+                None
+            }
+            None => Some(v),
         }
     }
 
@@ -162,10 +187,10 @@ pub fn build(dto: &ScenarioDto) -> Result<Scenario, Vec<Problem>> {
     let mut nodes = Vec::with_capacity(dto.nodes.len());
     for (i, n) in dto.nodes.iter().enumerate() {
         let p = format!("nodes[{i}].at");
-        let x = ctx.qty(&n.at.x, &format!("{p}.0"), Dimension::Length, Sign::Any);
-        let y = ctx.qty(&n.at.y, &format!("{p}.1"), Dimension::Length, Sign::Any);
+        let x = ctx.plausible_qty(&n.at.x, &format!("{p}.0"), Dimension::Length, Sign::Any, COORDINATE);
+        let y = ctx.plausible_qty(&n.at.y, &format!("{p}.1"), Dimension::Length, Sign::Any, COORDINATE);
         let z = match &n.at.z {
-            Some(z) => ctx.qty(z, &format!("{p}.2"), Dimension::Length, Sign::Any),
+            Some(z) => ctx.plausible_qty(z, &format!("{p}.2"), Dimension::Length, Sign::Any, COORDINATE),
             None => Some(0.0),
         };
         let support = match &n.support {
@@ -204,6 +229,15 @@ pub fn build(dto: &ScenarioDto) -> Result<Scenario, Vec<Problem>> {
         });
     }
 
+    // pairs a member joins get the member's own zero-length error instead
+    let joined: std::collections::HashSet<(usize, usize)> = dto
+        .members
+        .iter()
+        .filter_map(|m| Some((*node_ids.get(&m.ends.0)?, *node_ids.get(&m.ends.1)?)))
+        .map(|(a, b)| (a.min(b), a.max(b)))
+        .collect();
+    coincident_nodes(&mut ctx, &nodes, &joined);
+
     let mut floors = floors;
     for (path, message) in place_feet(&mut floors, &nodes) {
         ctx.err(path, message);
@@ -237,11 +271,11 @@ pub fn build(dto: &ScenarioDto) -> Result<Scenario, Vec<Problem>> {
             + (pb[1].value - pa[1].value).powi(2)
             + (pb[2].value - pa[2].value).powi(2))
         .sqrt();
-        if drawn < 1e-9 {
+        if drawn < COINCIDENT_M {
             ctx.err(
                 format!("members[{i}].ends"),
                 format!(
-                    "its two ends \"{}\" and \"{}\" coincide; move one node or remove the member",
+                    "its two ends \"{}\" and \"{}\" coincide (closer than 0.001 mm): a zero-length member; move one node or remove the member",
                     m.ends.0, m.ends.1
                 ),
             );
@@ -279,7 +313,19 @@ pub fn build(dto: &ScenarioDto) -> Result<Scenario, Vec<Problem>> {
     let mut masses = Vec::with_capacity(dto.masses.len());
     for (i, m) in dto.masses.iter().enumerate() {
         let node = node_ref(&mut ctx, &m.at, format!("masses[{i}].at"), "mass");
-        let kg = ctx.qty(&m.mass, &format!("masses[{i}].mass"), Dimension::Mass, Sign::Positive);
+        let kg = ctx.plausible_qty(&m.mass, &format!("masses[{i}].mass"), Dimension::Mass, Sign::Positive, MASS);
+        if let Some(k) = node
+            && nodes[k].support == Support::Anchor
+        {
+            ctx.err(
+                format!("masses[{i}].at"),
+                format!(
+                    "mass \"{}\" is at anchor \"{}\": an anchor takes the weight straight into its support and no member carries it, so there is nothing to check; hang the mass from a joint below the anchor",
+                    m.id, nodes[k].id
+                ),
+            );
+            continue;
+        }
         if let (Some(node), Some(kg)) = (node, kg) {
             masses.push(Mass { id: m.id.clone(), node, mass: MassQ::new::<kilogram>(kg) });
         }
@@ -321,6 +367,19 @@ pub fn build(dto: &ScenarioDto) -> Result<Scenario, Vec<Problem>> {
                     Some(a) => ctx.qty(a, &format!("cases[{i}].azimuth"), Dimension::Angle, Sign::Any),
                     None => Some(0.0),
                 };
+                let pv = match (pv, m.and_then(|m| masses.get(m))) {
+                    (Some(Some(p)), Some(ms)) if p == ms.node => {
+                        ctx.err(
+                            format!("cases[{i}].pivot"),
+                            format!(
+                                "the pivot \"{}\" is the node mass \"{}\" hangs at: a swing turns about a point above the mass on its line; name that node, or leave `pivot` out for the nearest one above",
+                                nodes[p].id, ms.id
+                            ),
+                        );
+                        None
+                    }
+                    (pv, _) => pv,
+                };
                 let r = r.and_then(|r| {
                     if r > std::f64::consts::FRAC_PI_2 + 1e-12 {
                         let fall = match (m, pv) {
@@ -361,7 +420,13 @@ pub fn build(dto: &ScenarioDto) -> Result<Scenario, Vec<Problem>> {
             }
             CaseDto::Drop { id, mass, height } => {
                 let m = mass_ref(&mut ctx, mass, format!("cases[{i}].mass"));
-                let h = ctx.qty(height, &format!("cases[{i}].height"), Dimension::Length, Sign::NonNegative);
+                let h = ctx.plausible_qty(
+                    height,
+                    &format!("cases[{i}].height"),
+                    Dimension::Length,
+                    Sign::NonNegative,
+                    DROP_HEIGHT,
+                );
                 match (m, h) {
                     (Some(mass), Some(h)) => Some(Case::Drop { id: id.clone(), mass, height: Length::new::<meter>(h) }),
                     _ => None,
@@ -393,6 +458,40 @@ pub fn build(dto: &ScenarioDto) -> Result<Scenario, Vec<Problem>> {
         masses,
         cases,
     })
+}
+
+/// Two nodes closer than this are at the same place, and a member shorter
+/// than it has no length, m (0.001 mm: far below any drawing's precision,
+/// far above the rounding of coordinates within 10,000 km of zero).
+pub const COINCIDENT_M: f64 = 1e-6;
+
+/// Refuses nodes drawn at the same place (a joint there would not be
+/// connected to the other, which is never what the drawing means): sorted
+/// by x, each node is compared with the next ones within the tolerance in
+/// x only, so a large rig costs n log n.
+fn coincident_nodes(ctx: &mut Ctx, nodes: &[Node], joined: &std::collections::HashSet<(usize, usize)>) {
+    let at = |k: usize| nodes[k].position.map(|c| c.value);
+    let mut order: Vec<usize> = (0..nodes.len()).collect();
+    order.sort_by(|&a, &b| at(a)[0].total_cmp(&at(b)[0]));
+    for (i, &a) in order.iter().enumerate() {
+        for &b in &order[i + 1..] {
+            let (pa, pb) = (at(a), at(b));
+            if pb[0] - pa[0] >= COINCIDENT_M {
+                break;
+            }
+            let d = ((pb[0] - pa[0]).powi(2) + (pb[1] - pa[1]).powi(2) + (pb[2] - pa[2]).powi(2)).sqrt();
+            let (first, second) = (a.min(b), a.max(b));
+            if d < COINCIDENT_M && !joined.contains(&(first, second)) {
+                ctx.err(
+                    format!("nodes[{second}].at"),
+                    format!(
+                        "node \"{}\" is at the same place as node \"{}\" (nodes[{first}]), closer than 0.001 mm; join them into one node or move one apart",
+                        nodes[second].id, nodes[first].id
+                    ),
+                );
+            }
+        }
+    }
 }
 
 fn material_of(ctx: &mut Ctx, name: &Option<String>, path: impl std::fmt::Display + Copy) -> Option<Material> {
@@ -569,8 +668,12 @@ pub(super) fn build_member(
     }
     let material = material_of(ctx, &m.material, p("material"));
     let diameter = ctx.opt_qty(&m.diameter, p("diameter"), Dimension::Length, Sign::Positive);
-    let area_given = ctx.opt_qty(&m.area, p("area"), Dimension::Area, Sign::Positive);
-    let modulus_given = ctx.opt_qty(&m.modulus, p("modulus"), Dimension::Pressure, Sign::Positive);
+    let area_given =
+        m.area.as_ref().and_then(|q| ctx.plausible_qty(q, p("area"), Dimension::Area, Sign::Positive, AREA));
+    let modulus_given = m
+        .modulus
+        .as_ref()
+        .and_then(|q| ctx.plausible_qty(q, p("modulus"), Dimension::Pressure, Sign::Positive, MODULUS));
     let slack = ctx.opt_qty(&m.slack, p("slack"), Dimension::Length, Sign::Any).unwrap_or(0.0);
     let linear_mass_given = ctx.opt_qty(&m.linear_mass, p("linear_mass"), Dimension::LinearDensity, Sign::NonNegative);
 

@@ -21,6 +21,13 @@ pub(super) fn place_feet(floors: &mut [Floor], nodes: &[Node]) -> Vec<(String, S
     for (k, floor) in floors.iter_mut().enumerate() {
         floor.feet = nodes.iter().enumerate().filter(|(_, n)| n.support == Support::Floor(k)).map(|(i, _)| i).collect();
         if floor.feet.is_empty() {
+            problems.push((
+                format!("floors[{k}].id"),
+                format!(
+                    "no node stands on floor \"{}\": it carries nothing and nothing on it is checked; give a node `support: Floor(\"{}\")` or remove the floor",
+                    floor.id, floor.id
+                ),
+            ));
             continue;
         }
         let [sx, sz] = [floor.span[0].value, floor.span[1].value];

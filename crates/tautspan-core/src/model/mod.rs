@@ -6,6 +6,7 @@ mod build_ropes;
 mod fitting;
 mod floor_feet;
 mod load;
+pub mod plausible;
 mod scenario;
 mod to_network;
 

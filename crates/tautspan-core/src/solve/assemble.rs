@@ -30,9 +30,10 @@ pub(crate) struct MemberState {
     pub material: bool,
 }
 
-/// The vector from `a` to `b` and its length.
-fn chord(pos: &[[f64; 3]], a: usize, b: usize) -> ([f64; 3], f64) {
-    let d = [pos[b][0] - pos[a][0], pos[b][1] - pos[a][1], pos[b][2] - pos[a][2]];
+/// The vector from `a` to `b` and its length, from their drawn chord `d0`
+/// and displacements `u`.
+fn chord(u: &[[f64; 3]], a: usize, b: usize, d0: [f64; 3]) -> ([f64; 3], f64) {
+    let d = [0, 1, 2].map(|ax| d0[ax] + (u[b][ax] - u[a][ax]));
     (d, (d[0] * d[0] + d[1] * d[1] + d[2] * d[2]).sqrt())
 }
 
@@ -41,8 +42,8 @@ pub(crate) fn run_segments<'a>(
     run: &'a RunData,
     pos: &'a [[f64; 3]],
 ) -> impl Iterator<Item = ([f64; 3], f64, f64)> + 'a {
-    run.segments.iter().map(move |&(a, b, w)| {
-        let (d, l) = chord(pos, run.nodes[a], run.nodes[b]);
+    run.segments.iter().zip(&run.chords).map(move |(&(a, b, w), &d0)| {
+        let (d, l) = chord(pos, run.nodes[a], run.nodes[b], d0);
         let e = if l > 0.0 { [d[0] / l, d[1] / l, d[2] / l] } else { [0.0; 3] };
         (e, l, w)
     })
@@ -59,10 +60,7 @@ pub(crate) fn member_state(m: &MemberData, pos: &[[f64; 3]]) -> MemberState {
             if m.tension_only && stretch <= 0.0 { (0.0, stretch == 0.0) } else { (m.k_n_per_m * stretch, true) };
         return MemberState { length_m, force_n, e: [0.0; 3], material };
     }
-    let a = pos[m.ends[0]];
-    let b = pos[m.ends[1]];
-    let d = [b[0] - a[0], b[1] - a[1], b[2] - a[2]];
-    let length_m = (d[0] * d[0] + d[1] * d[1] + d[2] * d[2]).sqrt();
+    let (d, length_m) = chord(pos, m.ends[0], m.ends[1], m.d0_m);
     let e = if length_m > 1e-12 * m.rest_m { [d[0] / length_m, d[1] / length_m, d[2] / length_m] } else { [0.0; 3] };
     let stretch = length_m - m.rest_m;
     let (force_n, material) = if m.tension_only {
@@ -90,9 +88,10 @@ pub(crate) struct Inertia<'a> {
 }
 
 impl FloorData {
-    /// Penetrations `y0 − y` of the feet (positive pressed in), m.
-    fn penetrations(&self, pos: &[[f64; 3]]) -> Vec<f64> {
-        self.nodes.iter().zip(&self.y0_m).map(|(&n, y0)| y0 - pos[n][1]).collect()
+    /// Penetrations `y0 − y` of the feet (positive pressed in): minus the
+    /// feet's vertical displacements, m.
+    fn penetrations(&self, u: &[[f64; 3]]) -> Vec<f64> {
+        self.nodes.iter().map(|&n| -u[n][1]).collect()
     }
 
     /// The feet's normal forces at penetrations `p`, N (≥ 0).
@@ -132,20 +131,19 @@ impl Model {
                 if p[0] > 0.0 {
                     let u = 0.5 * k * p[0] * p[0];
                     phi += u;
-                    scale += u + k * p[0] * pos[f.nodes[0]][1].abs();
+                    scale += u + k * p[0] * p[0];
                 }
                 continue;
             }
             let force = f.forces(&p);
             let u = 0.5 * force.iter().zip(&p).map(|(a, b)| a * b).sum::<f64>();
             phi += u;
-            scale += u + force.iter().zip(&f.nodes).map(|(a, &n)| a * pos[n][1].abs()).sum::<f64>();
+            scale += u + force.iter().zip(&p).map(|(a, b)| a * b.abs()).sum::<f64>();
         }
         for (dof, load) in loads_dof.iter().enumerate() {
             let x = self.dof_value(pos, dof);
-            let x0 = self.drawn_m[self.dof_node[dof]][self.dof_axis[dof]];
-            phi -= load * (x - x0);
-            scale += load.abs() * ((x - x0).abs() + x.abs());
+            phi -= load * x;
+            scale += load.abs() * x.abs();
         }
         if let Some(inn) = inertia {
             for (dof, z) in inn.target_m.iter().enumerate() {
@@ -199,8 +197,8 @@ impl Model {
             }
         };
         // the change of a chord's length, accurate when far below the length
-        let chord_change = |a: usize, b: usize| -> Option<(f64, f64)> {
-            let d = [pos[b][0] - pos[a][0], pos[b][1] - pos[a][1], pos[b][2] - pos[a][2]];
+        let chord_change = |a: usize, b: usize, d0: [f64; 3]| -> Option<(f64, f64)> {
+            let d = chord(pos, a, b, d0).0;
             let dd = [delta[b][0] - delta[a][0], delta[b][1] - delta[a][1], delta[b][2] - delta[a][2]];
             if dd == [0.0; 3] {
                 return None;
@@ -216,15 +214,15 @@ impl Model {
             let (l0, dl) = match &m.run {
                 Some(run) => {
                     let (mut l0, mut dl, mut moved) = (0.0, 0.0, false);
-                    for &(a, b, w) in &run.segments {
+                    for (&(a, b, w), &d0) in run.segments.iter().zip(&run.chords) {
                         let (na, nb) = (run.nodes[a], run.nodes[b]);
-                        match chord_change(na, nb) {
+                        match chord_change(na, nb, d0) {
                             Some((l, d)) => {
                                 moved = true;
                                 l0 += w * l;
                                 dl += w * d;
                             }
-                            None => l0 += w * chord(pos, na, nb).1,
+                            None => l0 += w * chord(pos, na, nb, d0).1,
                         }
                     }
                     if !moved {
@@ -232,7 +230,7 @@ impl Model {
                     }
                     (l0, dl)
                 }
-                None => match chord_change(m.ends[0], m.ends[1]) {
+                None => match chord_change(m.ends[0], m.ends[1], m.d0_m) {
                     Some(v) => v,
                     None => continue,
                 },
@@ -254,7 +252,7 @@ impl Model {
                 let p1 = p0 - dy;
                 let du = one_sided(p0, p1, -dy, k);
                 dphi += du;
-                scale += du.abs() + k * dy.abs() * (p0.abs() + p1.abs() + pos[f.nodes[0]][1].abs() * f64::EPSILON);
+                scale += du.abs() + k * dy.abs() * (p0.abs() + p1.abs());
                 continue;
             }
             let dp: Vec<f64> = f.dofs.iter().map(|&d| -step[d]).collect();
@@ -278,7 +276,7 @@ impl Model {
                     .zip(&f1)
                     .zip(&dp)
                     .zip(&f.nodes)
-                    .map(|(((a, b), d), &n)| (a.abs() + b.abs()) * (d.abs() + pos[n][1].abs() * f64::EPSILON))
+                    .map(|(((a, b), d), _)| (a.abs() + b.abs()) * d.abs())
                     .sum::<f64>();
         }
         for (l, s) in loads_dof.iter().zip(step) {
@@ -349,7 +347,7 @@ impl Model {
             if let Some(k) = f.single_k {
                 if p[0] > 0.0 {
                     grad[f.dofs[0]] -= k * p[0];
-                    mag[f.dofs[0]] += k * (p[0] + pos[f.nodes[0]][1].abs());
+                    mag[f.dofs[0]] += k * p[0];
                 }
                 continue;
             }
@@ -357,7 +355,7 @@ impl Model {
             for (i, &d) in f.dofs.iter().enumerate() {
                 if force[i] > 0.0 {
                     grad[d] -= force[i];
-                    mag[d] += force[i] + f.rate_n_per_m[i] * pos[f.nodes[i]][1].abs();
+                    mag[d] += force[i];
                 }
             }
         }
@@ -525,6 +523,8 @@ mod rope_kernel_tests {
         let mut pos0: Vec<[f64; 3]> = net.nodes.iter().map(|x| x.position_m).collect();
         pos0[1] = [1.1, 1.0, 0.4];
         pos0[2] = [2.3, 1.2, -0.3];
+        // the kernels' state is the displacement from the drawing
+        let pos0: Vec<[f64; 3]> = model.start_positions(Some(&pos0));
         let e = |p: &[[f64; 3]]| model.energy(p, &loads, None).0;
         let mut delta = Vec::new();
         let step: Vec<f64> = (0..n).map(|k| 1e-3 * (k as f64 + 1.0).sin()).collect();

@@ -55,7 +55,7 @@ impl StaticSolver {
             return Err(invalid("the network has no free coordinates"));
         };
         let mut k_values = vec![0.0; self.model.matrix.val().len()];
-        self.model.tangent(&eq.positions_m, None, &mut k_values);
+        self.model.tangent(&eq.displacements_m, None, &mut k_values);
         let scale = self.model.stiffness_scale_n_per_m;
         let mut shift = 0.0;
         loop {

@@ -170,7 +170,8 @@ mod kernel_tests {
         let net = plate_net();
         let model = Model::new(&net).expect("model");
         let loads = [-1e3, -1e3];
-        let pos0 = vec![[0.0, -3.0e-3, 0.0], [1.0, -2.0e-3, 0.0]];
+        // displacements from the drawing (the kernels' state)
+        let pos0 = vec![[0.0, -3.0e-3, 0.0], [0.0, -2.0e-3, 0.0]];
         let e = |p: &[[f64; 3]]| model.energy(p, &loads, None).0;
         let mut delta = Vec::new();
         for step in [[-1.0e-4, 2.0e-4], [1.0e-3, 2.4e-3]] {

@@ -13,6 +13,10 @@ use super::model::Model;
 pub struct Equilibrium {
     /// Position of every node (held ones at their drawn positions), m.
     pub positions_m: Vec<[f64; 3]>,
+    /// Displacement of every node from its drawn position, m: the solver's
+    /// own state, so it keeps its digits wherever the rig is drawn
+    /// (`positions_m − drawn` loses them far from zero).
+    pub displacements_m: Vec<[f64; 3]>,
     /// Axial force per member, tension positive, N (0 for a slack rope); a
     /// rope over sheaves: its largest segment tension (see `NetMember`).
     pub member_force_n: Vec<f64>,
@@ -29,16 +33,37 @@ pub struct Equilibrium {
     pub iterations: usize,
     /// Largest out-of-balance force component left at a free dof, N.
     pub residual_n: f64,
+    /// The force tolerance the solve met, N: the largest over the free dofs
+    /// of each dof's own tolerance (see [`SolveOptions`](super::SolveOptions)).
+    pub tolerance_n: f64,
 }
 
 impl Equilibrium {
-    /// Evaluates forces and reactions at converged positions. `loads_n` per node.
+    /// True when every number is finite and the out-of-balance force is
+    /// within the tolerance the solve met: the check on any equilibrium
+    /// before its forces are reported.
+    pub fn is_sound(&self) -> bool {
+        let finite3 = |v: &[[f64; 3]]| v.iter().all(|p| p.iter().all(|x| x.is_finite()));
+        self.residual_n.is_finite()
+            && self.tolerance_n.is_finite()
+            && self.residual_n <= self.tolerance_n
+            && finite3(&self.positions_m)
+            && finite3(&self.displacements_m)
+            && finite3(&self.reaction_n)
+            && self.member_force_n.iter().chain(&self.member_length_m).chain(&self.floor_force_n).all(|x| x.is_finite())
+    }
+}
+
+impl Equilibrium {
+    /// Evaluates forces and reactions at converged displacements `positions_m`
+    /// (the kernels' state). `loads_n` per node.
     pub(crate) fn from_positions(
         model: &Model,
         loads_n: &[[f64; 3]],
         positions_m: Vec<[f64; 3]>,
         iterations: usize,
         residual_n: f64,
+        tolerance_n: f64,
     ) -> Self {
         let n_nodes = positions_m.len();
         let mut member_force_n = Vec::with_capacity(model.members.len());
@@ -86,6 +111,16 @@ impl Equilibrium {
                 reaction_n[node][1] = floor_force_n[node];
             }
         }
-        Self { positions_m, member_force_n, member_length_m, floor_force_n, reaction_n, iterations, residual_n }
+        Self {
+            positions_m: model.to_world(&positions_m),
+            displacements_m: positions_m,
+            member_force_n,
+            member_length_m,
+            floor_force_n,
+            reaction_n,
+            iterations,
+            residual_n,
+            tolerance_n,
+        }
     }
 }

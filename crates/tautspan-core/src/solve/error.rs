@@ -69,6 +69,18 @@ pub enum SolveError {
         worst_node: String,
     },
 
+    /// The answer holds a number that is not finite, or an out-of-balance
+    /// force above its tolerance: the loads or stiffnesses are beyond what
+    /// double precision can solve (a load of 1e150 N, say), so no force is
+    /// reported.
+    ///
+    /// Remedy: check the named input for a slip of units or exponent.
+    #[error("no usable answer: {what} (the loads or stiffnesses are beyond what the solver can resolve)")]
+    NotFinite {
+        /// What was found.
+        what: String,
+    },
+
     /// The sparse Cholesky factorisation could not be set up (out of memory
     /// or an internal limit of the linear algebra library).
     ///

@@ -14,6 +14,7 @@ mod model;
 mod network;
 mod newmark;
 mod newton;
+mod stability;
 mod static_solver;
 mod validate;
 
@@ -23,4 +24,5 @@ pub use load_path::{CUT_RATIO, LoadFlow, LoadPath, TraceScratch, load_paths, loa
 pub use network::{AxialLaw, Fixity, NetMember, NetNode, NetPlate, Network};
 pub use newmark::{SimulateOptions, Simulation, SimulationStart, simulate};
 pub use newton::SolveOptions;
+pub use stability::Unstable;
 pub use static_solver::{StaticSolver, solve_static};

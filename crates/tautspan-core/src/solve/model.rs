@@ -19,6 +19,11 @@ pub(crate) const NONE: usize = usize::MAX;
 #[derive(Debug, Clone)]
 pub(crate) struct MemberData {
     pub ends: [usize; 2],
+    /// The drawn chord from end 0 to end 1, m: the kernels work in
+    /// displacements from the drawing, and a member's vector is this plus
+    /// the difference of its ends' displacements, so its length keeps its
+    /// digits however far from zero the rig is drawn.
+    pub d0_m: [f64; 3],
     /// Spring rate `EA / L0`, N/m.
     pub k_n_per_m: f64,
     pub rest_m: f64,
@@ -35,6 +40,8 @@ pub(crate) struct RunData {
     pub nodes: Vec<usize>,
     /// Per segment: local indices (into `nodes`) of its two ends and its factor.
     pub segments: Vec<(usize, usize, f64)>,
+    /// Per segment, its drawn chord, m (see [`MemberData::d0_m`]).
+    pub chords: Vec<[f64; 3]>,
     /// Value slot of each entry (p, q) of the run's 3u × 3u block (local
     /// order node-major, x y z), or [`NONE`].
     pub slots: Vec<usize>,
@@ -44,9 +51,11 @@ impl MemberData {
     /// The kernel form of a network member; `drawn` are the drawn positions.
     fn from_net(m: &super::network::NetMember, drawn: &[[f64; 3]]) -> Self {
         let tension_only = matches!(m.law, AxialLaw::TensionOnly);
+        let chord = |a: usize, b: usize| [0, 1, 2].map(|ax| drawn[b][ax] - drawn[a][ax]);
         if !m.is_run() {
             return Self {
                 ends: m.ends,
+                d0_m: chord(m.ends[0], m.ends[1]),
                 k_n_per_m: m.axial_stiffness_n / m.rest_length_m,
                 rest_m: m.rest_length_m,
                 tension_only,
@@ -76,12 +85,14 @@ impl MemberData {
         let compliance: f64 = segs.iter().map(|s| s.2 * s.2 * s.3 * scale).sum::<f64>() / m.axial_stiffness_n;
         Self {
             ends: m.ends,
+            d0_m: chord(m.ends[0], m.ends[1]),
             k_n_per_m: 1.0 / compliance,
             rest_m: lambda0,
             tension_only,
             run: Some(Box::new(RunData {
                 nodes,
                 segments: segs.iter().map(|s| (s.0, s.1, s.2)).collect(),
+                chords: m.segments().map(|(a, b, _)| chord(a, b)).collect(),
                 slots: Vec::new(),
             })),
         }
@@ -97,8 +108,6 @@ pub(crate) struct FloorData {
     pub nodes: Vec<usize>,
     /// Index of each foot's y dof.
     pub dofs: Vec<usize>,
-    /// Drawn heights (the unloaded floor surface), m.
-    pub y0_m: Vec<f64>,
     /// Flexibility at the feet, row-major n × n, m/N.
     pub flex: Vec<f64>,
     /// A lone foot's spring rate, N/m: the law `F = k max(0, p)` exactly.
@@ -123,7 +132,9 @@ pub(crate) struct Model {
     pub floors: Vec<FloorData>,
     /// Node names for messages.
     pub names: Vec<String>,
-    /// Drawn positions (held coordinates never move from them).
+    /// Drawn positions (held coordinates never move from them). The
+    /// kernels' state is each node's displacement from here (zero for held
+    /// coordinates), never its position: see [`MemberData::d0_m`].
     pub drawn_m: Vec<[f64; 3]>,
     /// Lumped mass per dof, kg.
     pub mass_per_dof_kg: Vec<f64>,
@@ -184,7 +195,6 @@ impl Model {
             floors.push(FloorData {
                 nodes: plate.nodes.clone(),
                 dofs: plate.nodes.iter().map(|&i| node_dofs[i][1]).collect(),
-                y0_m: plate.nodes.iter().map(|&i| net.nodes[i].position_m[1]).collect(),
                 flex: plate.flexibility_m_per_n.clone(),
                 single_k: None,
                 // the stiffest each foot can be with every foot in contact
@@ -202,7 +212,6 @@ impl Model {
                 floors.push(FloorData {
                     nodes: vec![i],
                     dofs: vec![node_dofs[i][1]],
-                    y0_m: vec![node.position_m[1]],
                     flex: vec![1.0 / stiffness_n_per_m],
                     single_k: Some(stiffness_n_per_m),
                     rate_n_per_m: vec![stiffness_n_per_m],
@@ -355,20 +364,25 @@ impl Model {
         }
     }
 
-    /// Positions with the free coordinates taken from `start` and the held
-    /// ones from the drawing.
+    /// The kernels' start state: displacements from the drawing, the free
+    /// coordinates taken from the positions `start` and the held ones zero.
     pub(crate) fn start_positions(&self, start: Option<&[[f64; 3]]>) -> Vec<[f64; 3]> {
-        let mut pos = self.drawn_m.clone();
+        let mut u = vec![[0.0; 3]; self.drawn_m.len()];
         if let Some(start) = start {
             for (node, dofs) in self.node_dofs.iter().enumerate() {
                 for ax in 0..3 {
                     if dofs[ax] != NONE {
-                        pos[node][ax] = start[node][ax];
+                        u[node][ax] = start[node][ax] - self.drawn_m[node][ax];
                     }
                 }
             }
         }
-        pos
+        u
+    }
+
+    /// Positions from displacements.
+    pub(crate) fn to_world(&self, u: &[[f64; 3]]) -> Vec<[f64; 3]> {
+        u.iter().zip(&self.drawn_m).map(|(d, p)| [0, 1, 2].map(|ax| p[ax] + d[ax])).collect()
     }
 
     /// Adds a dof increment to positions.
@@ -400,11 +414,11 @@ impl Model {
         self.names.get(node).cloned().unwrap_or_else(|| format!("#{node}"))
     }
 
-    /// The node farthest from its drawn position and that distance, m.
-    pub(crate) fn farthest(&self, pos: &[[f64; 3]]) -> Option<(usize, f64)> {
+    /// The node farthest from its drawn position (displacements `u`) and that distance, m.
+    pub(crate) fn farthest(&self, u: &[[f64; 3]]) -> Option<(usize, f64)> {
         let mut best: Option<(usize, f64)> = None;
-        for (i, (p, d)) in pos.iter().zip(&self.drawn_m).enumerate() {
-            let dist = ((p[0] - d[0]).powi(2) + (p[1] - d[1]).powi(2) + (p[2] - d[2]).powi(2)).sqrt();
+        for (i, p) in u.iter().enumerate() {
+            let dist = p[0].hypot(p[1]).hypot(p[2]);
             if best.is_none_or(|(_, b)| dist > b) {
                 best = Some((i, dist));
             }

@@ -289,7 +289,7 @@ pub fn simulate(
         max_error = max_error.max((e + dissipated - e0).abs());
         if step % every == 0 || step == steps {
             sim.time_s.push(t);
-            sim.positions_m.push(pos.clone());
+            sim.positions_m.push(model.to_world(&pos));
             sim.member_force_n.push(forces.clone());
             sim.energy_j.push(e);
             sim.kinetic_energy_j.push(ke);

@@ -28,7 +28,12 @@ pub struct SolveOptions {
     /// Trial steps (factorisations) allowed before giving up.
     pub max_iterations: usize,
     /// Convergence: out-of-balance force at every free dof below this
-    /// fraction of the total applied load magnitude (Σ |load| over nodes).
+    /// fraction of the total applied load magnitude (Σ |load| over nodes),
+    /// or, at a dof where the forces and stiffnesses meeting there are so
+    /// large that their roundoff alone exceeds it, below 16 ε of their sum
+    /// (Σ |force| + EA·L/L0 of the members, the floor forces, the load):
+    /// the tolerance comes from forces and stiffnesses, never from where
+    /// the rig is drawn (the kernels work in displacements).
     pub relative_tolerance: f64,
     /// Absolute floor of the force tolerance, N.
     pub absolute_tolerance_n: f64,
@@ -52,11 +57,23 @@ impl Default for SolveOptions {
     }
 }
 
-/// Iterations made and the residual reached.
+/// Iterations made, the residual reached and the tolerance it met.
 #[derive(Debug, Clone, Copy)]
 pub(crate) struct NewtonOutcome {
     pub iterations: usize,
     pub residual_n: f64,
+    pub tolerance_n: f64,
+}
+
+/// The tolerance of one dof: `tol_n`, or the roundoff its summed
+/// magnitudes leave (16 ε of them) where that is larger.
+fn dof_tolerance(tol_n: f64, mag: f64) -> f64 {
+    tol_n.max(16.0 * f64::EPSILON * mag)
+}
+
+/// The largest tolerance over the dofs (see [`dof_tolerance`]).
+fn max_tolerance(mag: &[f64], tol_n: f64) -> f64 {
+    mag.iter().fold(tol_n, |t, &m| t.max(dof_tolerance(tol_n, m)))
 }
 
 /// Buffers reused across solves.
@@ -84,7 +101,8 @@ fn residual(grad: &[f64], mag: &[f64], tol_n: f64) -> (f64, usize, bool) {
     let mut ok = true;
     for (i, (g, m)) in grad.iter().zip(mag).enumerate() {
         let a = g.abs();
-        if a.is_nan() || a > tol_n.max(16.0 * f64::EPSILON * m) {
+        let t = dof_tolerance(tol_n, *m);
+        if !a.is_finite() || !t.is_finite() || a > t {
             ok = false;
         }
         if a > worst || a.is_nan() {
@@ -110,7 +128,7 @@ pub(crate) fn minimise(
 ) -> Result<NewtonOutcome, SolveError> {
     let n = model.n_dofs();
     let Some(factor) = factor else {
-        return Ok(NewtonOutcome { iterations: 0, residual_n: 0.0 });
+        return Ok(NewtonOutcome { iterations: 0, residual_n: 0.0, tolerance_n: tol_n });
     };
     ws.grad.resize(n, 0.0);
     ws.mag.resize(n, 0.0);
@@ -136,7 +154,7 @@ pub(crate) fn minimise(
         SolveError::NotConverged {
             iterations,
             residual_n: res,
-            tolerance_n: tol_n,
+            tolerance_n: mag.get(at).map_or(tol_n, |&m| dof_tolerance(tol_n, m)),
             worst_node: model.node_name(model.dof_node[at]),
         }
     };
@@ -152,7 +170,7 @@ pub(crate) fn minimise(
     loop {
         let (res, _, converged) = residual(&ws.grad, &ws.mag, tol_n);
         if converged {
-            return Ok(NewtonOutcome { iterations, residual_n: res });
+            return Ok(NewtonOutcome { iterations, residual_n: res, tolerance_n: max_tolerance(&ws.mag, tol_n) });
         }
         let res = match watch.saved_res {
             Some(saved) if res < saved => {

@@ -35,7 +35,9 @@ fn flat_plane(net: &Network) -> Option<f64> {
 /// The force tolerance for loads `loads_n`: the relative tolerance times
 /// Σ |load| over nodes, at least the absolute floor.
 pub(crate) fn force_tolerance(loads_n: &[[f64; 3]], opts: &SolveOptions) -> f64 {
-    let total: f64 = loads_n.iter().map(|l| (l[0] * l[0] + l[1] * l[1] + l[2] * l[2]).sqrt()).sum();
+    // hypot: a load of 1e160 N must not square to infinity (and an
+    // infinite tolerance pass anything)
+    let total: f64 = loads_n.iter().map(|l| l[0].hypot(l[1]).hypot(l[2])).sum();
     (opts.relative_tolerance * total).max(opts.absolute_tolerance_n)
 }
 
@@ -132,7 +134,21 @@ impl StaticSolver {
             opts,
             tol_n,
         )?;
-        Ok(Equilibrium::from_positions(&self.model, loads_n, pos, out.iterations, out.residual_n))
+        let eq =
+            Equilibrium::from_positions(&self.model, loads_n, pos, out.iterations, out.residual_n, out.tolerance_n);
+        if !eq.is_sound() {
+            return Err(SolveError::NotFinite {
+                what: if eq.residual_n.is_finite() && eq.tolerance_n.is_finite() {
+                    format!(
+                        "the out-of-balance force {:.3e} N is above the tolerance {:.3e} N",
+                        eq.residual_n, eq.tolerance_n
+                    )
+                } else {
+                    "the out-of-balance force or its tolerance is not a finite number".to_string()
+                },
+            });
+        }
+        Ok(eq)
     }
 }
 
