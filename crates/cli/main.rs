@@ -1,6 +1,7 @@
 //! The `tautspan` binary: argument parsing and dispatch only. The GUI opens
 //! by default; `check`, `simulate` and `report` are the command line.
 
+mod atomic_write;
 mod check;
 mod read;
 mod report;

@@ -1,0 +1,138 @@
+//! End-to-end tests of the binary against hostile input and failing
+//! writes: caps, devices and pipes, writing over the input, cancelled and
+//! coarse simulations, located messages.
+
+#![allow(clippy::expect_used, clippy::unwrap_used, reason = "test helpers fail loudly on broken fixtures")]
+
+use std::path::{Path, PathBuf};
+use std::process::{Command, Output};
+
+fn bin() -> Command {
+    Command::new(env!("CARGO_BIN_EXE_tautspan"))
+}
+
+fn run(args: &[&str]) -> Output {
+    bin().args(args).output().expect("run tautspan")
+}
+
+fn dir(name: &str) -> PathBuf {
+    let d = std::env::temp_dir().join(format!("tautspan-hard-{name}-{}", std::process::id()));
+    let _ = std::fs::remove_dir_all(&d);
+    std::fs::create_dir_all(&d).expect("tmp dir");
+    d
+}
+
+fn stderr(o: &Output) -> String {
+    String::from_utf8_lossy(&o.stderr).into_owned()
+}
+
+fn names(d: &Path) -> Vec<String> {
+    let mut v: Vec<String> = std::fs::read_dir(d)
+        .expect("dir")
+        .map(|e| e.expect("entry").file_name().to_string_lossy().into_owned())
+        .collect();
+    v.sort();
+    v
+}
+
+const GOOD: &str = r#"Scenario(
+    format: 1,
+    title: "e2e",
+    nodes: [
+        Node(id: "A1", at: ("0 m", "6 m"), support: Anchor),
+        Node(id: "J1", at: ("0 m", "2 m")),
+    ],
+    members: [
+        Member(id: "sling", ends: ("A1", "J1"), kind: WireRope, area: "64.7 mm^2", modulus: "100 GPa", rating: BreakingStrength("90.7 kN")),
+    ],
+    masses: [ Mass(id: "load", at: "J1", mass: "250 kg") ],
+    cases: [ Static(id: "hanging"), Sudden(id: "sudden", mass: "load") ],
+)
+"#;
+
+#[test]
+fn dev_zero_stops_at_the_cap_while_reading() {
+    let out = run(&["check", "/dev/zero"]);
+    assert_eq!(out.status.code(), Some(2), "{}", stderr(&out));
+    assert!(stderr(&out).contains("cap of 16 MiB"), "{}", stderr(&out));
+}
+
+#[test]
+fn a_pipe_is_read_under_the_cap() {
+    use std::io::Write;
+    let mut child = bin()
+        .args(["check", "/dev/stdin"])
+        .stdin(std::process::Stdio::piped())
+        .stdout(std::process::Stdio::piped())
+        .stderr(std::process::Stdio::piped())
+        .spawn()
+        .expect("spawn");
+    let mut stdin = child.stdin.take().expect("stdin");
+    // 17 MiB offered; the reader stops after 16 MiB + 1 and closes the pipe
+    let writer = std::thread::spawn(move || {
+        let chunk = vec![b' '; 1 << 20];
+        for _ in 0..17 {
+            if stdin.write_all(&chunk).is_err() {
+                break;
+            }
+        }
+    });
+    let out = child.wait_with_output().expect("wait");
+    writer.join().expect("writer");
+    assert_eq!(out.status.code(), Some(2), "{}", stderr(&out));
+    assert!(stderr(&out).contains("cap of 16 MiB"), "{}", stderr(&out));
+}
+
+#[test]
+fn report_refuses_the_input_a_device_and_a_missing_folder() {
+    let d = dir("report");
+    let input = d.join("same.ron");
+    std::fs::write(&input, GOOD).expect("write");
+    let i = input.to_str().expect("p");
+    // the same file, also by another spelling
+    for out_name in [i.to_string(), d.join(".").join("same.ron").display().to_string()] {
+        let out = run(&["report", i, "--out", &out_name]);
+        assert_eq!(out.status.code(), Some(2), "{}", stderr(&out));
+        assert!(stderr(&out).contains("input scenario"), "{}", stderr(&out));
+        assert_eq!(std::fs::read_to_string(&input).expect("input"), GOOD, "the scenario is untouched");
+    }
+    // a device node is not replaced
+    let out = run(&["report", i, "--out", "/dev/full"]);
+    assert_eq!(out.status.code(), Some(2), "{}", stderr(&out));
+    assert!(stderr(&out).contains("not a regular file"), "{}", stderr(&out));
+    assert!(!Path::new("/dev/full").is_file(), "/dev/full is still a device");
+    // a missing folder is named
+    let missing = d.join("nowhere").join("r.html");
+    let out = run(&["report", i, "--out", missing.to_str().expect("p")]);
+    assert_eq!(out.status.code(), Some(2));
+    assert!(stderr(&out).contains("does not exist"), "{}", stderr(&out));
+    assert_eq!(names(&d), vec!["same.ron".to_string()], "nothing left behind");
+}
+
+#[test]
+fn report_into_a_read_only_folder_keeps_the_old_file() {
+    use std::os::unix::fs::PermissionsExt;
+    let d = dir("readonly");
+    let input = d.join("rig.ron");
+    std::fs::write(&input, GOOD).expect("write");
+    let ro = d.join("ro");
+    std::fs::create_dir(&ro).expect("mkdir");
+    let old = ro.join("r.html");
+    std::fs::write(&old, "old report").expect("write");
+    std::fs::set_permissions(&ro, std::fs::Permissions::from_mode(0o555)).expect("chmod");
+    // root writes anywhere: then the folder is not read-only to this test
+    let probe = ro.join("probe");
+    let root = std::fs::write(&probe, "").is_ok();
+    let _ = std::fs::remove_file(&probe);
+    let out = run(&["report", input.to_str().expect("p"), "--out", old.to_str().expect("p")]);
+    std::fs::set_permissions(&ro, std::fs::Permissions::from_mode(0o755)).expect("chmod back");
+    if root {
+        eprintln!("running as root: a read-only folder cannot be made; the in-process fault test covers the failure");
+        assert!(matches!(out.status.code(), Some(0 | 1)), "{}", stderr(&out));
+        return;
+    }
+    assert_eq!(out.status.code(), Some(2), "{}", stderr(&out));
+    assert!(stderr(&out).contains("cannot create a temporary file"), "{}", stderr(&out));
+    assert_eq!(std::fs::read_to_string(&old).expect("old"), "old report");
+    assert_eq!(names(&ro), vec!["r.html".to_string()]);
+}
