@@ -136,3 +136,75 @@ fn report_into_a_read_only_folder_keeps_the_old_file() {
     assert_eq!(std::fs::read_to_string(&old).expect("old"), "old report");
     assert_eq!(names(&ro), vec!["r.html".to_string()]);
 }
+
+fn gantry() -> String {
+    Path::new(env!("CARGO_MANIFEST_DIR")).join("scenarios/gantry-swing.ron").display().to_string()
+}
+
+#[test]
+fn simulate_refuses_a_negative_step_and_a_billion_steps_with_messages() {
+    let g = gantry();
+    let out = run(&["simulate", &g, "--case", "swing-25", "--step", "-1 ms"]);
+    assert_eq!(out.status.code(), Some(2), "{}", stderr(&out));
+    assert!(stderr(&out).contains("--step \"-1 ms\": must be positive"), "{}", stderr(&out));
+    let out = run(&["simulate", &g, "--case", "swing-25", "--duration", "-2 s"]);
+    assert_eq!(out.status.code(), Some(2));
+    assert!(stderr(&out).contains("must be positive"), "{}", stderr(&out));
+    // 10⁹ steps: refused at once, nothing allocated per step (the old run aborted out of memory)
+    let out = run(&["simulate", &g, "--case", "swing-25", "--duration", "1 s", "--step", "1e-9 s"]);
+    assert_eq!(out.status.code(), Some(2), "{}", stderr(&out));
+    assert!(stderr(&out).contains("1,000,000,000 steps; the cap is 10,000,000 steps"), "{}", stderr(&out));
+    assert!(out.stdout.is_empty());
+}
+
+#[test]
+fn simulate_notes_a_coarse_step_in_json_and_csv() {
+    let g = gantry();
+    let out = run(&["simulate", &g, "--case", "swing-25", "--duration", "3 s", "--step", "0.5 s"]);
+    assert_eq!(out.status.code(), Some(0), "{}", stderr(&out));
+    let v: serde_json::Value = serde_json::from_slice(&out.stdout).expect("json");
+    let w = v["warnings"].as_array().expect("warnings");
+    assert!(w.len() == 1 && w[0].as_str().expect("text").contains("coarser than a tenth"), "{v}");
+    assert!(v["shortest_period_s"].as_f64().is_some_and(|t| t > 0.0 && t < 0.5 * 10.0));
+    let out = run(&["simulate", &g, "--case", "swing-25", "--duration", "3 s", "--step", "0.5 s", "--format", "csv"]);
+    let text = String::from_utf8_lossy(&out.stdout);
+    assert!(text.lines().any(|l| l.starts_with("# warning: the time step 0.5 s is coarser")), "{text}");
+    // the default step is not noted, and the CSV has one row a step (0 to 6 × 0.5 s)
+    let rows = text.lines().filter(|l| !l.starts_with('#')).count();
+    assert_eq!(rows, 1 + 7, "header and 7 rows");
+    let out = run(&["simulate", &g, "--case", "swing-25", "--duration", "1 s"]);
+    let v: serde_json::Value = serde_json::from_slice(&out.stdout).expect("json");
+    assert_eq!(v["warnings"].as_array().map(Vec::len), Some(0), "{v}");
+}
+
+#[test]
+fn simulate_stopped_by_ctrl_c_exits_130_with_the_run_so_far() {
+    use std::io::Read;
+    let g = gantry();
+    // a million steps: far longer than the test waits
+    let mut child = bin()
+        .args(["simulate", &g, "--case", "swing-25", "--duration", "10 s", "--step", "0.01 ms"])
+        .stdout(std::process::Stdio::piped())
+        .stderr(std::process::Stdio::piped())
+        .spawn()
+        .expect("spawn");
+    let mut err = child.stderr.take().expect("stderr");
+    // wait until the run reports progress, then interrupt it
+    let mut seen = Vec::new();
+    let mut buf = [0u8; 256];
+    while !String::from_utf8_lossy(&seen).contains("simulating") {
+        let n = err.read(&mut buf).expect("read stderr");
+        assert!(n > 0, "stderr closed before progress: {}", String::from_utf8_lossy(&seen));
+        seen.extend_from_slice(&buf[..n]);
+    }
+    let status = Command::new("kill").args(["-INT", &child.id().to_string()]).status().expect("kill");
+    assert!(status.success());
+    let mut rest = String::new();
+    err.read_to_string(&mut rest).expect("stderr");
+    let out = child.wait_with_output().expect("wait");
+    assert_eq!(out.status.code(), Some(130), "{rest}");
+    assert!(rest.contains("interrupted"), "{rest}");
+    let v: serde_json::Value = serde_json::from_slice(&out.stdout).expect("json");
+    assert_eq!(v["cancelled"], true);
+    assert!(v["steps"].as_u64().is_some_and(|s| s < 1_000_000), "{v}");
+}
