@@ -4,6 +4,7 @@ mod dto;
 mod error;
 mod fitting;
 mod locate;
+mod nesting;
 mod read;
 mod write;
 
@@ -11,6 +12,7 @@ pub use dto::{CaseDto, FloorDto, MassDto, MemberDto, NodeDto, Position, Qty, Rat
 pub use dto::{RopeDto, SectionDto, SheaveDto};
 pub use error::{FileError, FileErrors};
 pub use fitting::{Direction, FittingDto};
-pub use locate::{Location, SpanIndex};
+pub use locate::{Location, MAX_NESTING, SpanIndex};
+pub use nesting::too_deep;
 pub use read::{FORMAT_WRITTEN, FORMATS_READ, MAX_FILE_BYTES, parse_scenario_text, ron_options};
 pub use write::write_scenario_text;

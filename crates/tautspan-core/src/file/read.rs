@@ -4,7 +4,7 @@
 
 use super::dto::ScenarioDto;
 use super::error::{FileError, FileErrors};
-use super::locate::{Location, SpanIndex};
+use super::locate::{Location, MAX_NESTING, SpanIndex};
 use ron::extensions::Extensions;
 use serde::Deserialize;
 
@@ -69,6 +69,16 @@ pub fn parse_scenario_text(text: &str) -> Result<(ScenarioDto, SpanIndex), FileE
             MAX_FILE_BYTES / 1_048_576
         ))]));
     }
+    if let Some(at) = super::nesting::too_deep(text) {
+        return Err(FileErrors(vec![FileError {
+            file: None,
+            location: Some(at),
+            field: None,
+            message: format!(
+                "brackets nested more than {MAX_NESTING} deep; a scenario nests about 6 deep (Scenario, a list, an item, its fields)"
+            ),
+        }]));
+    }
     let index = SpanIndex::scan(text);
     let opts = ron_options();
     let unreadable = |n: i64| {
@@ -100,7 +110,7 @@ pub fn parse_scenario_text(text: &str) -> Result<(ScenarioDto, SpanIndex), FileE
             }
             let at = Location { line: e.span.start.line.max(1), column: e.span.start.col.max(1) };
             // ron's span for a value error covers the value; name the field there
-            let field = index.path_at(at).map(str::to_string);
+            let field = index.path_at(at);
             Err(FileErrors(vec![FileError { file: None, location: Some(at), field, message: ron_message(&e.code) }]))
         }
     }
