@@ -40,7 +40,7 @@ fn write_all<W: Write>(out: &mut W, files: &[PathBuf], format: CheckFormat, case
         let mut loaded = match read_scenario(path) {
             Ok(l) => l,
             Err(e) => {
-                eprintln!("{e}");
+                crate::read::print_errors(&e);
                 worst = worst.max(EXIT_INPUT);
                 continue;
             }

@@ -47,6 +47,28 @@ pub fn read_text_capped<R: Read>(reader: R, cap: u64) -> Result<String, ReadProb
     })
 }
 
+/// Problems printed for one file at most; the rest are counted.
+pub const MAX_SHOWN: usize = 100;
+
+/// Print a file's problems to stderr, buffered (one write, not one a
+/// piece), the first [`MAX_SHOWN`] of them and a count of the rest.
+pub fn print_errors(errors: &FileErrors) {
+    use std::io::Write;
+    let mut err = std::io::BufWriter::new(std::io::stderr().lock());
+    for e in errors.0.iter().take(MAX_SHOWN) {
+        let _ = writeln!(err, "{e}");
+    }
+    if errors.0.len() > MAX_SHOWN {
+        let file = errors.0[0].file.as_deref().unwrap_or("the file");
+        let _ = writeln!(
+            err,
+            "{file}: and {} more problems (the first {MAX_SHOWN} are shown)",
+            tautspan_core::units::grouped((errors.0.len() - MAX_SHOWN) as u64)
+        );
+    }
+    let _ = err.flush();
+}
+
 /// Read and validate one scenario file; errors name the file.
 pub fn read_scenario(path: &Path) -> Result<Loaded, FileErrors> {
     let name = path.display().to_string();

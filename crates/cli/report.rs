@@ -25,7 +25,7 @@ pub fn run(file: &Path, out: &Path) -> ExitCode {
     let loaded = match read_scenario(file) {
         Ok(l) => l,
         Err(e) => {
-            eprintln!("{e}");
+            crate::read::print_errors(&e);
             return ExitCode::from(EXIT_INPUT);
         }
     };

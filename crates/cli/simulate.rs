@@ -59,7 +59,10 @@ pub fn run(
     }
     let loaded = match read_scenario(file) {
         Ok(l) => l,
-        Err(e) => return input(e.to_string()),
+        Err(e) => {
+            crate::read::print_errors(&e);
+            return ExitCode::from(EXIT_INPUT);
+        }
     };
     let req = SimulateRequest { duration_s, time_step_s, damping_per_s: damping };
     let plan = match plan_simulation(&loaded.scenario, case, &req) {

@@ -468,6 +468,27 @@ impl SpanIndex {
         Some(tree.path(node)).filter(|p| !p.is_empty())
     }
 
+    /// Where the bracketed value closing at `close` (or at the first
+    /// closing bracket after it) opens: its name for `Name(…)`, else its
+    /// bracket. For errors the parser reports at a struct's end, such as a
+    /// missing field.
+    pub fn opening_of(&self, close: Location) -> Option<Location> {
+        let mut stack: Vec<Location> = Vec::new();
+        let mut last_ident: Option<Location> = None;
+        for (tok, at) in Tokens::new(&self.text) {
+            match tok {
+                Tok::Open(_) => stack.push(last_ident.take().unwrap_or(at)),
+                Tok::Close if at >= close => return stack.pop(),
+                Tok::Close => {
+                    stack.pop();
+                }
+                _ => {}
+            }
+            last_ident = if let Tok::Ident(..) = tok { Some(at) } else { None };
+        }
+        None
+    }
+
     /// Map look-ups made by [`SpanIndex::locate`] so far: the work of
     /// locating errors, for tests that it grows with the errors' path
     /// lengths and not with the file.
@@ -494,6 +515,10 @@ mod tests {
         assert_eq!(idx.locate("nothing"), Some(Location { line: 1, column: 1 }));
         assert_eq!(idx.path_at(Location { line: 5, column: 33 }).as_deref(), Some("nodes[1].at.1"));
         assert_eq!(idx.path_at(Location { line: 2, column: 11 }).as_deref(), Some("format"));
+        // a struct's opening from its closing bracket
+        assert_eq!(idx.opening_of(Location { line: 5, column: 37 }), Some(Location { line: 5, column: 5 }));
+        assert_eq!(idx.opening_of(Location { line: 5, column: 36 }), Some(Location { line: 5, column: 23 }));
+        assert_eq!(idx.opening_of(Location { line: 8, column: 1 }), Some(Location { line: 1, column: 1 }));
         // columns count characters, not bytes
         let idx = SpanIndex::scan("S(title: \"é\", format: 1)");
         assert_eq!(idx.locate("format"), Some(Location { line: 1, column: 15 }));

@@ -1,5 +1,6 @@
 //! Scenario files: the file types, reading with located errors, writing.
 
+mod caps;
 mod dto;
 mod error;
 mod fitting;
@@ -8,6 +9,7 @@ mod nesting;
 mod read;
 mod write;
 
+pub use caps::{MAX_CASES, MAX_FLOORS, MAX_MASSES, MAX_MEMBERS, MAX_NODES, over_caps};
 pub use dto::{CaseDto, FloorDto, MassDto, MemberDto, NodeDto, Position, Qty, RatingDto, ScenarioDto, SupportDto};
 pub use dto::{RopeDto, SectionDto, SheaveDto};
 pub use error::{FileError, FileErrors};
