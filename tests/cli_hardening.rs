@@ -208,3 +208,96 @@ fn simulate_stopped_by_ctrl_c_exits_130_with_the_run_so_far() {
     assert_eq!(v["cancelled"], true);
     assert!(v["steps"].as_u64().is_some_and(|s| s < 1_000_000), "{v}");
 }
+
+fn check_text(name: &str, text: &str, extra: &[&str]) -> Output {
+    let d = dir(name);
+    let p = d.join(format!("{name}.ron"));
+    std::fs::write(&p, text).expect("write");
+    let mut args = vec!["check"];
+    args.extend_from_slice(extra);
+    let ps = p.display().to_string();
+    args.push(&ps);
+    run(&args)
+}
+
+#[test]
+fn messages_name_the_place_and_the_bound() {
+    let floor = GOOD.replace(
+        "    masses:",
+        r#"    floors: [ Floor(id: "slab", span: ("4 m", "4 m"), thickness: "150 mm", modulus: "30 GPa", poisson: 0.5, edges: SimplySupported, rated_point: "9 kN") ],
+    masses:"#,
+    );
+    let table: &[(&str, String, &str)] = &[
+        // a missing title at the Scenario's opening (line 1), not at another field
+        ("no-title", GOOD.replace("    title: \"e2e\",\n", ""), ":1:1: title: missing field `title` in Scenario"),
+        ("no-format", GOOD.replace("    format: 1,\n", ""), ":1:1: format: missing field `format` in Scenario"),
+        ("no-id", GOOD.replace(r#"Node(id: "J1", "#, "Node("), ":6:9: nodes[1].id: missing field `id` in Node"),
+        ("poisson", floor, "Poisson's ratio ν must satisfy 0 ≤ ν < 0.5"),
+        (
+            "diameter",
+            GOOD.replace(r#"area: "64.7 mm^2""#, r#"diameter: "10 m", construction: "6x19 IWRC""#),
+            "members[0].diameter: a wire rope of 10000 mm diameter is outside the plausible 0.5–200 mm",
+        ),
+        (
+            "id-clash",
+            GOOD.replace(r#"Member(id: "sling""#, r#"Member(id: "J1""#),
+            "members[0].id: member id \"J1\" is already the id of a node (nodes[1])",
+        ),
+        (
+            "nesting",
+            GOOD.replace("title: \"e2e\",", &format!("title: \"e2e\", notes: {}", "[".repeat(100_000))),
+            "brackets nested more than 32 deep",
+        ),
+    ];
+    for (name, text, needle) in table {
+        let out = check_text(name, text, &[]);
+        assert_eq!(out.status.code(), Some(2), "{name}: {}", stderr(&out));
+        assert!(stderr(&out).contains(needle), "{name}: {}", stderr(&out));
+        assert!(!stderr(&out).contains("panicked"), "{name}");
+    }
+}
+
+#[test]
+fn caps_are_named_with_the_count() {
+    // the case cap (1,000) is the cheapest to pass; every cap shares the check and its wording
+    let mut cases = String::new();
+    for i in 0..1_001 {
+        cases.push_str(&format!("Static(id: \"c{i}\"),"));
+    }
+    let text = GOOD.replace(
+        r#"cases: [ Static(id: "hanging"), Sudden(id: "sudden", mass: "load") ],"#,
+        &format!("cases: [{cases}],"),
+    );
+    let out = check_text("caps", &text, &[]);
+    assert_eq!(out.status.code(), Some(2), "{}", stderr(&out));
+    assert!(stderr(&out).contains(":12:5: cases: 1,001 cases; the cap is 1,000 cases a scenario"), "{}", stderr(&out));
+}
+
+#[test]
+fn json_of_several_files_stays_an_array_with_an_entry_for_the_bad_one() {
+    let d = dir("array");
+    let good = d.join("good.ron");
+    let bad = d.join("bad.ron");
+    std::fs::write(&good, GOOD).expect("write");
+    std::fs::write(&bad, GOOD.replace(r#"at: "J1", mass"#, r#"at: "J9", mass"#)).expect("write");
+    let (g, b) = (good.display().to_string(), bad.display().to_string());
+    for files in [vec![g.as_str(), b.as_str()], vec![b.as_str(), g.as_str()]] {
+        let mut args = vec!["check", "--format", "json"];
+        args.extend(&files);
+        let out = run(&args);
+        assert_eq!(out.status.code(), Some(2));
+        let v: serde_json::Value = serde_json::from_slice(&out.stdout).expect("valid JSON");
+        let arr = v.as_array().expect("an array for several files");
+        assert_eq!(arr.len(), 2);
+        let e = arr.iter().find(|f| f["file"] == b.as_str()).expect("the bad file's entry");
+        assert_eq!(e["verdict"], "input_error");
+        assert_eq!(e["errors"][0]["field"], "masses[0].at");
+        assert_eq!(e["errors"][0]["line"], 11);
+        assert!(e["caution"].is_string());
+        assert!(arr.iter().any(|f| f["file"] == g.as_str() && f["cases"].is_array()));
+    }
+    // one bad file alone: one object, the same entry
+    let out = run(&["check", "--format", "json", &b]);
+    let v: serde_json::Value = serde_json::from_slice(&out.stdout).expect("valid JSON");
+    assert_eq!(v["verdict"], "input_error");
+}
