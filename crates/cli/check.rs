@@ -9,6 +9,7 @@ use std::path::PathBuf;
 use std::process::ExitCode;
 use tautspan_core::CAUTION;
 use tautspan_core::analysis::analyse;
+use tautspan_core::file::{FileError, FileErrors};
 use tautspan_core::output::{CSV_HEADER, check_text, csv_caution_line, write_check_json, write_csv_rows};
 
 /// Run the command; the exit code follows the contract (0, 1, 2).
@@ -24,6 +25,25 @@ pub fn run(files: &[PathBuf], format: CheckFormat, case: Option<&str>) -> ExitCo
     }
 }
 
+/// A file that could not be read, as one entry of the JSON output: its
+/// name, the caution, `verdict` "input_error" and each error located.
+fn write_error_json<W: Write>(out: &mut W, name: &str, errors: &FileErrors) -> std::io::Result<()> {
+    let list: Vec<serde_json::Value> = errors
+        .0
+        .iter()
+        .map(|e| {
+            serde_json::json!({
+                "line": e.location.map(|l| l.line),
+                "column": e.location.map(|l| l.column),
+                "field": e.field,
+                "message": e.message,
+            })
+        })
+        .collect();
+    let v = serde_json::json!({ "file": name, "caution": CAUTION, "verdict": "input_error", "errors": list });
+    serde_json::to_writer(&mut *out, &v).map_err(std::io::Error::other)
+}
+
 fn write_all<W: Write>(out: &mut W, files: &[PathBuf], format: CheckFormat, case: Option<&str>) -> std::io::Result<u8> {
     let mut worst = 0u8;
     // several files make a JSON array (one object per file), one file an object
@@ -37,10 +57,22 @@ fn write_all<W: Write>(out: &mut W, files: &[PathBuf], format: CheckFormat, case
     }
     for path in files {
         let name = path.display().to_string();
+        // a file that cannot be read still takes its place in a JSON array
+        let mut input_error = |out: &mut W, errors: &FileErrors| -> std::io::Result<()> {
+            crate::read::print_errors(errors);
+            if let CheckFormat::Json = format {
+                if array {
+                    out.write_all(if written == 0 { b"\n" } else { b",\n" })?;
+                }
+                write_error_json(out, &name, errors)?;
+                written += 1;
+            }
+            Ok(())
+        };
         let mut loaded = match read_scenario(path) {
             Ok(l) => l,
             Err(e) => {
-                eprintln!("{e}");
+                input_error(out, &e)?;
                 worst = worst.max(EXIT_INPUT);
                 continue;
             }
@@ -50,7 +82,8 @@ fn write_all<W: Write>(out: &mut W, files: &[PathBuf], format: CheckFormat, case
                 Some(i) => loaded.scenario.cases = vec![loaded.scenario.cases[i].clone()],
                 None => {
                     let ids: Vec<String> = loaded.scenario.cases.iter().map(|c| format!("\"{}\"", c.id())).collect();
-                    eprintln!("{name}: --case {id}: no such case; the file's cases are {}", ids.join(", "));
+                    let msg = format!("--case {id}: no such case; the file's cases are {}", ids.join(", "));
+                    input_error(out, &FileErrors(vec![FileError::new(msg).in_file(name.clone())]))?;
                     worst = worst.max(EXIT_INPUT);
                     continue;
                 }

@@ -1,6 +1,7 @@
 //! The `tautspan` binary: argument parsing and dispatch only. The GUI opens
 //! by default; `check`, `simulate` and `report` are the command line.
 
+mod atomic_write;
 mod check;
 mod read;
 mod report;
@@ -72,8 +73,10 @@ enum Command {
     /// Run one case in the time domain and print its histories (csv) or summary (json).
     ///
     /// Lumped masses at the nodes (the masses plus half of each member's own weight), the same
-    /// member laws, implicit Newmark average-acceleration integration. Progress goes to stderr;
-    /// Ctrl+C stops the run and prints what was computed.
+    /// member laws, implicit Newmark average-acceleration integration. The CSV history is written
+    /// as it is computed; the JSON summary keeps only the peaks. A step coarser than a tenth of
+    /// the shortest member-mass period is warned. Progress goes to stderr; Ctrl+C stops the run,
+    /// prints what was computed and exits 130.
     Simulate {
         /// Scenario file.
         file: PathBuf,
@@ -81,10 +84,11 @@ enum Command {
         #[arg(long = "case")]
         case: String,
         /// Simulated time, with its unit (e.g. 10s, 2500 ms).
-        #[arg(long, default_value = "10 s")]
+        #[arg(long, default_value = "10 s", allow_hyphen_values = true)]
         duration: String,
-        /// Time step with its unit (e.g. 1ms); automatic when omitted.
-        #[arg(long)]
+        /// Time step with its unit (e.g. 1ms); automatic when omitted. At most 10,000,000 steps
+        /// (duration / step) a run.
+        #[arg(long, allow_hyphen_values = true)]
         step: Option<String>,
         /// Mass-proportional damping coefficient, 1/s (0: none).
         #[arg(long, default_value_t = 0.0)]

@@ -1,8 +1,9 @@
-//! `tautspan report`: the self-contained HTML report, written atomically.
+//! `tautspan report`: the self-contained HTML report, written atomically
+//! (`atomic_write.rs`).
 
 use crate::EXIT_INPUT;
+use crate::atomic_write::{check_target, write_atomic};
 use crate::read::read_scenario;
-use std::io::Write;
 use std::path::Path;
 use std::process::ExitCode;
 use tautspan_core::CAUTION;
@@ -14,34 +15,23 @@ pub fn today() -> String {
     tautspan_core::report::civil_date(secs)
 }
 
-/// Write `text` to `path` atomically: a temporary file beside it, flushed
-/// and synced, then renamed over the target.
-pub fn write_atomic(path: &Path, text: &str) -> std::io::Result<()> {
-    let dir = path.parent().filter(|p| !p.as_os_str().is_empty()).unwrap_or(Path::new("."));
-    let name = path.file_name().map_or_else(|| "report".into(), |n| n.to_string_lossy().into_owned());
-    let tmp = dir.join(format!(".{name}.tmp-{}", std::process::id()));
-    {
-        let mut f = std::fs::File::create(&tmp)?;
-        f.write_all(text.as_bytes())?;
-        f.sync_all()?;
-    }
-    std::fs::rename(&tmp, path).inspect_err(|_| {
-        let _ = std::fs::remove_file(&tmp);
-    })
-}
-
 /// Run the command.
 pub fn run(file: &Path, out: &Path) -> ExitCode {
+    // refused before the work: the input itself, a device, a missing folder
+    if let Err(e) = check_target(out, Some(file)) {
+        eprintln!("{}: cannot write the report: {e}", out.display());
+        return ExitCode::from(EXIT_INPUT);
+    }
     let loaded = match read_scenario(file) {
         Ok(l) => l,
         Err(e) => {
-            eprintln!("{e}");
+            crate::read::print_errors(&e);
             return ExitCode::from(EXIT_INPUT);
         }
     };
     let a = analyse(&loaded.scenario);
     let html = tautspan_core::report::html(&loaded.scenario, &a, &today());
-    if let Err(e) = write_atomic(out, &html) {
+    if let Err(e) = write_atomic(out, Some(file), html.as_bytes()) {
         eprintln!("{}: cannot write the report: {e}", out.display());
         return ExitCode::from(EXIT_INPUT);
     }

@@ -230,7 +230,7 @@ fn badly_routed_ropes_are_located_errors() {
         "ropes: [",
         r#"members: [ Member(id: "fall", ends: ("A", "B"), kind: WireRope, area: "10 mm^2", modulus: "100 GPa", rating: BreakingStrength("10 kN")) ], ropes: ["#,
     ));
-    assert!(e.contains("ropes[0].id") && e.contains("share one list"), "{e}");
+    assert!(e.contains("ropes[0].id") && e.contains("share one set of ids"), "{e}");
     // errors in the member fields are located under ropes[i]
     let e = error_of(&good.replace(r#"area: "100 mm^2""#, r#"area: "100 kg""#));
     assert!(e.contains("ropes[0].area"), "{e}");

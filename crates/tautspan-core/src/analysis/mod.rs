@@ -16,6 +16,7 @@ mod multi_leg;
 pub mod results;
 mod scope;
 mod simulate_case;
+mod simulate_stream;
 mod strut;
 mod swing_arc;
 mod warning_group;
@@ -32,7 +33,11 @@ pub use fittings::node_load_n;
 pub use load_paths::{ALL_MASSES, LOAD_PATH_THRESHOLD, MAX_LISTED};
 pub use results::*;
 pub use scope::{Scope, scope};
-pub use simulate_case::{CaseSimulation, SimulateRequest, simulate_case};
+pub use simulate_case::{CaseSimulation, MAX_SIMULATE_STEPS, SimulateRequest, check_step_cap, simulate_case};
+pub use simulate_stream::{
+    COARSE_STEP_FRACTION, PlanError, Sample, ShortestPeriod, SimulationPlan, SimulationSummary, plan_simulation,
+    shortest_period,
+};
 pub use strut::{Compression, compression, compression_explanation};
 pub use swing_arc::{GRID_STEP_DEG, PEAK_TOLERANCE, arc_loads};
 pub use warning_group::{SUBJECTS_IN_TEXT, WarningGroup, first_few, group_warnings};

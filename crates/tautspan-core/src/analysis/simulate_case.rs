@@ -129,7 +129,7 @@ fn default_step(s: &Scenario, case: &Case, solver: &mut StaticSolver, eq: &crate
 }
 
 /// Upward zero crossings of `x(t) − x_ref`, averaged into a period.
-fn measured_period(t: &[f64], x: &[f64], x_ref: f64) -> Option<f64> {
+pub(super) fn measured_period(t: &[f64], x: &[f64], x_ref: f64) -> Option<f64> {
     let mut crossings = Vec::new();
     for i in 1..t.len() {
         let (a, b) = (x[i - 1] - x_ref, x[i] - x_ref);
@@ -144,20 +144,32 @@ fn measured_period(t: &[f64], x: &[f64], x_ref: f64) -> Option<f64> {
     Some((crossings[crossings.len() - 1] - crossings[0]) / (crossings.len() - 1) as f64)
 }
 
-/// Simulate a case of a scenario. `progress` gets the completed fraction and
-/// returns false to stop early.
-pub fn simulate_case(
-    s: &Scenario,
-    case_id: &str,
-    req: &SimulateRequest,
-    progress: &mut dyn FnMut(f64) -> bool,
-) -> Result<CaseSimulation, String> {
-    let case = s.cases.iter().find(|c| c.id() == case_id).ok_or_else(|| {
+/// A case made ready to run: its network, start state, time step and the
+/// reference the swing period is measured from.
+pub(super) struct Prepared {
+    pub(super) net: crate::solve::Network,
+    pub(super) start: SimulationStart,
+    /// The case's default step (`None`: the integrator's automatic rule).
+    pub(super) default_step_s: Option<f64>,
+    pub(super) mass_node: Option<usize>,
+    /// The swing's horizontal direction in plan `(cos ψ, sin ψ)` and the
+    /// mass's equilibrium coordinate along it.
+    pub(super) swing_axis: Option<([f64; 2], f64)>,
+}
+
+/// The case named `case_id`, or the message naming the cases there are.
+pub(super) fn find_case<'a>(s: &'a Scenario, case_id: &str) -> Result<&'a Case, String> {
+    s.cases.iter().find(|c| c.id() == case_id).ok_or_else(|| {
         format!(
             "case \"{case_id}\" is not in the scenario; its cases are {}",
             s.cases.iter().map(|c| format!("\"{}\"", c.id())).collect::<Vec<_>>().join(", ")
         )
-    })?;
+    })
+}
+
+/// The network, start state and default step of a case.
+pub(super) fn prepare(s: &Scenario, case: &Case) -> Result<Prepared, String> {
+    let case_id = case.id();
     let (net, loads) = to_network(s);
     let mut solver = StaticSolver::new(&net).map_err(|e| e.to_string())?;
     let opts = SolveOptions::default();
@@ -208,7 +220,33 @@ pub fn simulate_case(
             SimulationStart { positions_m: Some(eq0.positions_m), velocities_m_per_s: Some(v) }
         }
     };
-    let time_step_s = req.time_step_s.or_else(|| default_step(s, case, &mut solver, &eq));
+    let default_step_s = default_step(s, case, &mut solver, &eq);
+    let swing_axis = match (case, mass_node) {
+        (Case::Swing { azimuth, .. }, Some(n)) => {
+            let (hx, hz) = (azimuth.value.cos(), azimuth.value.sin());
+            let p = eq.positions_m[n];
+            Some(([hx, hz], p[0] * hx + p[2] * hz))
+        }
+        _ => None,
+    };
+    Ok(Prepared { net, start, default_step_s, mass_node, swing_axis })
+}
+
+/// Simulate a case of a scenario, keeping every step's state in memory
+/// (the app's plots). The command line streams instead
+/// ([`super::simulate_stream`]). Refused over [`MAX_SIMULATE_STEPS`].
+pub fn simulate_case(
+    s: &Scenario,
+    case_id: &str,
+    req: &SimulateRequest,
+    progress: &mut dyn FnMut(f64) -> bool,
+) -> Result<CaseSimulation, String> {
+    let case = find_case(s, case_id)?;
+    let p = prepare(s, case)?;
+    let time_step_s = req.time_step_s.or(p.default_step_s);
+    if let Some(dt) = time_step_s {
+        check_step_cap(req.duration_s, dt)?;
+    }
     let sim_opts = SimulateOptions {
         duration_s: req.duration_s,
         time_step_s,
@@ -216,13 +254,16 @@ pub fn simulate_case(
         mass_damping_per_s: req.damping_per_s,
         newton: SolveOptions::default(),
     };
-    let run = simulate(&net, &start, &sim_opts, progress).map_err(|e| e.to_string())?;
-    let period_s = match (case, mass_node) {
-        (Case::Swing { azimuth, .. }, Some(n)) => {
-            let (hx, hz) = (azimuth.value.cos(), azimuth.value.sin());
-            let along = |p: &[f64; 3]| p[0] * hx + p[2] * hz;
-            let x: Vec<f64> = run.positions_m.iter().map(|p| along(&p[n])).collect();
-            measured_period(&run.time_s, &x, along(&eq.positions_m[n]))
+    if time_step_s.is_none() {
+        // the automatic step, found before anything per step is kept
+        let probe = simulate(&p.net, &p.start, &sim_opts, &mut |_| false).map_err(|e| e.to_string())?;
+        check_step_cap(req.duration_s, probe.time_step_s)?;
+    }
+    let run = simulate(&p.net, &p.start, &sim_opts, progress).map_err(|e| e.to_string())?;
+    let period_s = match (p.swing_axis, p.mass_node) {
+        (Some((h, x_ref)), Some(n)) => {
+            let x: Vec<f64> = run.positions_m.iter().map(|q| q[n][0] * h[0] + q[n][2] * h[1]).collect();
+            measured_period(&run.time_s, &x, x_ref)
         }
         _ => None,
     };
@@ -232,6 +273,30 @@ pub fn simulate_case(
         node_ids: s.nodes.iter().map(|n| n.id.clone()).collect(),
         run,
         period_s,
-        mass_node,
+        mass_node: p.mass_node,
     })
+}
+
+/// The most steps a run may take (`duration / step`): ten million, 10 s at
+/// a microsecond. A run is refused over it before it starts.
+pub const MAX_SIMULATE_STEPS: f64 = 10_000_000.0;
+
+/// The number of steps `duration / step` (rounded up), or the message
+/// refusing it over [`MAX_SIMULATE_STEPS`] or for a step that is not a
+/// positive number.
+pub fn check_step_cap(duration_s: f64, step_s: f64) -> Result<f64, String> {
+    if !(step_s.is_finite() && step_s > 0.0) {
+        return Err(format!("the time step {step_s} s must be a positive number of seconds"));
+    }
+    let steps = (duration_s / step_s).ceil().max(1.0);
+    if steps > MAX_SIMULATE_STEPS {
+        return Err(format!(
+            "{} s at a step of {} s is {} steps; the cap is {} steps a run: give a longer --step or a shorter --duration",
+            crate::units::format_number(duration_s, 4),
+            crate::units::format_number(step_s, 4),
+            if steps < 1e18 { crate::units::grouped(steps as u64) } else { format!("{steps:e}") },
+            crate::units::grouped(MAX_SIMULATE_STEPS as u64)
+        ));
+    }
+    Ok(steps)
 }

@@ -4,7 +4,7 @@
 
 use super::dto::ScenarioDto;
 use super::error::{FileError, FileErrors};
-use super::locate::{Location, SpanIndex};
+use super::locate::{Location, MAX_NESTING, SpanIndex};
 use ron::extensions::Extensions;
 use serde::Deserialize;
 
@@ -32,7 +32,9 @@ struct FormatProbe {
 }
 
 fn located(index: &SpanIndex, path: &str, message: String) -> FileError {
-    FileError { file: None, location: index.locate(path), field: Some(path.to_string()), message }
+    // an empty text has no place of its own: its start
+    let location = index.locate(path).or(Some(Location { line: 1, column: 1 }));
+    FileError { file: None, location, field: Some(path.to_string()), message }
 }
 
 /// The reason text of a ron error, reworded where ron's own is terse.
@@ -69,6 +71,16 @@ pub fn parse_scenario_text(text: &str) -> Result<(ScenarioDto, SpanIndex), FileE
             MAX_FILE_BYTES / 1_048_576
         ))]));
     }
+    if let Some(at) = super::nesting::too_deep(text) {
+        return Err(FileErrors(vec![FileError {
+            file: None,
+            location: Some(at),
+            field: None,
+            message: format!(
+                "brackets nested more than {MAX_NESTING} deep; a scenario nests about 6 deep (Scenario, a list, an item, its fields)"
+            ),
+        }]));
+    }
     let index = SpanIndex::scan(text);
     let opts = ron_options();
     let unreadable = |n: i64| {
@@ -79,7 +91,14 @@ pub fn parse_scenario_text(text: &str) -> Result<(ScenarioDto, SpanIndex), FileE
         )])
     };
     match opts.from_str::<ScenarioDto>(text) {
-        Ok(dto) if FORMATS_READ.contains(&dto.format) => Ok((dto, index)),
+        Ok(dto) if FORMATS_READ.contains(&dto.format) => {
+            let over = super::caps::over_caps(&dto);
+            if over.is_empty() {
+                Ok((dto, index))
+            } else {
+                Err(FileErrors(over.into_iter().map(|(field, message)| located(&index, field, message)).collect()))
+            }
+        }
         Ok(dto) => Err(unreadable(i64::from(dto.format))),
         Err(e) => {
             // The format number first, so a newer file is refused for what
@@ -91,7 +110,10 @@ pub fn parse_scenario_text(text: &str) -> Result<(ScenarioDto, SpanIndex), FileE
                         return Err(FileErrors(vec![located(
                             &index,
                             "format",
-                            format!("missing field `format`; this build reads format {}", list(FORMATS_READ)),
+                            format!(
+                                "missing field `format` in Scenario; this build reads format {}: add `format: {FORMAT_WRITTEN},` as its first field",
+                                list(FORMATS_READ)
+                            ),
                         )]));
                     }
                     Some(n) if !FORMATS_READ.iter().any(|&f| i64::from(f) == n) => return Err(unreadable(n)),
@@ -99,8 +121,24 @@ pub fn parse_scenario_text(text: &str) -> Result<(ScenarioDto, SpanIndex), FileE
                 }
             }
             let at = Location { line: e.span.start.line.max(1), column: e.span.start.col.max(1) };
+            if let ron::Error::MissingStructField { field, outer } = &e.code {
+                // ron reports a missing field at the struct's closing
+                // bracket; name the struct and place the error at its opening
+                let open = index.opening_of(at).unwrap_or(at);
+                let path = index.path_at(open).map_or_else(|| field.to_string(), |p| format!("{p}.{field}"));
+                let outer = outer.as_deref().unwrap_or("this item");
+                return Err(FileErrors(vec![FileError {
+                    file: None,
+                    location: Some(open),
+                    field: Some(path),
+                    message: format!(
+                        "missing field `{field}` in {outer} (the {outer} opening here, closing at line {} column {})",
+                        at.line, at.column
+                    ),
+                }]));
+            }
             // ron's span for a value error covers the value; name the field there
-            let field = index.path_at(at).map(str::to_string);
+            let field = index.path_at(at);
             Err(FileErrors(vec![FileError { file: None, location: Some(at), field, message: ron_message(&e.code) }]))
         }
     }

@@ -168,15 +168,10 @@ pub fn build(dto: &ScenarioDto) -> Result<Scenario, Vec<Problem>> {
     let floor_ids = ids(&mut ctx, dto.floors.iter().map(|f| f.id.as_str()), "floors", "floor");
     let member_ids = ids(&mut ctx, dto.members.iter().map(|m| m.id.as_str()), "members", "member");
     let rope_ids = ids(&mut ctx, dto.ropes.iter().map(|r| r.id.as_str()), "ropes", "rope");
-    for (id, &k) in &rope_ids {
-        if let Some(&first) = member_ids.get(id) {
-            ctx.err(
-                format!("ropes[{k}].id"),
-                format!(
-                    "rope id \"{id}\" is already a member's (members[{first}]); members and ropes share one list of ids"
-                ),
-            );
-        }
+    let _ = rope_ids;
+    // one set of ids over the drawing: the rule the app applies when an id is typed
+    for (path, message) in super::ids::id_clashes(dto) {
+        ctx.err(path, message);
     }
     let mass_ids = ids(&mut ctx, dto.masses.iter().map(|m| m.id.as_str()), "masses", "mass");
     let _ = ids(&mut ctx, dto.cases.iter().map(CaseDto::id), "cases", "case");
@@ -523,7 +518,16 @@ fn build_floor(ctx: &mut Ctx, i: usize, f: &FloorDto) -> Option<Floor> {
         }
     };
     let poisson = match (f.poisson, material) {
-        (Some(v), _) => ctx.number(v, p("poisson"), 0.0, 0.499, "Poisson's ratio is between 0 and 0.5"),
+        (Some(v), _) if v.is_finite() && (0.0..0.5).contains(&v) => Some(v),
+        (Some(v), _) => {
+            ctx.err(
+                p("poisson"),
+                format!(
+                    "{v} is out of range: Poisson's ratio ν must satisfy 0 ≤ ν < 0.5 (0.5 itself is refused: an incompressible solid, not a floor slab; concrete is about 0.2)"
+                ),
+            );
+            None
+        }
         (None, Some(m)) => Some(m.data().poisson),
         (None, None) => {
             ctx.err(p("poisson"), "missing: give `poisson` (0.2 for concrete) or a `material`");
@@ -667,7 +671,15 @@ pub(super) fn build_member(
         );
     }
     let material = material_of(ctx, &m.material, p("material"));
-    let diameter = ctx.opt_qty(&m.diameter, p("diameter"), Dimension::Length, Sign::Positive);
+    let diameter = ctx.opt_qty(&m.diameter, p("diameter"), Dimension::Length, Sign::Positive).and_then(|d| {
+        match super::plausible::implausible_diameter(kind, d) {
+            Some(why) => {
+                ctx.err(p("diameter"), why);
+                None
+            }
+            None => Some(d),
+        }
+    });
     let area_given =
         m.area.as_ref().and_then(|q| ctx.plausible_qty(q, p("area"), Dimension::Area, Sign::Positive, AREA));
     let modulus_given = m
