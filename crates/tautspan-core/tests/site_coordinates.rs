@@ -315,3 +315,29 @@ fn displacements_are_kept_far_from_zero() {
         }
     }
 }
+
+// The time-domain run works in the same displacements: the gantry's swing,
+// 1 s of it, moved 10 km, gives the same peak member forces. Tolerance
+// 1e-6 of the largest peak: each of the run's steps closes its Newton
+// iteration to 1e-9 of the load, and those differences add up over the
+// steps.
+#[test]
+fn a_swing_simulated_far_from_zero_peaks_alike() {
+    use tautspan_core::analysis::{SimulateRequest, simulate_case};
+    let (near, far) = shifted(&example("gantry-swing.ron"), [1e4, 1e4, -1e4]);
+    let req = SimulateRequest { duration_s: 1.0, ..SimulateRequest::default() };
+    let run = |s: &Scenario| simulate_case(s, "swing-25", &req, &mut |_| true).unwrap_or_else(|e| panic!("{e}"));
+    let (a, b) = (run(&near), run(&far));
+    let peak = largest(a.run.peak_member_force_n.iter().copied());
+    assert!(peak > 0.0);
+    for (i, (pa, pb)) in a.run.peak_member_force_n.iter().zip(&b.run.peak_member_force_n).enumerate() {
+        assert!(close(*pa, *pb, peak, 1e-6), "member {i}: peak {pa} vs {pb}");
+    }
+    // its positions are in the file's coordinates, the shift and all
+    let (pa, pb) = (a.run.positions_m.last().unwrap(), b.run.positions_m.last().unwrap());
+    for (p, q) in pa.iter().zip(pb) {
+        for (ax, d) in [1e4, 1e4, -1e4].iter().enumerate() {
+            assert!((q[ax] - p[ax] - d).abs() < 1e-6, "{p:?} vs {q:?}");
+        }
+    }
+}
