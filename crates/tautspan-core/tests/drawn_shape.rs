@@ -97,22 +97,44 @@ fn a_level_rope_swinging_down_is_warned() {
     assert_eq!(a.verdict(), Verdict::NotWithin);
 }
 
-// A swing case shows the rig at a point of its arc, off the drawing by
-// design: it is judged by the static shape. A rope drawn hanging is not
-// warned in its swing; drawn as a column it is, naming the static case.
+// The drawing is judged by the rig hanging still: the static case carries
+// the warning, not the swing (off the drawing by design) nor the drop
+// (stretched by its load); without a static case every case carries it,
+// from the static solve. A rope drawn hanging is not warned in any case.
 #[test]
-fn a_swing_is_judged_by_its_static_shape() {
-    let cases = r#"Static(id: "s"), Swing(id: "w", mass: "load", release: "60 deg")"#;
-    let hanging = analyse(&load_scenario(&one_line(("0 m", "3 m"), ("0 m", "0 m"), ROPE, cases)).unwrap().scenario);
+fn the_static_shape_is_judged() {
+    let dynamic = r#"Swing(id: "w", mass: "load", release: "60 deg"), Drop(id: "d", mass: "load", height: "0.1 m")"#;
+    let with_static = format!(r#"Static(id: "s"), {dynamic}"#);
+    let hanging =
+        analyse(&load_scenario(&one_line(("0 m", "3 m"), ("0 m", "0 m"), ROPE, &with_static)).unwrap().scenario);
     assert!(far(&hanging).is_empty(), "{:?}", far(&hanging));
-    let column = analyse(&load_scenario(&one_line(("0 m", "0 m"), ("0 m", "3 m"), ROPE, cases)).unwrap().scenario);
-    let sw: Vec<String> = column.cases[1]
-        .warning_items
-        .iter()
-        .filter(|w| w.kind == WarningKind::FarFromDrawing)
-        .map(|w| w.message.clone())
-        .collect();
-    assert!(!sw.is_empty() && sw[0].contains("in case w (its static shape, case s)"), "{sw:?}");
+    let column =
+        analyse(&load_scenario(&one_line(("0 m", "0 m"), ("0 m", "3 m"), ROPE, &with_static)).unwrap().scenario);
+    let per_case = |a: &Analysis| -> Vec<Vec<String>> {
+        a.cases
+            .iter()
+            .map(|c| {
+                c.warning_items
+                    .iter()
+                    .filter(|w| w.kind == WarningKind::FarFromDrawing)
+                    .map(|w| w.message.clone())
+                    .collect()
+            })
+            .collect()
+    };
+    let w = per_case(&column);
+    assert_eq!((w[0].len(), w[1].len(), w[2].len()), (2, 0, 0), "{w:?}");
+    let only_dynamic =
+        analyse(&load_scenario(&one_line(("0 m", "0 m"), ("0 m", "3 m"), ROPE, dynamic)).unwrap().scenario);
+    let w = per_case(&only_dynamic);
+    assert!(w.iter().all(|c| c.len() == 2), "{w:?}");
+    assert!(
+        w[0][0]
+            .starts_with("node M: ends 6 m from where it is drawn in case w (hanging still, before the case's load)"),
+        "{}",
+        w[0][0]
+    );
+    assert_eq!(only_dynamic.verdict(), Verdict::NotWithin);
 }
 
 // A tiny rig: a 0.2 m line that stretches 30 mm (W L / EA with EA chosen

@@ -16,7 +16,7 @@
 use proptest::prelude::*;
 use tautspan_core::analysis::{Analysis, analyse};
 use tautspan_core::file::Qty;
-use tautspan_core::model::{build, load_scenario, to_network};
+use tautspan_core::model::{Scenario, build, load_scenario, to_network};
 use tautspan_core::solve::{SolveOptions, solve_static};
 
 fn example(name: &str) -> String {
@@ -36,11 +36,10 @@ fn examples() -> Vec<String> {
     names
 }
 
-/// The analysis of `text` with every node (and every floor's plan corner)
-/// moved by `shift`, m, and of `text` as drawn.
-fn analyse_shifted(text: &str, shift: [f64; 3]) -> (Analysis, Analysis) {
+/// The scenario of `text` as drawn, and with every node (and every floor's
+/// plan corner) moved by `shift`, m.
+fn shifted(text: &str, shift: [f64; 3]) -> (Scenario, Scenario) {
     let loaded = load_scenario(text).unwrap_or_else(|e| panic!("{e}"));
-    let base = analyse(&loaded.scenario);
     let mut dto = loaded.dto.clone();
     let q = |v: f64| Qty::new(format!("{v:e} m"));
     for (n, m) in dto.nodes.iter_mut().zip(&loaded.scenario.nodes) {
@@ -54,7 +53,13 @@ fn analyse_shifted(text: &str, shift: [f64; 3]) -> (Analysis, Analysis) {
         }
     }
     let moved = build(&dto).unwrap_or_else(|e| panic!("{e:?}"));
-    (base, analyse(&moved))
+    (loaded.scenario, moved)
+}
+
+/// The analyses of `text` as drawn and moved by `shift`.
+fn analyse_shifted(text: &str, shift: [f64; 3]) -> (Analysis, Analysis) {
+    let (a, b) = shifted(text, shift);
+    (analyse(&a), analyse(&b))
 }
 
 /// `a` and `b` agree to `rel` of the largest magnitude among `scale`.
@@ -287,37 +292,52 @@ proptest! {
     }
 }
 
-// The displacements themselves, from the solver: the same to 1e-9 of the
-// largest, 10 km away (positions − drawn would keep only ~1e-12 m of them).
+// The displacements themselves, from the solver, for every example: the
+// same to 1e-9 of the largest, 10 km away (positions − drawn would keep
+// only ~1e-12 m of them there).
 #[test]
 fn displacements_are_kept_far_from_zero() {
-    let text = example("bridle-unequal.ron");
-    let s = load_scenario(&text).unwrap().scenario;
-    let (net, _) = to_network(&s);
-    let mut far = net.clone();
-    for n in &mut far.nodes {
-        for (c, d) in n.position_m.iter_mut().zip([1e4, -1e4, 1e4]) {
-            *c += d;
+    for name in examples() {
+        let (near, far) = shifted(&example(&name), [1e4, -1e4, 1e4]);
+        let solve = |s: &Scenario| {
+            let (net, loads) = to_network(s);
+            tautspan_core::solve::StaticSolver::new(&net)
+                .and_then(|mut sv| sv.solve(&loads.total_n, None, &SolveOptions::default()))
+                .unwrap_or_else(|e| panic!("{name}: {e}"))
+        };
+        let (a, b) = (solve(&near), solve(&far));
+        let scale = largest(a.displacements_m.iter().flatten().copied());
+        assert!(scale > 0.0, "{name}");
+        for (i, (da, db)) in a.displacements_m.iter().zip(&b.displacements_m).enumerate() {
+            for ax in 0..3 {
+                assert!(close(da[ax], db[ax], scale, 1e-9), "{name}: node {i} axis {ax}: {} vs {}", da[ax], db[ax]);
+            }
         }
     }
-    // rest lengths as drawn far away (what the model would build there)
-    let chord = |nw: &tautspan_core::solve::Network, i: usize| {
-        let m = &nw.members[i];
-        let (a, b) = (nw.nodes[m.ends[0]].position_m, nw.nodes[m.ends[1]].position_m);
-        ((b[0] - a[0]).powi(2) + (b[1] - a[1]).powi(2) + (b[2] - a[2]).powi(2)).sqrt()
-    };
-    let rest: Vec<f64> =
-        (0..net.members.len()).map(|i| net.members[i].rest_length_m - chord(&net, i) + chord(&far, i)).collect();
-    for (mf, r) in far.members.iter_mut().zip(rest) {
-        mf.rest_length_m = r;
+}
+
+// The time-domain run works in the same displacements: the gantry's swing,
+// 1 s of it, moved 10 km, gives the same peak member forces. Tolerance
+// 1e-6 of the largest peak: each of the run's steps closes its Newton
+// iteration to 1e-9 of the load, and those differences add up over the
+// steps.
+#[test]
+fn a_swing_simulated_far_from_zero_peaks_alike() {
+    use tautspan_core::analysis::{SimulateRequest, simulate_case};
+    let (near, far) = shifted(&example("gantry-swing.ron"), [1e4, 1e4, -1e4]);
+    let req = SimulateRequest { duration_s: 1.0, ..SimulateRequest::default() };
+    let run = |s: &Scenario| simulate_case(s, "swing-25", &req, &mut |_| true).unwrap_or_else(|e| panic!("{e}"));
+    let (a, b) = (run(&near), run(&far));
+    let peak = largest(a.run.peak_member_force_n.iter().copied());
+    assert!(peak > 0.0);
+    for (i, (pa, pb)) in a.run.peak_member_force_n.iter().zip(&b.run.peak_member_force_n).enumerate() {
+        assert!(close(*pa, *pb, peak, 1e-6), "member {i}: peak {pa} vs {pb}");
     }
-    let a = solve_static(&net, &SolveOptions::default()).unwrap();
-    let b = solve_static(&far, &SolveOptions::default()).unwrap();
-    let scale = largest(a.displacements_m.iter().flatten().copied());
-    assert!(scale > 0.0);
-    for (i, (da, db)) in a.displacements_m.iter().zip(&b.displacements_m).enumerate() {
-        for ax in 0..3 {
-            assert!(close(da[ax], db[ax], scale, 1e-9), "node {i} axis {ax}: {} vs {}", da[ax], db[ax]);
+    // its positions are in the file's coordinates, the shift and all
+    let (pa, pb) = (a.run.positions_m.last().unwrap(), b.run.positions_m.last().unwrap());
+    for (p, q) in pa.iter().zip(pb) {
+        for (ax, d) in [1e4, 1e4, -1e4].iter().enumerate() {
+            assert!((q[ax] - p[ax] - d).abs() < 1e-6, "{p:?} vs {q:?}");
         }
     }
 }

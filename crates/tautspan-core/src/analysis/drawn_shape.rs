@@ -6,8 +6,11 @@
 //! naming the node or member, how far and the limit, and the warning counts
 //! against the verdict (`Analysis::verdict`): never a plain `within`.
 //!
-//! Swing cases show the rig at a point of its arc, off the drawing by
-//! design; they are judged by the static shape they start from.
+//! The drawing is judged by the rig hanging still under its weights: a
+//! swing shows the rig at a point of its arc, off the drawing by design,
+//! and a drop or a sudden load stretches it by what it is checked for. So
+//! the static case carries the warning; a scenario without one carries it
+//! on every case, from the static solve they all start from.
 
 use super::results::{CaseResult, Warning};
 use super::warning_kind::WarningKind;
@@ -45,22 +48,24 @@ pub fn shape_move_limit_m(s: &Scenario) -> f64 {
     (SHAPE_MOVE_FRACTION * rig_size_m(s)).max(SHAPE_MOVE_FLOOR_M)
 }
 
-/// Warnings for a case whose solved shape is far from the drawing (a swing
-/// case: its static shape `static_r`).
+/// Warnings for a case whose static shape is far from the drawing: a
+/// static case's own, or, in a scenario without a static case, the static
+/// solve's (`static_r`) on every case.
 pub fn drawn_shape_warnings(s: &Scenario, case: &Case, r: &CaseResult, static_r: Option<&CaseResult>) -> Vec<Warning> {
     let shape = match case {
-        Case::Swing { .. } => match static_r {
+        Case::Static { .. } => r,
+        _ if s.cases.iter().any(|c| matches!(c, Case::Static { .. })) => return Vec::new(),
+        _ => match static_r {
             Some(st) => st,
             None => return Vec::new(),
         },
-        _ => r,
     };
     if shape.nodes.len() != s.nodes.len() || shape.members.len() != s.members.len() {
         return Vec::new();
     }
     let size = rig_size_m(s);
     let limit = shape_move_limit_m(s);
-    let judged = if std::ptr::eq(shape, r) { String::new() } else { format!(" (its static shape, case {})", shape.id) };
+    let judged = if std::ptr::eq(shape, r) { "" } else { " (hanging still, before the case's load)" };
     let mut w = Vec::new();
     for (k, n) in shape.nodes.iter().enumerate() {
         let d = s.position_m(k);
