@@ -383,6 +383,7 @@ impl TautspanApp {
                 tool: self.tool,
                 units: self.prefs.units,
                 labels: !self.prefs.hide_labels,
+                worst_case: self.prefs.worst_case_colours,
             };
             canvas::ui(ui, &mut self.canvas, &mut self.view, &input, &mut out);
         });

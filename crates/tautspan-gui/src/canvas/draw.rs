@@ -202,8 +202,10 @@ pub fn draw(
         .map(|p| p.members.iter().map(String::as_str).zip(p.shares.iter().copied()).collect())
         .unwrap_or_default();
 
-    let results: HashMap<&str, &MemberResult> =
-        case.map(|c| c.members.iter().map(|r| (r.id.as_str(), r)).collect()).unwrap_or_default();
+    let results: HashMap<&str, &MemberResult> = match input.derived.solved.as_ref() {
+        Some(s) if input.worst_case => crate::document::envelope::worst_members(&s.analysis),
+        _ => case.map(|c| c.members.iter().map(|r| (r.id.as_str(), r)).collect()).unwrap_or_default(),
+    };
     // labels go on the side of each member away from the middle of the rig,
     // so the labels of members meeting at a joint do not sit on each other
     let centre = {
@@ -380,6 +382,15 @@ pub fn draw(
     // in the deflected view the caption holds the top left; the legend goes below it
     let legend_top = if deflection.is_some() { CAPTION_HEIGHT + 16.0 } else { 12.0 };
     legend(painter, view, input.derived.solved.as_ref().map(|s| s.scenario.near_limit).unwrap_or(0.8), legend_top);
+    if input.worst_case {
+        label(
+            painter,
+            view.rect.left_bottom() + vec2(10.0, -24.0),
+            Align2::LEFT_BOTTOM,
+            "Colours: each member's worst case over all cases".to_string(),
+            INK,
+        );
+    }
 }
 
 /// One member or rope span into `shapes`: shaded by utilisation, dashed

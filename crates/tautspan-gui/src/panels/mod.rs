@@ -11,4 +11,5 @@ pub(crate) mod plots;
 pub(crate) mod results_table;
 pub(crate) mod toolbar;
 pub(crate) mod verdict_bar;
+pub(crate) mod warning_severity;
 pub(crate) mod warnings;
