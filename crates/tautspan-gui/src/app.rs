@@ -16,7 +16,7 @@ use crate::files::Files;
 use crate::files::prefs::{LowerTab, Prefs};
 use crate::panels::inspector::{self, InspectorInput};
 use crate::panels::plots::Plots;
-use crate::panels::results_table::{self, Sort};
+use crate::panels::results_table::{self, ResultsView};
 use crate::panels::toolbar::{self, ToolbarInput};
 use crate::panels::{cases, warnings};
 use egui::{Key, KeyboardShortcut, Modifiers, RichText, Ui};
@@ -71,14 +71,16 @@ pub struct TautspanApp {
     pub files: Files,
     /// Plots and their worker jobs.
     pub plots: Plots,
-    /// Results table sorting.
-    pub sort: Sort,
+    /// The results grid's sort and filters.
+    pub results: ResultsView,
     /// The message shown under the caution.
     pub message: Option<Message>,
     /// An action waiting on unsaved changes.
     pub pending: Option<Pending>,
     /// The report waiting for a path.
     pub(crate) report_html: Option<String>,
+    /// The CSV waiting for a path.
+    pub(crate) csv_text: Option<String>,
     /// The report waits for the results of the current revision.
     pub(crate) export_waiting: bool,
     /// The user chose to close without saving.
@@ -104,10 +106,11 @@ impl TautspanApp {
             fields: FieldBuffers::default(),
             files: Files::default(),
             plots: Plots::default(),
-            sort: Sort::default(),
+            results: ResultsView::default(),
             message: None,
             pending: None,
             report_html: None,
+            csv_text: None,
             export_waiting: false,
             quit_allowed: false,
             close_requested: false,
@@ -221,7 +224,9 @@ impl TautspanApp {
             Command::ShowCase(id) => self.shown_case = Some(id),
             Command::FitView => self.view.fit_pending = true,
             Command::New | Command::Open | Command::OpenPath(_) | Command::Quit => self.guarded(ctx, c),
-            Command::Save | Command::SaveAs | Command::SaveTo(_) | Command::ExportReport => self.file_command(ctx, c),
+            Command::Save | Command::SaveAs | Command::SaveTo(_) | Command::ExportReport | Command::ExportCsv(_) => {
+                self.file_command(ctx, c)
+            }
         }
     }
 
@@ -325,7 +330,12 @@ impl TautspanApp {
         });
         egui::Panel::top("verdict").show(ui, |ui| crate::panels::verdict_bar::ui(ui, &self.derived, &mut out));
         egui::Panel::bottom("status").show(ui, |ui| self.status_ui(ui));
-        egui::Panel::bottom("lower").resizable(true).default_size(250.0).show(ui, |ui| {
+        // a third of the window at first; the grip on its top edge shows it can be dragged
+        let lower_default = (ui.max_rect().height() / 3.0).max(200.0);
+        egui::Panel::bottom("lower").resizable(true).default_size(lower_default).show(ui, |ui| {
+            split_grip(ui);
+            // the panel keeps its size while its content is short (no results yet)
+            ui.set_min_height(ui.available_height());
             ui.horizontal(|ui| {
                 ui.selectable_value(&mut self.prefs.lower_tab, LowerTab::Results, "Results");
                 ui.selectable_value(&mut self.prefs.lower_tab, LowerTab::Plots, "Plots");
@@ -333,7 +343,7 @@ impl TautspanApp {
             ui.separator();
             match self.prefs.lower_tab {
                 LowerTab::Results => {
-                    results_table::ui(ui, &self.derived, &self.selection, &mut self.sort, self.prefs.units, &mut out)
+                    results_table::ui(ui, &self.derived, &self.selection, &mut self.results, self.prefs.units, &mut out)
                 }
                 LowerTab::Plots => {
                     self.plots.ui(
@@ -439,6 +449,19 @@ impl TautspanApp {
                 ui.label("waiting for the file dialog…");
             }
         });
+    }
+}
+
+/// A grip drawn on the lower panel's top edge, where it is dragged to resize.
+fn split_grip(ui: &Ui) {
+    let r = ui.max_rect();
+    let centre = egui::pos2(r.center().x, r.top() - 3.0);
+    let colour = ui.visuals().widgets.noninteractive.fg_stroke.color.gamma_multiply(0.6);
+    for dy in [-1.5, 1.5] {
+        ui.painter().line_segment(
+            [centre + egui::vec2(-22.0, dy), centre + egui::vec2(22.0, dy)],
+            egui::Stroke::new(1.0, colour),
+        );
     }
 }
 

@@ -5,7 +5,9 @@
 mod common;
 
 use common::{click, harness};
+use egui_kittest::Harness;
 use egui_kittest::kittest::{NodeT, Queryable};
+use tautspan_gui::{Document, Prefs, TautspanApp};
 
 #[test]
 fn warnings_list_overloads_first_and_advisories_after_them() {
@@ -45,4 +47,114 @@ fn the_worst_case_colouring_is_a_toggle_kept_in_the_preferences() {
     assert!(!h.state().doc.dirty, "a display choice, not an edit");
     click(&mut h, "Worst case colours");
     assert!(!h.state().prefs.worst_case_colours);
+}
+
+fn temp_dir(name: &str) -> std::path::PathBuf {
+    let d = std::env::temp_dir().join(format!("tautspan-workspace-{name}-{}", std::process::id()));
+    let _ = std::fs::remove_dir_all(&d);
+    std::fs::create_dir_all(&d).unwrap_or_else(|e| panic!("{e}"));
+    d
+}
+
+/// The app on the mezzanine tripod (scenarios/mezzanine-hoist.ron): three
+/// struts standing on a floor with three feet, a chain block, mass "roller".
+fn mezzanine_app() -> TautspanApp {
+    let loaded = tautspan_core::model::load_scenario(include_str!("../../../scenarios/mezzanine-hoist.ron"))
+        .unwrap_or_else(|e| panic!("{e}"));
+    let mut app = TautspanApp::with_document(Document::new(loaded.dto, None), Prefs::default());
+    app.files.native = false;
+    app
+}
+
+#[test]
+fn the_grid_shows_about_a_third_of_the_window_at_1280_by_800() {
+    let mut h = Harness::builder().with_size([1280.0, 800.0]).with_max_steps(16).build_ui_state(
+        |ui, app: &mut TautspanApp| {
+            app.frame(ui);
+            assert!(app.wait_for_results());
+        },
+        common::builtin_demo_app(),
+    );
+    h.run();
+    // rows are drawn only where they are seen: count the case cells shown
+    let ids: Vec<String> = h.state().doc.dto.cases.iter().map(|c| c.id().to_string()).collect();
+    let shown: usize = ids.iter().map(|id| h.query_all_by_label(id).count()).sum();
+    // 800 / 3 ≈ 267 pt less the tabs, filters and header (≈ 90 pt) at 18 pt a row
+    assert!(shown >= 8, "at least 8 rows seen, not 2.5: {shown}");
+    // the lower panel's tabs sit about a third of the window up from the bottom
+    let top = h.get_by_label("Plots").rect().top();
+    assert!(top < 800.0 - 800.0 / 3.0 + 30.0, "tabs at {top}");
+}
+
+#[test]
+fn the_grid_has_rows_for_floors_feet_parts_and_reactions() {
+    let h = harness(mezzanine_app());
+    let a = &h.state().derived.solved.as_ref().unwrap_or_else(|| panic!("solved")).analysis;
+    let rows = tautspan_gui::results_rows(a, false, false);
+    for id in ["leg-a", "mezzanine", "mezzanine/foot-a", "mezzanine/foot-c"] {
+        assert!(rows.iter().any(|r| r == id), "{id} in {rows:?}");
+    }
+    let h = harness(common::builtin_demo_app());
+    let a = &h.state().derived.solved.as_ref().unwrap_or_else(|| panic!("solved")).analysis;
+    let rows = tautspan_gui::results_rows(a, false, false);
+    for id in ["drop-line", "hoist-west/hoist", "beam-west reaction", "beam-east reaction"] {
+        assert!(rows.iter().any(|r| r == id), "{id} in {rows:?}");
+    }
+}
+
+#[test]
+fn the_filters_leave_each_problem_once_and_the_csv_is_what_is_shown() {
+    let mut h = harness(common::builtin_demo_app());
+    click(&mut h, "Over / near / unchecked only");
+    click(&mut h, "Worst case per item");
+    assert!(h.state().results.filter.problems_only && h.state().results.filter.worst_per_item);
+    // in `tautspan check`: drop-line 218.5 %, each hoist 148.1 % in the 20 mm
+    // snatch; every other item below the 80 % near-limit in every case
+    assert!(h.query_by_label("3 rows").is_some(), "drop line and the two hoists");
+    click(&mut h, "Export CSV…");
+    let prompt = h.state().files.prompt.clone().unwrap_or_else(|| panic!("the path field opens"));
+    assert!(prompt.text.ends_with("results.csv"), "a default name: {}", prompt.text);
+    let dir = temp_dir("csv");
+    let path = dir.join("grid.csv");
+    common::type_into(&mut h, "Path", &path.display().to_string());
+    click(&mut h, "Export");
+    let text = std::fs::read_to_string(&path).unwrap_or_else(|e| panic!("{e}"));
+    let lines: Vec<&str> = text.lines().collect();
+    assert_eq!(lines[0], "item,what,case,force (kN),allowable (kN),utilisation (%),state");
+    assert_eq!(lines.len(), 4, "the header and the three rows shown: {text}");
+    let a = h.state().derived.solved.clone().unwrap_or_else(|| panic!("solved"));
+    let snatch = a.analysis.cases.iter().find(|c| c.id == "snatch-20mm").unwrap_or_else(|| panic!("case"));
+    let drop = snatch.members.iter().find(|m| m.id == "drop-line").unwrap_or_else(|| panic!("drop-line"));
+    let row = lines.iter().find(|l| l.starts_with("drop-line,")).unwrap_or_else(|| panic!("{text}"));
+    let f: Vec<&str> = row.split(',').collect();
+    assert_eq!((f[1], f[2], f[6]), ("member", "snatch-20mm", "over"));
+    // six significant digits of the core's numbers: relative 5e-6
+    let close = |csv: &str, si: f64| {
+        let v: f64 = csv.parse().unwrap_or_else(|e| panic!("{csv}: {e}"));
+        assert!((v - si).abs() <= 5e-6 * si.abs(), "{v} against {si}");
+    };
+    close(f[3], drop.force_n / 1000.0);
+    close(f[4], drop.allowable_n / 1000.0);
+    close(f[5], drop.utilisation * 100.0);
+    assert!(lines.iter().any(|l| l.starts_with("hoist-west/hoist,rated part,snatch-20mm,")));
+    assert!(h.query_by_label_contains("Results written to").is_some());
+}
+
+#[test]
+fn a_floor_counts_in_the_case_summary() {
+    let mut h = harness(mezzanine_app());
+    // the hanging case: members at most 26.8 % (block chain), the floor at 11.8 %
+    assert!(h.query_by_label("max 27 %").is_some());
+    // a rated point load of 3 kN puts foot-c (1.046 kN in `tautspan check`) at 35 %
+    let ctx = h.ctx.clone();
+    h.state_mut().apply(
+        &ctx,
+        vec![tautspan_gui::Command::edit(|d| d.floors[0].rated_point = Some(tautspan_core::file::Qty::from("3 kN")))],
+    );
+    h.run();
+    let a = h.state().derived.solved.clone().unwrap_or_else(|| panic!("solved"));
+    let foot_max = a.analysis.cases[0].floors[0].feet.iter().map(|x| x.normal_force_n).fold(0.0, f64::max);
+    let expected = format!("max {:.0} %", foot_max / 3000.0 * 100.0);
+    assert_eq!(expected, "max 35 %", "1.046 / 3 from the printed normal force");
+    assert!(h.query_by_label(&expected).is_some(), "the floor's 35 % is not hidden behind the chain's 27 %");
 }

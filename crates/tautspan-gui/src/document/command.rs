@@ -47,6 +47,8 @@ pub enum Command {
     SaveTo(PathBuf),
     /// Export the report.
     ExportReport,
+    /// Export this CSV text (the results grid as shown).
+    ExportCsv(String),
     /// Show this case on the canvas.
     ShowCase(String),
     /// Fit the drawing to the canvas.

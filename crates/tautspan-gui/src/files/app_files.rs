@@ -77,6 +77,14 @@ impl TautspanApp {
                     Err(e) => self.message = Some(Message::Error(format!("No report: {e}."))),
                 }
             }
+            Command::ExportCsv(text) => {
+                self.csv_text = Some(text);
+                let near = match &self.doc.path {
+                    Some(p) => p.with_extension("csv"),
+                    None => PathBuf::from("results.csv"),
+                };
+                self.files.ask(Purpose::ExportCsv, ctx, Some(&near));
+            }
             _ => {}
         }
     }
@@ -91,6 +99,14 @@ impl TautspanApp {
                     self.message = Some(match write_atomic(&path, &html) {
                         Ok(()) => Message::Info(format!("Report written to {}", path.display())),
                         Err(e) => Message::Error(format!("Report not written: {}: {e}", path.display())),
+                    });
+                }
+            }
+            Purpose::ExportCsv => {
+                if let Some(text) = self.csv_text.take() {
+                    self.message = Some(match write_atomic(&path, &text) {
+                        Ok(()) => Message::Info(format!("Results written to {}", path.display())),
+                        Err(e) => Message::Error(format!("Results not written: {}: {e}", path.display())),
                     });
                 }
             }
@@ -156,6 +172,7 @@ impl TautspanApp {
         } else if close {
             self.files.prompt = None;
             self.report_html = None;
+            self.csv_text = None;
         } else {
             self.files.prompt = Some(prompt);
         }

@@ -26,6 +26,8 @@ pub enum Purpose {
     SaveAs,
     /// Export the report.
     ExportReport,
+    /// Export the results grid as CSV.
+    ExportCsv,
 }
 
 impl Purpose {
@@ -34,7 +36,7 @@ impl Purpose {
         match self {
             Purpose::Open => "Open",
             Purpose::SaveAs => "Save",
-            Purpose::ExportReport => "Export",
+            Purpose::ExportReport | Purpose::ExportCsv => "Export",
         }
     }
 }
@@ -99,6 +101,7 @@ impl Files {
             let mut d = rfd::FileDialog::new();
             d = match purpose {
                 Purpose::ExportReport => d.add_filter("HTML report", &["html"]),
+                Purpose::ExportCsv => d.add_filter("CSV table", &["csv"]),
                 _ => d.add_filter("Tautspan scenario", &["ron"]),
             };
             if let Some(dir) = dir {
@@ -109,7 +112,7 @@ impl Files {
             }
             let path = match purpose {
                 Purpose::Open => d.pick_file(),
-                Purpose::SaveAs | Purpose::ExportReport => d.save_file(),
+                Purpose::SaveAs | Purpose::ExportReport | Purpose::ExportCsv => d.save_file(),
             };
             let _ = tx.send(Answer { purpose, path });
             ctx.request_repaint();

@@ -8,6 +8,7 @@ pub(crate) mod explain;
 pub(crate) mod inspector;
 pub(crate) mod parts_view;
 pub(crate) mod plots;
+pub(crate) mod results_rows;
 pub(crate) mod results_table;
 pub(crate) mod toolbar;
 pub(crate) mod verdict_bar;
