@@ -121,6 +121,9 @@ fn a_bronze_bearing_raises_the_lead_by_1_09_and_undo_restores() {
     h.state_mut().selection = Selection::Node("J1".into());
     h.run();
     let frictionless = rope_result(&h, "rope1");
+    // the inspector scrolls: bring the box into view first
+    h.get_by_role_and_label(Role::ComboBox, "Bearing").scroll_to_me();
+    h.run();
     h.get_by_role_and_label(Role::ComboBox, "Bearing").click();
     h.run();
     h.get_by_label(Bearing::Bronze.label()).click();
@@ -299,16 +302,25 @@ fn the_rope_inspector_edits_its_termination_fittings_motion_and_id() {
     let mut h = harness(running_block_app());
     h.state_mut().selection = Selection::Rope("fall".into());
     h.run();
+    // the inspector scrolls: bring the box into view first
+    h.get_by_role_and_label(Role::ComboBox, "Termination").scroll_to_me();
+    h.run();
     h.get_by_role_and_label(Role::ComboBox, "Termination").click();
     h.run();
     h.get_by_label(Termination::HandSplice.label()).click();
     h.run();
     assert_eq!(h.state().doc.dto.ropes[0].termination, Some(Termination::HandSplice));
+    // the inspector scrolls: bring the box into view first
+    h.get_by_role_and_label(Role::ComboBox, "Motion").scroll_to_me();
+    h.run();
     h.get_by_role_and_label(Role::ComboBox, "Motion").click();
     h.run();
     h.get_by_label("lowering").click();
     h.run();
     assert_eq!(h.state().doc.dto.ropes[0].motion, Some(RopeMotion::Lowering));
+    // the inspector scrolls: bring the box into view first
+    h.get_by_role_and_label(Role::ComboBox, "Add a part").scroll_to_me();
+    h.run();
     h.get_by_role_and_label(Role::ComboBox, "Add a part").click();
     h.run();
     h.get_by_label("shackle").click();
