@@ -158,3 +158,32 @@ fn a_floor_counts_in_the_case_summary() {
     assert_eq!(expected, "max 35 %", "1.046 / 3 from the printed normal force");
     assert!(h.query_by_label(&expected).is_some(), "the floor's 35 % is not hidden behind the chain's 27 %");
 }
+
+#[test]
+fn the_plots_draw_the_case_angle_and_the_allowable_and_run_the_dynamic_case() {
+    let mut h = harness(common::builtin_demo_app());
+    h.state_mut().selection = tautspan_gui::Selection::Member("drop-line".into());
+    // the curve's spinner keeps the frames coming: step, not run to a stop
+    h.get_by_label("Plots").click();
+    h.run_steps(4);
+    // the canvas shows the static case; the time history is of the first dynamic one
+    assert!(h.state().shown_case.is_none());
+    assert!(h.query_by_label("drop-line: time history of case swing-25").is_some());
+    // the curve is found on a worker: wait for its key
+    let key = "case swing-25: release 25.0°";
+    for _ in 0..600 {
+        if h.query_by_label(key).is_some() {
+            break;
+        }
+        std::thread::sleep(std::time::Duration::from_millis(100));
+        h.run_steps(2);
+    }
+    assert!(h.query_by_label(key).is_some(), "the case's own angle (its input, 25°) is drawn and named");
+    // the drop line's allowable and largest release as `tautspan check` prints them
+    assert!(h.query_by_label("allowable 10.08 kN").is_some());
+    assert!(h.query_by_label("largest release inside the allowable 73.9°").is_some());
+    // showing the snatch case moves the time history to it
+    h.state_mut().shown_case = Some("snatch-20mm".into());
+    h.run_steps(2);
+    assert!(h.query_by_label("drop-line: time history of case snatch-20mm").is_some());
+}
