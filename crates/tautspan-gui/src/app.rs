@@ -77,6 +77,8 @@ pub struct TautspanApp {
     pub message: Option<Message>,
     /// An action waiting on unsaved changes.
     pub pending: Option<Pending>,
+    /// A deletion waiting for the user's yes: the item and what goes with it.
+    pub confirm_delete: Option<(Selection, Vec<String>)>,
     /// The report waiting for a path.
     pub(crate) report_html: Option<String>,
     /// The CSV waiting for a path.
@@ -109,6 +111,7 @@ impl TautspanApp {
             results: ResultsView::default(),
             message: None,
             pending: None,
+            confirm_delete: None,
             report_html: None,
             csv_text: None,
             export_waiting: false,
@@ -202,7 +205,19 @@ impl TautspanApp {
                 }
             }
             Command::DeleteSelection => {
-                let sel = std::mem::take(&mut self.selection);
+                let goes_with = edits::dependents(&self.doc.dto, &self.selection);
+                if goes_with.is_empty() {
+                    let sel = std::mem::take(&mut self.selection);
+                    self.doc.edit(None, |d| edits::delete(d, &sel));
+                } else {
+                    self.confirm_delete = Some((self.selection.clone(), goes_with));
+                }
+            }
+            Command::ConfirmDelete(sel) => {
+                self.confirm_delete = None;
+                if self.selection == sel {
+                    self.selection = Selection::None;
+                }
                 self.doc.edit(None, |d| edits::delete(d, &sel));
             }
             Command::FinishRope => {
@@ -328,7 +343,20 @@ impl TautspanApp {
             toolbar::ui(ui, input, &mut out);
             self.message_ui(ui);
         });
-        egui::Panel::top("verdict").show(ui, |ui| crate::panels::verdict_bar::ui(ui, &self.derived, &mut out));
+        egui::Panel::top("verdict").show(ui, |ui| {
+            crate::panels::verdict_bar::ui(ui, &self.derived, &mut out);
+            let bad = crate::fields::invalid::invalid_fields(&self.fields, &self.doc.dto);
+            if !bad.is_empty() {
+                ui.label(
+                    RichText::new(format!(
+                        "Results STALE: {} not a valid value; the results are of the last valid one.",
+                        bad.join("; ") + if bad.len() == 1 { " is" } else { " are" }
+                    ))
+                    .color(ERROR)
+                    .strong(),
+                );
+            }
+        });
         egui::Panel::bottom("status").show(ui, |ui| self.status_ui(ui));
         // a third of the window at first; the grip on its top edge shows it can be dragged
         let lower_default = (ui.max_rect().height() / 3.0).max(200.0);
@@ -398,6 +426,7 @@ impl TautspanApp {
             canvas::ui(ui, &mut self.canvas, &mut self.view, &input, &mut out);
         });
         self.dialogs_ui(ui.ctx(), &mut out);
+        crate::panels::confirm_delete::ui(ui.ctx(), &mut self.confirm_delete, &mut out);
         let ctx = ui.ctx().clone();
         self.apply(&ctx, out);
     }

@@ -169,6 +169,9 @@ fn deleting_the_sheave_node_takes_the_rope_in_one_step() {
     assert_eq!(h.state().selection, Selection::Node("J1".into()));
     h.key_press(egui::Key::Delete);
     h.run();
+    // the rope and the mass go with it: asked first
+    assert!(h.query_by_label("Delete node J1?").is_some());
+    click(&mut h, "Delete all");
     let d = h.state().doc.dto.clone();
     assert!(d.ropes.is_empty() && d.masses.is_empty() && d.nodes.len() == 2, "the rope and the mass went with J1");
     h.key_press_modifiers(egui::Modifiers::COMMAND, egui::Key::Z);

@@ -187,3 +187,74 @@ fn the_plots_draw_the_case_angle_and_the_allowable_and_run_the_dynamic_case() {
     h.run_steps(2);
     assert!(h.query_by_label("drop-line: time history of case snatch-20mm").is_some());
 }
+
+#[test]
+fn deleting_a_node_in_use_asks_first_and_goes_in_one_undo_step() {
+    let mut h = harness(common::demo_app());
+    let before = h.state().doc.dto.clone();
+    h.state_mut().selection = tautspan_gui::Selection::Node("J2".into());
+    click(&mut h, "Edit");
+    click(&mut h, "Delete selection  (Del)");
+    // J2 carries the chain drop and the load; the load's three dynamic cases go with it
+    assert!(h.query_by_label("Delete node J2?").is_some(), "asked first");
+    for line in ["• member drop", "• mass load", "• case swing (its mass goes)", "• case snatch (its mass goes)"]
+    {
+        assert!(h.query_by_label(line).is_some(), "{line} listed");
+    }
+    assert_eq!(h.state().doc.dto, before, "nothing gone before the answer");
+    click(&mut h, "Cancel");
+    assert!(h.query_by_label("Delete node J2?").is_none());
+    assert_eq!(h.state().doc.dto, before, "cancel keeps everything");
+    click(&mut h, "Edit");
+    click(&mut h, "Delete selection  (Del)");
+    click(&mut h, "Delete all");
+    let d = h.state().doc.dto.clone();
+    assert!(!d.nodes.iter().any(|n| n.id == "J2") && d.masses.is_empty() && d.members.len() == 2);
+    assert_eq!(d.cases.len(), 1, "the static case stays");
+    common::click(&mut h, "Edit");
+    common::click(&mut h, "Undo  (Ctrl+Z)");
+    assert_eq!(h.state().doc.dto, before, "one undo brings all of it back");
+    // a member nothing else uses goes at once
+    h.state_mut().selection = tautspan_gui::Selection::Member("leg-east".into());
+    h.key_press(egui::Key::Delete);
+    h.run();
+    assert!(h.query_by_label_contains("Delete member").is_none());
+    assert_eq!(h.state().doc.dto.members.len(), 2);
+}
+
+#[test]
+fn an_invalid_field_marks_the_results_stale_and_saving_names_it() {
+    let dir = temp_dir("stale");
+    let path = dir.join("bridle.ron");
+    let mut app = common::demo_app();
+    app.doc.path = Some(path.clone());
+    let mut h = harness(app);
+    h.state_mut().selection = tautspan_gui::Selection::Member("leg-west".into());
+    h.run();
+    common::type_into(&mut h, "Diameter", "12 mx");
+    assert!(h.query_by_label_contains("Results STALE: the diameter of member leg-west holds \"12 mx\"").is_some());
+    h.key_press_modifiers(egui::Modifiers::COMMAND, egui::Key::S);
+    h.run();
+    assert!(!path.exists(), "nothing written while the field is invalid");
+    let msg = format!("{:?}", h.state().message);
+    assert!(msg.contains("Not saved: the diameter of member leg-west holds \\\"12 mx\\\""), "{msg}");
+    common::type_into(&mut h, "Diameter", "13 mm");
+    assert!(h.query_by_label_contains("Results STALE").is_none(), "valid again: the results are current");
+    h.key_press_modifiers(egui::Modifiers::COMMAND, egui::Key::S);
+    h.run();
+    assert!(path.exists(), "saved once valid");
+}
+
+#[test]
+fn a_release_of_200_degrees_gets_a_message_not_a_clamp() {
+    let mut h = harness(common::demo_app());
+    common::type_into(&mut h, "Release angle", "200 deg");
+    let release = match &h.state().doc.dto.cases[1] {
+        tautspan_core::file::CaseDto::Swing { release, .. } => release.0.clone(),
+        _ => String::new(),
+    };
+    assert_eq!(release, "200 deg", "kept as typed, not clamped to 90");
+    // the core's message: a release above the pivot's horizontal is not a swing
+    // (under the field and in the list of problems)
+    assert!(h.query_all_by_label_contains("a release of 200 deg is above the pivot's horizontal").count() >= 1);
+}

@@ -27,8 +27,10 @@ pub enum Command {
     Undo,
     /// Redo one edit.
     Redo,
-    /// Delete the selection.
+    /// Delete the selection (asks first when other items go with it).
     DeleteSelection,
+    /// Delete this item and what goes with it, in one undo step (the answer to the question).
+    ConfirmDelete(Selection),
     /// Cancel the tool in progress, then the selection.
     Escape,
     /// Place the rope routed so far with the rope tool.

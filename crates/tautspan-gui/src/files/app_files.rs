@@ -39,7 +39,27 @@ impl TautspanApp {
         }
     }
 
+    /// Why the scenario cannot be saved as it stands: fields holding text
+    /// that is not a valid value (the document has only their last valid one).
+    fn unsaveable(&self) -> Option<String> {
+        let bad = crate::fields::invalid::invalid_fields(&self.fields, &self.doc.dto);
+        (!bad.is_empty()).then(|| {
+            format!(
+                "Not saved: {} {} not a valid value. Correct {} (or undo) and save again.",
+                bad.join("; "),
+                if bad.len() == 1 { "is" } else { "are" },
+                if bad.len() == 1 { "it" } else { "them" }
+            )
+        })
+    }
+
     pub(crate) fn file_command(&mut self, ctx: &Context, c: Command) {
+        if matches!(c, Command::Save | Command::SaveAs | Command::SaveTo(_))
+            && let Some(why) = self.unsaveable()
+        {
+            self.message = Some(Message::Error(why));
+            return;
+        }
         match c {
             Command::Save => match self.doc.path.clone() {
                 Some(p) => {

@@ -14,7 +14,7 @@ use crate::panels::warning_severity::{NEAR_AMBER, OVER_RED, UNCHECKED_VIOLET};
 use egui::{RichText, Ui};
 use tautspan_core::analysis::{CaseResult, State};
 use tautspan_core::file::{CaseDto, Qty, ScenarioDto};
-use tautspan_core::units::{Dimension, Sign, parse_quantity};
+use tautspan_core::units::{Dimension, Sign};
 
 fn kind_of(c: &CaseDto) -> &'static str {
     match c {
@@ -180,22 +180,29 @@ fn case_fields(
         }
         match c {
             CaseDto::Swing { release, .. } => {
-                let l = ui.label("Release angle");
-                let now = parse_quantity(&release.0, Dimension::Angle, Sign::NonNegative).map_or(0.0, f64::to_degrees);
-                let mut deg = now;
-                let r = ui.add(egui::Slider::new(&mut deg, 0.0..=90.0).suffix("°").max_decimals(1)).labelled_by(l.id);
-                if r.changed() && (deg - now).abs() > 1e-9 {
-                    let q = Qty(format!("{} deg", tautspan_core::units::format_number(deg, 4)));
-                    out.push(Command::edit_merged(format!("cases[{i}].release"), move |d| {
-                        if let Some(CaseDto::Swing { release, .. }) = d.cases.get_mut(i) {
+                // typed, not a slider: a value out of range (200 deg) reaches
+                // the core, which says why it is not a swing, instead of being
+                // clamped without a word
+                QtyField {
+                    label: "Release angle",
+                    path: format!("cases[{i}].release"),
+                    current: Some(release),
+                    dimension: Dimension::Angle,
+                    sign: Sign::NonNegative,
+                    optional: false,
+                    hint: "e.g. 30 deg",
+                }
+                .show(
+                    ui,
+                    bufs,
+                    derived,
+                    out,
+                    Box::new(move |d, q| {
+                        if let (Some(CaseDto::Swing { release, .. }), Some(q)) = (d.cases.get_mut(i), q) {
                             *release = q;
                         }
-                    }));
-                }
-                if r.drag_stopped() {
-                    out.push(Command::SealUndo);
-                }
-                ui.end_row();
+                    }),
+                );
                 let azimuth = match c {
                     CaseDto::Swing { azimuth, .. } => azimuth.as_ref(),
                     _ => None,

@@ -4,6 +4,7 @@
 //! hover explanations of a number.
 
 pub(crate) mod cases;
+pub(crate) mod confirm_delete;
 pub(crate) mod explain;
 pub(crate) mod inspector;
 pub(crate) mod parts_view;
