@@ -7,7 +7,7 @@ mod common;
 use common::{click, harness};
 use egui_kittest::Harness;
 use egui_kittest::kittest::{NodeT, Queryable};
-use tautspan_gui::{Document, Prefs, TautspanApp};
+use tautspan_gui::{Document, Prefs, Shown, TautspanApp, UnitSystem};
 
 #[test]
 fn warnings_list_overloads_first_and_advisories_after_them() {
@@ -257,4 +257,91 @@ fn a_release_of_200_degrees_gets_a_message_not_a_clamp() {
     // the core's message: a release above the pivot's horizontal is not a swing
     // (under the field and in the list of problems)
     assert!(h.query_all_by_label_contains("a release of 200 deg is above the pivot's horizontal").count() >= 1);
+}
+
+#[test]
+fn the_path_box_takes_the_focus_starts_in_the_files_folder_and_adds_ron() {
+    let dir = temp_dir("pathbox");
+    let path = dir.join("bridle.ron");
+    let mut app = common::demo_app();
+    app.doc.path = Some(path.clone());
+    let mut h = harness(app);
+    click(&mut h, "File");
+    click(&mut h, "Save as…  (Ctrl+Shift+S)");
+    let prompt = h.state().files.prompt.clone().unwrap_or_else(|| panic!("the path box opens"));
+    assert_eq!(prompt.text, path.display().to_string(), "starts at the file itself");
+    assert!(h.get_by_role_and_label(egui::accesskit::Role::TextInput, "Path").is_focused(), "takes the focus");
+    // typed without an extension: saved as .ron
+    let typed = dir.join("copy");
+    common::type_into(&mut h, "Path", &typed.display().to_string());
+    click(&mut h, "Save");
+    let saved = dir.join("copy.ron");
+    assert!(saved.exists(), "the .ron is added");
+    assert_eq!(h.state().doc.path.as_deref(), Some(saved.as_path()));
+    // the recent files list it in the File menu
+    click(&mut h, "File");
+    click(&mut h, "Open recent");
+    assert!(h.query_by_label(&saved.display().to_string()).is_some(), "in File > Open recent");
+    assert_eq!(h.state().prefs.recent.first(), Some(&saved));
+    h.key_press(egui::Key::Escape);
+    h.run();
+    // opening starts in the folder of the file open
+    h.key_press_modifiers(egui::Modifiers::COMMAND, egui::Key::O);
+    h.run();
+    let prompt = h.state().files.prompt.clone().unwrap_or_else(|| panic!("the path box opens"));
+    assert_eq!(prompt.text, format!("{}{}", dir.display(), std::path::MAIN_SEPARATOR));
+    let _ = std::fs::remove_dir_all(&dir);
+}
+
+#[test]
+fn a_new_scenario_is_saved_under_a_name_from_its_title() {
+    let mut h = harness(common::blank_app());
+    h.key_press_modifiers(egui::Modifiers::COMMAND, egui::Key::S);
+    h.run();
+    let prompt = h.state().files.prompt.clone().unwrap_or_else(|| panic!("the path box opens"));
+    assert!(prompt.text.ends_with("new-rig.ron"), "a default name from the title \"New rig\": {}", prompt.text);
+}
+
+#[test]
+fn the_built_in_demo_has_its_own_title() {
+    let h = harness(common::builtin_demo_app());
+    let title = h.state().doc.title();
+    let own = h.state().doc.dto.title.clone();
+    assert!(!own.is_empty() && title.starts_with(&own), "{title}");
+    assert!(!title.contains("untitled"));
+}
+
+#[test]
+fn a_broken_file_is_explained_without_internal_type_names() {
+    let dir = temp_dir("typenames");
+    let path = dir.join("anch.ron");
+    let text = include_str!("fixtures/bridle.ron").replacen("support: Anchor)", "support: Anch)", 1);
+    std::fs::write(&path, text).unwrap_or_else(|e| panic!("{e}"));
+    let mut h = harness(common::demo_app());
+    h.state_mut().open_path(&path);
+    h.run();
+    let message = format!("{:?}", h.state().message);
+    assert!(message.contains("`Anch` is not a valid support; write one of Joint, Anchor, Floor"), "{message}");
+    assert!(!message.contains("Dto"), "no type name: {message}");
+    let _ = std::fs::remove_dir_all(&dir);
+}
+
+#[test]
+fn small_lengths_and_roundoff_read_for_people() {
+    // the bridle's chain drop stretches a fraction of a millimetre under 400 kg:
+    // the member inspector writes stretch in mm, never in m with an exponent
+    let mut h = harness(common::demo_app());
+    h.state_mut().selection = tautspan_gui::Selection::Member("drop".into());
+    h.run();
+    let shown: Vec<String> = h
+        .query_all_by_label_contains(" kN")
+        .filter_map(|n| n.accesskit_node().label())
+        .chain(h.query_all_by_label_contains(" mm").filter_map(|n| n.accesskit_node().label()))
+        .collect();
+    assert!(!shown.is_empty());
+    for s in &shown {
+        assert!(!s.contains("e-"), "no exponent in {s}");
+    }
+    assert_eq!(UnitSystem::Si.fmt(9.2e-20, Shown::Force), "0 kN", "below roundoff: 0");
+    assert_eq!(UnitSystem::UsCustomary.fmt(1814.36948, Shown::Mass), "2 sh tn", "2 × 2000 lb × 0.45359237 kg");
 }

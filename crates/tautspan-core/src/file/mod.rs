@@ -5,6 +5,7 @@ mod error;
 mod fitting;
 mod locate;
 mod read;
+mod type_words;
 mod write;
 
 pub use dto::{CaseDto, FloorDto, MassDto, MemberDto, NodeDto, Position, Qty, RatingDto, ScenarioDto, SupportDto};

@@ -65,9 +65,9 @@ impl TautspanApp {
                 Some(p) => {
                     self.save_to(&p);
                 }
-                None => self.files.ask(Purpose::SaveAs, ctx, None),
+                None => self.files.ask(Purpose::SaveAs, ctx, Some(&self.doc.save_path_suggestion())),
             },
-            Command::SaveAs => self.files.ask(Purpose::SaveAs, ctx, self.doc.path.as_deref()),
+            Command::SaveAs => self.files.ask(Purpose::SaveAs, ctx, Some(&self.doc.save_path_suggestion())),
             Command::SaveTo(p) => {
                 let saved = self.save_to(&p);
                 if saved && let Some(next) = self.pending.take() {
@@ -111,6 +111,11 @@ impl TautspanApp {
 
     fn path_chosen(&mut self, ctx: &Context, purpose: Purpose, path: PathBuf) {
         self.files.prompt = None;
+        // a name typed without its extension gets the one the file is written as
+        let path = match purpose.extension() {
+            Some(ext) if path.extension().is_none() => path.with_extension(ext),
+            _ => path,
+        };
         match purpose {
             Purpose::Open => self.open_path(&path),
             Purpose::SaveAs => self.file_command(ctx, Command::SaveTo(path)),
@@ -158,7 +163,7 @@ impl TautspanApp {
                     if ui.button("Save").clicked() {
                         match self.doc.path.clone() {
                             Some(path) => out.push(Command::SaveTo(path)),
-                            None => self.files.ask(Purpose::SaveAs, ctx, None),
+                            None => self.files.ask(Purpose::SaveAs, ctx, Some(&self.doc.save_path_suggestion())),
                         }
                     }
                     if ui.button("Discard changes").clicked() {
@@ -178,6 +183,11 @@ impl TautspanApp {
             ui.horizontal(|ui| {
                 let l = ui.label("Path");
                 let r = ui.add(egui::TextEdit::singleline(&mut prompt.text).desired_width(360.0)).labelled_by(l.id);
+                // the field takes the focus when it opens, so the path can be typed at once
+                if !prompt.focused {
+                    r.request_focus();
+                    prompt.focused = true;
+                }
                 let enter = r.lost_focus() && ui.input(|i| i.key_pressed(egui::Key::Enter));
                 if (ui.button(prompt.purpose.verb()).clicked() || enter) && !prompt.text.trim().is_empty() {
                     chosen = Some(PathBuf::from(prompt.text.trim()));

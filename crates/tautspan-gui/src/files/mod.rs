@@ -39,6 +39,31 @@ impl Purpose {
             Purpose::ExportReport | Purpose::ExportCsv => "Export",
         }
     }
+
+    /// The extension a path typed without one gets (none for opening).
+    pub fn extension(self) -> Option<&'static str> {
+        match self {
+            Purpose::Open => None,
+            Purpose::SaveAs => Some("ron"),
+            Purpose::ExportReport => Some("html"),
+            Purpose::ExportCsv => Some("csv"),
+        }
+    }
+}
+
+/// What the path field starts with: for opening, the folder of the file
+/// open (a separator at the end, ready for a name); for saving and
+/// exporting, the suggested file in that folder.
+fn start_text(purpose: Purpose, near: Option<&Path>) -> String {
+    let Some(near) = near else { return String::new() };
+    match purpose {
+        Purpose::Open => near
+            .parent()
+            .filter(|d| !d.as_os_str().is_empty())
+            .map(|d| format!("{}{}", d.display(), std::path::MAIN_SEPARATOR))
+            .unwrap_or_default(),
+        _ => near.display().to_string(),
+    }
 }
 
 /// A dialog's answer.
@@ -59,6 +84,8 @@ pub struct PathPrompt {
     pub text: String,
     /// Why the field is shown.
     pub reason: String,
+    /// The field has had the focus once (it takes it when it opens).
+    pub focused: bool,
 }
 
 /// Dialogs in flight and the fallback field.
@@ -72,12 +99,14 @@ pub struct Files {
     pub prompt: Option<PathPrompt>,
     /// Use native dialogs (off in tests and when they have failed before).
     pub native: bool,
+    /// What the path field starts with should the dialog in flight give nothing.
+    last_near: String,
 }
 
 impl Default for Files {
     fn default() -> Self {
         let (tx, rx) = channel();
-        Files { tx, rx, in_flight: None, prompt: None, native: true }
+        Files { tx, rx, in_flight: None, prompt: None, native: true, last_near: String::new() }
     }
 }
 
@@ -88,11 +117,16 @@ impl Files {
             return;
         }
         if !self.native {
-            let text = near.map(|p| p.display().to_string()).unwrap_or_default();
-            self.prompt = Some(PathPrompt { purpose, text, reason: "Type the file's path.".to_string() });
+            self.prompt = Some(PathPrompt {
+                purpose,
+                text: start_text(purpose, near),
+                reason: "Type the file's path.".to_string(),
+                focused: false,
+            });
             return;
         }
         self.in_flight = Some(purpose);
+        self.last_near = start_text(purpose, near);
         let tx = self.tx.clone();
         let ctx = ctx.clone();
         let dir = near.and_then(Path::parent).map(Path::to_path_buf);
@@ -121,8 +155,9 @@ impl Files {
             self.in_flight = None;
             self.prompt = Some(PathPrompt {
                 purpose,
-                text: String::new(),
+                text: start_text(purpose, near),
                 reason: format!("The file dialog could not start ({e}); type the path instead."),
+                focused: false,
             });
         }
     }
@@ -134,7 +169,8 @@ impl Files {
         if a.path.is_none() {
             self.prompt = Some(PathPrompt {
                 purpose: a.purpose,
-                text: String::new(),
+                text: self.last_near.clone(),
+                focused: false,
                 reason: "The file dialog closed without a file (cancelled, or no desktop file dialog is available here). Type the path instead, or close this.".to_string(),
             });
         }
