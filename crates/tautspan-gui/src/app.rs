@@ -85,6 +85,8 @@ pub struct TautspanApp {
     pub(crate) csv_text: Option<String>,
     /// The report waits for the results of the current revision.
     pub(crate) export_waiting: bool,
+    /// Unsaved work kept for crash recovery, and work found at start.
+    pub recovery: crate::files::recovery::Recovery,
     /// The user chose to close without saving.
     pub(crate) quit_allowed: bool,
     /// Set when the app asked the window to close.
@@ -112,6 +114,7 @@ impl TautspanApp {
             message: None,
             pending: None,
             confirm_delete: None,
+            recovery: crate::files::recovery::Recovery::default(),
             report_html: None,
             csv_text: None,
             export_waiting: false,
@@ -134,8 +137,21 @@ impl TautspanApp {
     }
 
     /// The app on a file, or on the demo when `None`. A file that does not
-    /// load leaves a new scenario open and says why.
+    /// load leaves a new scenario open and says why. Unsaved work is kept in
+    /// the platform's state folder, and work left there by a session that
+    /// ended unexpectedly is offered back.
     pub fn start(file: Option<PathBuf>, prefs: Prefs) -> TautspanApp {
+        TautspanApp::start_with_recovery(file, prefs, crate::files::recovery::default_file())
+    }
+
+    /// As [`TautspanApp::start`], with the recovery file given (`None`: no recovery).
+    pub fn start_with_recovery(file: Option<PathBuf>, prefs: Prefs, recovery: Option<PathBuf>) -> TautspanApp {
+        let mut app = TautspanApp::open_at_start(file, prefs);
+        app.recovery = crate::files::recovery::Recovery::at(recovery);
+        app
+    }
+
+    fn open_at_start(file: Option<PathBuf>, prefs: Prefs) -> TautspanApp {
         match file {
             None => TautspanApp::demo(prefs),
             Some(p) => match crate::files::read_scenario(&p) {
@@ -271,6 +287,8 @@ impl TautspanApp {
             Pending::Open => self.files.ask(crate::files::Purpose::Open, ctx, self.doc.path.as_deref()),
             Pending::OpenPath(path) => self.open_path(&path),
             Pending::Quit => {
+                // closed by choice: the unsaved work is not kept for recovery
+                self.recovery.clear();
                 self.quit_allowed = true;
                 self.close_requested = true;
                 ctx.send_viewport_cmd(egui::ViewportCommand::Close);
@@ -327,6 +345,14 @@ impl TautspanApp {
     /// One frame of the whole app inside `ui`.
     pub fn frame(&mut self, ui: &mut Ui) {
         self.derived.refresh(&self.doc, ui.ctx());
+        match self.recovery.tick(&self.doc) {
+            Ok(Some(due)) => ui.ctx().request_repaint_after(due),
+            Ok(None) => {}
+            Err(e) => {
+                self.message = Some(Message::Error(format!("Unsaved work could not be kept for recovery: {e}")));
+                self.recovery.file = None;
+            }
+        }
         self.poll_files(ui.ctx());
         let mut out: Vec<Command> = Vec::new();
         self.shortcuts(ui, &mut out);
@@ -427,6 +453,7 @@ impl TautspanApp {
         });
         self.dialogs_ui(ui.ctx(), &mut out);
         crate::panels::confirm_delete::ui(ui.ctx(), &mut self.confirm_delete, &mut out);
+        self.recovery_ui(ui.ctx());
         let ctx = ui.ctx().clone();
         self.apply(&ctx, out);
     }
@@ -478,6 +505,54 @@ impl TautspanApp {
                 ui.label("waiting for the file dialog…");
             }
         });
+    }
+}
+
+impl TautspanApp {
+    /// The offer of work found in the recovery file: restore it (as
+    /// unsaved changes of the file it came from) or discard it.
+    fn recovery_ui(&mut self, ctx: &egui::Context) {
+        let Some(offer) = self.recovery.offer.clone() else { return };
+        let mut answer: Option<bool> = None;
+        egui::Modal::new(egui::Id::unique("recovery")).show(ctx, |ui| {
+            ui.heading("Unsaved work found");
+            match &offer {
+                Ok(r) => {
+                    let from =
+                        r.origin.as_ref().map_or_else(|| "not saved yet".to_string(), |p| p.display().to_string());
+                    ui.label(format!(
+                        "The last session ended with unsaved changes to \"{}\" ({from}). Restore them?",
+                        r.dto.title
+                    ));
+                }
+                Err(e) => {
+                    ui.label(RichText::new(e).color(ERROR));
+                }
+            }
+            ui.horizontal(|ui| {
+                if offer.is_ok() && ui.button("Restore").clicked() {
+                    answer = Some(true);
+                }
+                if ui.button("Discard").clicked() {
+                    answer = Some(false);
+                }
+            });
+        });
+        match answer {
+            Some(true) => {
+                if let Ok(r) = offer {
+                    self.doc.replace(r.dto, r.origin);
+                    // restored work is unsaved until it is saved
+                    self.doc.dirty = true;
+                    self.after_replace();
+                    self.message = Some(Message::Info("Unsaved work restored: save it to keep it.".to_string()));
+                }
+                // the restored work is written again at once, under this session
+                self.recovery.offer = None;
+            }
+            Some(false) => self.recovery.clear(),
+            None => {}
+        }
     }
 }
 

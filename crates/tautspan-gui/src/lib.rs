@@ -22,6 +22,8 @@ pub use files::prefs::Prefs;
 
 use std::path::PathBuf;
 
+pub use files::recovery::text_of as recovery_text;
+
 /// The ids of the results grid's rows, sorted by item then case, with its
 /// two filters ("over / near / unchecked only", "worst case per item").
 pub fn results_rows(a: &tautspan_core::analysis::Analysis, problems_only: bool, worst_per_item: bool) -> Vec<String> {
