@@ -345,3 +345,17 @@ fn small_lengths_and_roundoff_read_for_people() {
     assert_eq!(UnitSystem::Si.fmt(9.2e-20, Shown::Force), "0 kN", "below roundoff: 0");
     assert_eq!(UnitSystem::UsCustomary.fmt(1814.36948, Shown::Mass), "2 sh tn", "2 × 2000 lb × 0.45359237 kg");
 }
+
+#[test]
+fn rope_sizes_and_grades_read_in_us_units_too() {
+    // leg-west: 12 mm 6x19 IWRC, grade 1770 N/mm²
+    let mut h = harness(common::demo_app());
+    h.state_mut().selection = tautspan_gui::Selection::Member("leg-west".into());
+    h.run();
+    assert!(h.query_by_label_contains("ksi").is_none(), "SI: the grade as listed");
+    click(&mut h, "US customary");
+    // 12 mm / 25.4 mm per inch (exact) = 0.47244 in
+    assert!(h.query_by_label("= 0.4724 in").is_some(), "the size in inches");
+    // 1770 N/mm² / 6.894757 N/mm² per ksi (lbf and inch exact) = 256.72 ksi
+    assert!(h.query_by_label("= 256.7 ksi").is_some(), "the grade in ksi");
+}

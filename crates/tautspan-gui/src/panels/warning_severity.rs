@@ -72,13 +72,14 @@ impl Severity {
         }
     }
 
-    /// Plural words for the summary line ("2 over").
-    pub fn summary_words(self) -> &'static str {
+    /// Words for the summary line after the count `n` ("2 over", "1 note").
+    pub fn summary_words(self, n: usize) -> &'static str {
         match self {
             Severity::Over => "over",
             Severity::Slack => "slack",
             Severity::Unchecked => "unchecked",
             Severity::Near => "near",
+            Severity::Advisory if n == 1 => "note",
             Severity::Advisory => "notes",
         }
     }

@@ -75,7 +75,7 @@ pub fn ui(ui: &mut Ui, doc: &Document, derived: &Derived, out: &mut Vec<Command>
         ui.label(RichText::new("None.").weak());
         return;
     }
-    let summary: Vec<String> = counts(groups).iter().map(|(s, n)| format!("{n} {}", s.summary_words())).collect();
+    let summary: Vec<String> = counts(groups).iter().map(|(s, n)| format!("{n} {}", s.summary_words(*n))).collect();
     ui.label(RichText::new(summary.join(" · ")).strong());
     let show_all_id = ui.scope_id().with("show-all-warnings");
     let show_all = ui.data(|d| d.get_temp::<bool>(show_all_id)).unwrap_or(false);
