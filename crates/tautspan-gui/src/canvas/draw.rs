@@ -387,7 +387,7 @@ pub fn draw(
             painter,
             view.rect.left_bottom() + vec2(10.0, -24.0),
             Align2::LEFT_BOTTOM,
-            "Colours: each member's worst case over all cases".to_string(),
+            "Colours and labels: each member's worst case over all cases".to_string(),
             INK,
         );
     }
