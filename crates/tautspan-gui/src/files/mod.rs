@@ -1,6 +1,7 @@
 //! The files folder: reading and saving scenarios (this file), the app's
 //! file commands and dialogs (`app_files`), the preferences kept between
-//! runs (`prefs`), and unsaved work kept for crash recovery (`recovery`).
+//! runs (`prefs`), and unsaved work kept for crash recovery (`recovery`) and
+//! offered back at start (`recovery_offer`).
 //!
 //! Files: native dialogs on a worker thread (an unanswered desktop portal
 //! can block forever, so the UI never waits on one), the in-app path field
@@ -11,6 +12,7 @@
 pub(crate) mod app_files;
 pub(crate) mod prefs;
 pub mod recovery;
+mod recovery_offer;
 
 use std::io::Write;
 use std::path::{Path, PathBuf};
