@@ -14,10 +14,9 @@ use crate::document::{Document, blank_scenario};
 use crate::fields::qty_field::{ERROR, FieldBuffers};
 use crate::files::Files;
 use crate::files::prefs::{LowerTab, Prefs};
-use crate::files::recovery::{self, Found, Recovery};
 use crate::panels::inspector::{self, InspectorInput};
 use crate::panels::plots::Plots;
-use crate::panels::results_table::{self, Sort};
+use crate::panels::results_table::{self, ResultsView};
 use crate::panels::toolbar::{self, ToolbarInput};
 use crate::panels::{cases, warnings};
 use egui::{Key, KeyboardShortcut, Modifiers, RichText, Ui};
@@ -72,24 +71,26 @@ pub struct TautspanApp {
     pub files: Files,
     /// Plots and their worker jobs.
     pub plots: Plots,
-    /// Results table sorting.
-    pub sort: Sort,
+    /// The results grid's sort and filters.
+    pub results: ResultsView,
     /// The message shown under the caution.
     pub message: Option<Message>,
     /// An action waiting on unsaved changes.
     pub pending: Option<Pending>,
+    /// A deletion waiting for the user's yes: the item and what goes with it.
+    pub confirm_delete: Option<(Selection, Vec<String>)>,
     /// The report waiting for a path.
     pub(crate) report_html: Option<String>,
+    /// The CSV waiting for a path.
+    pub(crate) csv_text: Option<String>,
     /// The report waits for the results of the current revision.
     pub(crate) export_waiting: bool,
+    /// Unsaved work kept for crash recovery, and work found at start.
+    pub recovery: crate::files::recovery::Recovery,
     /// The user chose to close without saving.
     pub(crate) quit_allowed: bool,
     /// Set when the app asked the window to close.
     pub close_requested: bool,
-    /// The copy of unsaved work kept against a crash.
-    pub recovery: Recovery,
-    /// Unsaved work from an earlier run, offered back until answered.
-    pub recovered: Option<Found>,
     last_title: String,
 }
 
@@ -109,15 +110,16 @@ impl TautspanApp {
             fields: FieldBuffers::default(),
             files: Files::default(),
             plots: Plots::default(),
-            sort: Sort::default(),
+            results: ResultsView::default(),
             message: None,
             pending: None,
+            confirm_delete: None,
+            recovery: crate::files::recovery::Recovery::default(),
             report_html: None,
+            csv_text: None,
             export_waiting: false,
             quit_allowed: false,
             close_requested: false,
-            recovery: Recovery::default(),
-            recovered: None,
             last_title: String::new(),
         }
     }
@@ -135,22 +137,17 @@ impl TautspanApp {
     }
 
     /// The app on a file, or on the demo when `None`. A file that does not
-    /// load leaves a new scenario open and says why.
+    /// load leaves a new scenario open and says why. Unsaved work is kept in
+    /// the platform's state folder, and work left there by a session that
+    /// ended unexpectedly is offered back.
     pub fn start(file: Option<PathBuf>, prefs: Prefs) -> TautspanApp {
-        TautspanApp::start_in(file, prefs, recovery::state_dir())
+        TautspanApp::start_with_recovery(file, prefs, crate::files::recovery::default_file())
     }
 
-    /// As [`TautspanApp::start`], with unsaved work kept in (and looked for
-    /// in) `state_dir`; `None` keeps no copy.
-    pub fn start_in(file: Option<PathBuf>, prefs: Prefs, state_dir: Option<PathBuf>) -> TautspanApp {
+    /// As [`TautspanApp::start`], with the recovery file given (`None`: no recovery).
+    pub fn start_with_recovery(file: Option<PathBuf>, prefs: Prefs, recovery: Option<PathBuf>) -> TautspanApp {
         let mut app = TautspanApp::open_at_start(file, prefs);
-        if let Some(dir) = state_dir {
-            match recovery::find(&dir) {
-                Ok(found) => app.recovered = found,
-                Err(e) => app.message = Some(Message::Error(e)),
-            }
-            app.recovery = Recovery::into_dir(dir);
-        }
+        app.recovery = crate::files::recovery::Recovery::at(recovery);
         app
     }
 
@@ -224,7 +221,19 @@ impl TautspanApp {
                 }
             }
             Command::DeleteSelection => {
-                let sel = std::mem::take(&mut self.selection);
+                let goes_with = edits::dependents(&self.doc.dto, &self.selection);
+                if goes_with.is_empty() {
+                    let sel = std::mem::take(&mut self.selection);
+                    self.doc.edit(None, |d| edits::delete(d, &sel));
+                } else {
+                    self.confirm_delete = Some((self.selection.clone(), goes_with));
+                }
+            }
+            Command::ConfirmDelete(sel) => {
+                self.confirm_delete = None;
+                if self.selection == sel {
+                    self.selection = Selection::None;
+                }
                 self.doc.edit(None, |d| edits::delete(d, &sel));
             }
             Command::FinishRope => {
@@ -246,7 +255,9 @@ impl TautspanApp {
             Command::ShowCase(id) => self.shown_case = Some(id),
             Command::FitView => self.view.fit_pending = true,
             Command::New | Command::Open | Command::OpenPath(_) | Command::Quit => self.guarded(ctx, c),
-            Command::Save | Command::SaveAs | Command::SaveTo(_) | Command::ExportReport => self.file_command(ctx, c),
+            Command::Save | Command::SaveAs | Command::SaveTo(_) | Command::ExportReport | Command::ExportCsv(_) => {
+                self.file_command(ctx, c)
+            }
         }
     }
 
@@ -276,8 +287,8 @@ impl TautspanApp {
             Pending::Open => self.files.ask(crate::files::Purpose::Open, ctx, self.doc.path.as_deref()),
             Pending::OpenPath(path) => self.open_path(&path),
             Pending::Quit => {
-                // the user chose to drop the changes: no copy is kept
-                self.recovery.discard();
+                // closed by choice: the unsaved work is not kept for recovery
+                self.recovery.clear();
                 self.quit_allowed = true;
                 self.close_requested = true;
                 ctx.send_viewport_cmd(egui::ViewportCommand::Close);
@@ -334,6 +345,14 @@ impl TautspanApp {
     /// One frame of the whole app inside `ui`.
     pub fn frame(&mut self, ui: &mut Ui) {
         self.derived.refresh(&self.doc, ui.ctx());
+        match self.recovery.tick(&self.doc) {
+            Ok(Some(due)) => ui.ctx().request_repaint_after(due),
+            Ok(None) => {}
+            Err(e) => {
+                self.message = Some(Message::Error(format!("Unsaved work could not be kept for recovery: {e}")));
+                self.recovery.file = None;
+            }
+        }
         self.poll_files(ui.ctx());
         let mut out: Vec<Command> = Vec::new();
         self.shortcuts(ui, &mut out);
@@ -350,9 +369,27 @@ impl TautspanApp {
             toolbar::ui(ui, input, &mut out);
             self.message_ui(ui);
         });
-        egui::Panel::top("verdict").show(ui, |ui| crate::panels::verdict_bar::ui(ui, &self.derived, &mut out));
+        egui::Panel::top("verdict").show(ui, |ui| {
+            crate::panels::verdict_bar::ui(ui, &self.derived, &mut out);
+            let bad = crate::fields::invalid::invalid_fields(&self.fields, &self.doc.dto);
+            if !bad.is_empty() {
+                ui.label(
+                    RichText::new(format!(
+                        "Results STALE: {} not a valid value; the results are of the last valid one.",
+                        bad.join("; ") + if bad.len() == 1 { " is" } else { " are" }
+                    ))
+                    .color(ERROR)
+                    .strong(),
+                );
+            }
+        });
         egui::Panel::bottom("status").show(ui, |ui| self.status_ui(ui));
-        egui::Panel::bottom("lower").resizable(true).default_size(250.0).show(ui, |ui| {
+        // a third of the window at first; the grip on its top edge shows it can be dragged
+        let lower_default = (ui.max_rect().height() / 3.0).max(200.0);
+        egui::Panel::bottom("lower").resizable(true).default_size(lower_default).show(ui, |ui| {
+            split_grip(ui);
+            // the panel keeps its size while its content is short (no results yet)
+            ui.set_min_height(ui.available_height());
             ui.horizontal(|ui| {
                 ui.selectable_value(&mut self.prefs.lower_tab, LowerTab::Results, "Results");
                 ui.selectable_value(&mut self.prefs.lower_tab, LowerTab::Plots, "Plots");
@@ -360,7 +397,7 @@ impl TautspanApp {
             ui.separator();
             match self.prefs.lower_tab {
                 LowerTab::Results => {
-                    results_table::ui(ui, &self.derived, &self.selection, &mut self.sort, self.prefs.units, &mut out)
+                    results_table::ui(ui, &self.derived, &self.selection, &mut self.results, self.prefs.units, &mut out)
                 }
                 LowerTab::Plots => {
                     self.plots.ui(
@@ -410,18 +447,15 @@ impl TautspanApp {
                 tool: self.tool,
                 units: self.prefs.units,
                 labels: !self.prefs.hide_labels,
+                worst_case: self.prefs.worst_case_colours,
             };
             canvas::ui(ui, &mut self.canvas, &mut self.view, &input, &mut out);
         });
         self.dialogs_ui(ui.ctx(), &mut out);
+        crate::panels::confirm_delete::ui(ui.ctx(), &mut self.confirm_delete, &mut out);
         self.recovery_ui(ui.ctx());
         let ctx = ui.ctx().clone();
         self.apply(&ctx, out);
-        // unsaved work copied against a crash (not while an earlier copy is
-        // still being offered: it would be written over)
-        if self.recovered.is_none() {
-            self.recovery.tick(self.doc.dirty, self.doc.revision, self.doc.path.as_deref(), &self.doc.dto);
-        }
     }
 
     fn message_ui(&mut self, ui: &mut Ui) {
@@ -471,6 +505,19 @@ impl TautspanApp {
                 ui.label("waiting for the file dialog…");
             }
         });
+    }
+}
+
+/// A grip drawn on the lower panel's top edge, where it is dragged to resize.
+fn split_grip(ui: &Ui) {
+    let r = ui.max_rect();
+    let centre = egui::pos2(r.center().x, r.top() - 3.0);
+    let colour = ui.visuals().widgets.noninteractive.fg_stroke.color.gamma_multiply(0.6);
+    for dy in [-1.5, 1.5] {
+        ui.painter().line_segment(
+            [centre + egui::vec2(-22.0, dy), centre + egui::vec2(22.0, dy)],
+            egui::Stroke::new(1.0, colour),
+        );
     }
 }
 

@@ -23,6 +23,18 @@ pub use files::prefs::Prefs;
 
 use std::path::PathBuf;
 
+pub use files::recovery::text_of as recovery_text;
+
+/// The ids of the results grid's rows, sorted by item then case, with its
+/// two filters ("over / near / unchecked only", "worst case per item").
+pub fn results_rows(a: &tautspan_core::analysis::Analysis, problems_only: bool, worst_per_item: bool) -> Vec<String> {
+    let filter = panels::results_rows::Filter { problems_only, worst_per_item };
+    panels::results_rows::rows(a, filter, panels::results_rows::Sort::default())
+        .into_iter()
+        .map(|r| r.id.into_owned())
+        .collect()
+}
+
 /// The demo scenario the app opens when no file is given.
 pub const DEMO_SCENARIO: &str = include_str!("../../../scenarios/gantry-swing.ron");
 

@@ -24,7 +24,8 @@ fn the_deflected_shape_draws_the_solved_positions_magnified() {
     let deflected = [100.0 * solved[0], 2.0 + 100.0 * (solved[1] - 2.0)];
     let view = h.state().view;
     let shift_pt = view.to_screen(deflected[0], deflected[1]).distance(view.to_screen(0.0, 2.0));
-    assert!(shift_pt > 15.0, "×100 moves J2 clear of where it is drawn ({shift_pt} pt)");
+    // clear of the 9 pt node pick radius (canvas/mod.rs `hit`), with a margin
+    assert!(shift_pt > 11.0, "×100 moves J2 clear of where it is drawn ({shift_pt} pt)");
 
     click(&mut h, "Deflected shape");
     assert!(h.state().view.deflected);

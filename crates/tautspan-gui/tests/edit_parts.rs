@@ -39,6 +39,9 @@ fn plumb_app() -> TautspanApp {
 
 /// Open the combo box labelled `combo` and pick `option`.
 fn pick(h: &mut Harness<'_, TautspanApp>, combo: &str, option: &str) {
+    // the inspector scrolls: bring the box into view first, as a user would
+    h.get_by_role_and_label(Role::ComboBox, combo).scroll_to_me();
+    h.run();
     h.get_by_role_and_label(Role::ComboBox, combo).click();
     h.run();
     h.get_by_label(option).click();

@@ -35,7 +35,10 @@ fn rope_result(h: &Harness<'_, TautspanApp>, id: &str) -> MemberResult {
 /// mass on it, and a rope routed A1 → J1 → A2 with the rope tool, finished
 /// by clicking the last node again.
 fn route_running_block() -> Harness<'static, TautspanApp> {
-    let mut h = harness(blank_app());
+    let mut blank = blank_app();
+    // the canvas centred on where the rig goes, whatever room the panels leave it
+    blank.view.centre_m = [2.0, 4.0];
+    let mut h = harness(blank);
     click(&mut h, "Anchor");
     click_world(&mut h, 0.0, 5.0);
     click_world(&mut h, 4.0, 6.0);
@@ -118,6 +121,9 @@ fn a_bronze_bearing_raises_the_lead_by_1_09_and_undo_restores() {
     h.state_mut().selection = Selection::Node("J1".into());
     h.run();
     let frictionless = rope_result(&h, "rope1");
+    // the inspector scrolls: bring the box into view first
+    h.get_by_role_and_label(Role::ComboBox, "Bearing").scroll_to_me();
+    h.run();
     h.get_by_role_and_label(Role::ComboBox, "Bearing").click();
     h.run();
     h.get_by_label(Bearing::Bronze.label()).click();
@@ -163,6 +169,9 @@ fn deleting_the_sheave_node_takes_the_rope_in_one_step() {
     assert_eq!(h.state().selection, Selection::Node("J1".into()));
     h.key_press(egui::Key::Delete);
     h.run();
+    // the rope and the mass go with it: asked first
+    assert!(h.query_by_label("Delete node J1?").is_some());
+    click(&mut h, "Delete all");
     let d = h.state().doc.dto.clone();
     assert!(d.ropes.is_empty() && d.masses.is_empty() && d.nodes.len() == 2, "the rope and the mass went with J1");
     h.key_press_modifiers(egui::Modifiers::COMMAND, egui::Key::Z);
@@ -296,16 +305,25 @@ fn the_rope_inspector_edits_its_termination_fittings_motion_and_id() {
     let mut h = harness(running_block_app());
     h.state_mut().selection = Selection::Rope("fall".into());
     h.run();
+    // the inspector scrolls: bring the box into view first
+    h.get_by_role_and_label(Role::ComboBox, "Termination").scroll_to_me();
+    h.run();
     h.get_by_role_and_label(Role::ComboBox, "Termination").click();
     h.run();
     h.get_by_label(Termination::HandSplice.label()).click();
     h.run();
     assert_eq!(h.state().doc.dto.ropes[0].termination, Some(Termination::HandSplice));
+    // the inspector scrolls: bring the box into view first
+    h.get_by_role_and_label(Role::ComboBox, "Motion").scroll_to_me();
+    h.run();
     h.get_by_role_and_label(Role::ComboBox, "Motion").click();
     h.run();
     h.get_by_label("lowering").click();
     h.run();
     assert_eq!(h.state().doc.dto.ropes[0].motion, Some(RopeMotion::Lowering));
+    // the inspector scrolls: bring the box into view first
+    h.get_by_role_and_label(Role::ComboBox, "Add a part").scroll_to_me();
+    h.run();
     h.get_by_role_and_label(Role::ComboBox, "Add a part").click();
     h.run();
     h.get_by_label("shackle").click();

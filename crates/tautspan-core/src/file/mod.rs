@@ -7,6 +7,7 @@ mod fitting;
 mod locate;
 mod nesting;
 mod read;
+mod type_words;
 mod write;
 
 pub use caps::{MAX_CASES, MAX_FLOORS, MAX_MASSES, MAX_MEMBERS, MAX_NODES, over_caps};

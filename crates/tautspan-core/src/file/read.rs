@@ -5,6 +5,7 @@
 use super::dto::ScenarioDto;
 use super::error::{FileError, FileErrors};
 use super::locate::{Location, MAX_NESTING, SpanIndex};
+use super::type_words::type_words;
 use ron::extensions::Extensions;
 use serde::Deserialize;
 
@@ -41,21 +42,22 @@ fn located(index: &SpanIndex, path: &str, message: String) -> FileError {
 fn ron_message(code: &ron::Error) -> String {
     use ron::Error as E;
     match code {
+        // ron names the Rust type it was reading: say what it is in words
         E::NoSuchStructField { expected, found, outer } => {
-            let outer = outer.as_deref().unwrap_or("this item");
+            let outer = outer.as_deref().map_or_else(|| "this item".to_string(), |o| format!("a {}", type_words(o)));
             format!("unknown field `{found}` in {outer}; the fields are {}", expected.join(", "))
         }
         E::MissingStructField { field, outer } => {
-            let outer = outer.as_deref().unwrap_or("this item");
+            let outer = outer.as_deref().map_or_else(|| "this item".to_string(), |o| format!("a {}", type_words(o)));
             format!("missing field `{field}` in {outer}")
         }
         E::DuplicateStructField { field, outer } => {
-            let outer = outer.as_deref().unwrap_or("this item");
+            let outer = outer.as_deref().map_or_else(|| "this item".to_string(), |o| format!("a {}", type_words(o)));
             format!("field `{field}` given twice in {outer}")
         }
         E::NoSuchEnumVariant { expected, found, outer } => {
-            let outer = outer.as_deref().unwrap_or("this value");
-            format!("`{found}` is not a {outer}; write one of {}", expected.join(", "))
+            let outer = outer.as_deref().map_or_else(|| "value here".to_string(), type_words);
+            format!("`{found}` is not a valid {outer}; write one of {}", expected.join(", "))
         }
         other => other.to_string(),
     }

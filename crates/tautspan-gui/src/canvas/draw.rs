@@ -203,11 +203,19 @@ pub fn draw(
         .map(|p| p.members.iter().map(String::as_str).zip(p.shares.iter().copied()).collect())
         .unwrap_or_default();
 
+    // each member's worst case over all cases, when that colouring is on
+    let worst: Option<HashMap<&str, &MemberResult>> = match input.derived.solved.as_ref() {
+        Some(s) if input.worst_case => Some(crate::document::envelope::worst_members(&s.analysis)),
+        _ => None,
+    };
     // a case's results are in the order of the members, then the ropes;
     // looked up by id only when the drawing and the results differ (an edit
     // not yet solved), so a frame of a large net does not hash every id
     let by_id: OnceCell<HashMap<&str, &MemberResult>> = OnceCell::new();
     let result_at = |k: usize, id: &str| -> Option<&MemberResult> {
+        if let Some(w) = &worst {
+            return w.get(id).copied();
+        }
         let c = case?;
         match c.members.get(k) {
             Some(r) if r.id == id => Some(r),
@@ -390,6 +398,15 @@ pub fn draw(
     // in the deflected view the caption holds the top left; the legend goes below it
     let legend_top = if deflection.is_some() { CAPTION_HEIGHT + 16.0 } else { 12.0 };
     legend(painter, view, input.derived.solved.as_ref().map(|s| s.scenario.near_limit).unwrap_or(0.8), legend_top);
+    if input.worst_case {
+        label(
+            painter,
+            view.rect.left_bottom() + vec2(10.0, -24.0),
+            Align2::LEFT_BOTTOM,
+            "Colours and labels: each member's worst case over all cases".to_string(),
+            INK,
+        );
+    }
 }
 
 /// One member or rope span into `shapes`: shaded by utilisation, dashed

@@ -23,4 +23,6 @@ pub struct CanvasInput<'a> {
     pub units: UnitSystem,
     /// Draw force labels.
     pub labels: bool,
+    /// Colour each member by its worst case over all cases, not the case shown.
+    pub worst_case: bool,
 }

@@ -27,8 +27,10 @@ pub enum Command {
     Undo,
     /// Redo one edit.
     Redo,
-    /// Delete the selection.
+    /// Delete the selection (asks first when other items go with it).
     DeleteSelection,
+    /// Delete this item and what goes with it, in one undo step (the answer to the question).
+    ConfirmDelete(Selection),
     /// Cancel the tool in progress, then the selection.
     Escape,
     /// Place the rope routed so far with the rope tool.
@@ -47,6 +49,8 @@ pub enum Command {
     SaveTo(PathBuf),
     /// Export the report.
     ExportReport,
+    /// Export this CSV text (the results grid as shown).
+    ExportCsv(String),
     /// Show this case on the canvas.
     ShowCase(String),
     /// Fit the drawing to the canvas.

@@ -180,6 +180,48 @@ fn remove_masses(dto: &mut ScenarioDto, doomed: &[String]) {
     dto.cases.retain(|c| case_mass(c).is_none_or(|m| !doomed.contains(&m.to_string())));
 }
 
+/// What deleting the selection takes with it or changes, in words, one
+/// line each ("member leg-west", "case snatch (its mass goes)"); empty when
+/// nothing else uses it, so it is deleted without asking.
+pub fn dependents(dto: &ScenarioDto, selection: &Selection) -> Vec<String> {
+    let mut out = Vec::new();
+    let masses_going: Vec<String> = match selection {
+        Selection::Node(id) => {
+            out.extend(
+                dto.members.iter().filter(|m| &m.ends.0 == id || &m.ends.1 == id).map(|m| format!("member {}", m.id)),
+            );
+            out.extend(dto.ropes.iter().filter(|r| r.path.contains(id)).map(|r| format!("rope {}", r.id)));
+            let masses: Vec<String> = dto.masses.iter().filter(|m| &m.at == id).map(|m| m.id.clone()).collect();
+            out.extend(masses.iter().map(|m| format!("mass {m}")));
+            out.extend(dto.cases.iter().filter_map(|c| match c {
+                CaseDto::Swing { id: case, pivot: Some(p), .. } if p == id => {
+                    Some(format!("case {case} swings about its default pivot instead"))
+                }
+                _ => None,
+            }));
+            masses
+        }
+        Selection::Mass(id) => vec![id.clone()],
+        Selection::Floor(id) => {
+            out.extend(
+                dto.nodes
+                    .iter()
+                    .filter(|n| n.support == SupportDto::Floor(id.clone()))
+                    .map(|n| format!("node {} no longer stands on it (becomes a joint)", n.id)),
+            );
+            Vec::new()
+        }
+        Selection::None | Selection::Member(_) | Selection::Rope(_) => Vec::new(),
+    };
+    out.extend(
+        dto.cases
+            .iter()
+            .filter(|c| case_mass(c).is_some_and(|m| masses_going.iter().any(|g| g == m)))
+            .map(|c| format!("case {} (its mass goes)", c.id())),
+    );
+    out
+}
+
 /// Delete the selected item and whatever depends on it (a node takes its
 /// members, the ropes running through it and its masses; a mass takes its dynamic cases; a slab frees its nodes).
 pub fn delete(dto: &mut ScenarioDto, selection: &Selection) {
@@ -217,6 +259,23 @@ pub fn delete(dto: &mut ScenarioDto, selection: &Selection) {
 #[cfg(test)]
 mod tests {
     use super::*;
+
+    #[test]
+    fn what_goes_with_a_node_is_listed_before_it_goes() {
+        let mut d = crate::document::blank_scenario();
+        let a = add_node(&mut d, 0.0, 3.0, SupportDto::Anchor, UnitSystem::Si);
+        let j = add_node(&mut d, 0.0, 1.0, SupportDto::Joint, UnitSystem::Si);
+        let m = add_member(&mut d, &a, &j, MemberKind::WireRope, UnitSystem::Si);
+        let mass = add_mass(&mut d, &j, UnitSystem::Si);
+        d.cases.push(CaseDto::Sudden { id: "s".into(), mass: mass.clone() });
+        let deps = dependents(&d, &Selection::Node(j.clone()));
+        assert_eq!(deps, [format!("member {m}"), format!("mass {mass}"), "case s (its mass goes)".to_string()]);
+        assert_eq!(dependents(&d, &Selection::Mass(mass)), ["case s (its mass goes)"]);
+        assert!(dependents(&d, &Selection::Member(m)).is_empty(), "a member: nothing else uses it");
+        // and delete takes exactly those
+        delete(&mut d, &Selection::Node(j));
+        assert!(d.members.is_empty() && d.masses.is_empty() && d.cases.len() == 1);
+    }
 
     #[test]
     fn ids_are_fresh() {

@@ -13,6 +13,7 @@ pub(crate) mod command;
 pub mod core_bridge;
 pub(crate) mod derived;
 pub(crate) mod edits;
+pub(crate) mod envelope;
 pub(crate) mod rename;
 pub(crate) mod selection;
 pub(crate) mod solve_worker;
@@ -103,10 +104,33 @@ impl Document {
 
     /// The file name shown in the title ("untitled" before the first save).
     pub fn display_name(&self) -> String {
-        self.path
-            .as_ref()
-            .and_then(|p| p.file_name())
-            .map_or_else(|| "untitled".to_string(), |n| n.to_string_lossy().into_owned())
+        match self.path.as_ref().and_then(|p| p.file_name()) {
+            Some(n) => n.to_string_lossy().into_owned(),
+            // not saved yet: the scenario's own title (the demo's, a new rig's)
+            None if !self.dto.title.trim().is_empty() => self.dto.title.trim().to_string(),
+            None => "untitled".to_string(),
+        }
+    }
+
+    /// Where "save as" starts: the file itself, or a name made from the
+    /// title in the working folder.
+    pub fn save_path_suggestion(&self) -> PathBuf {
+        if let Some(p) = &self.path {
+            return p.clone();
+        }
+        let slug: String = self
+            .dto
+            .title
+            .chars()
+            .map(|c| if c.is_alphanumeric() { c.to_ascii_lowercase() } else { '-' })
+            .collect::<String>()
+            .split('-')
+            .filter(|s| !s.is_empty())
+            .take(6)
+            .collect::<Vec<_>>()
+            .join("-");
+        let name = if slug.is_empty() { "scenario".to_string() } else { slug };
+        std::env::current_dir().unwrap_or_default().join(format!("{name}.ron"))
     }
 
     /// The window title: file name, a dirty marker, the app name.

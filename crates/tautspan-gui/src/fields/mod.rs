@@ -4,6 +4,7 @@
 //! (`units_display`).
 
 pub(crate) mod id_field;
+pub(crate) mod invalid;
 pub(crate) mod qty_field;
 pub(crate) mod qty_text;
 pub(crate) mod units_display;

@@ -31,6 +31,13 @@ impl FieldBuffers {
         self.0.insert(path.to_string(), text.to_string());
     }
 
+    /// Every unfinished entry, (path or rename key, text), sorted by path.
+    pub fn entries(&self) -> Vec<(&str, &str)> {
+        let mut v: Vec<(&str, &str)> = self.0.iter().map(|(k, t)| (k.as_str(), t.as_str())).collect();
+        v.sort_unstable();
+        v
+    }
+
     /// Forget the unfinished text at a path.
     pub fn remove(&mut self, path: &str) {
         self.0.remove(path);

@@ -39,15 +39,35 @@ impl TautspanApp {
         }
     }
 
+    /// Why the scenario cannot be saved as it stands: fields holding text
+    /// that is not a valid value (the document has only their last valid one).
+    fn unsaveable(&self) -> Option<String> {
+        let bad = crate::fields::invalid::invalid_fields(&self.fields, &self.doc.dto);
+        (!bad.is_empty()).then(|| {
+            format!(
+                "Not saved: {} {} not a valid value. Correct {} (or undo) and save again.",
+                bad.join("; "),
+                if bad.len() == 1 { "is" } else { "are" },
+                if bad.len() == 1 { "it" } else { "them" }
+            )
+        })
+    }
+
     pub(crate) fn file_command(&mut self, ctx: &Context, c: Command) {
+        if matches!(c, Command::Save | Command::SaveAs | Command::SaveTo(_))
+            && let Some(why) = self.unsaveable()
+        {
+            self.message = Some(Message::Error(why));
+            return;
+        }
         match c {
             Command::Save => match self.doc.path.clone() {
                 Some(p) => {
                     self.save_to(&p);
                 }
-                None => self.files.ask(Purpose::SaveAs, ctx, None),
+                None => self.files.ask(Purpose::SaveAs, ctx, Some(&self.doc.save_path_suggestion())),
             },
-            Command::SaveAs => self.files.ask(Purpose::SaveAs, ctx, self.doc.path.as_deref()),
+            Command::SaveAs => self.files.ask(Purpose::SaveAs, ctx, Some(&self.doc.save_path_suggestion())),
             Command::SaveTo(p) => {
                 let saved = self.save_to(&p);
                 if saved && let Some(next) = self.pending.take() {
@@ -77,12 +97,25 @@ impl TautspanApp {
                     Err(e) => self.message = Some(Message::Error(format!("No report: {e}."))),
                 }
             }
+            Command::ExportCsv(text) => {
+                self.csv_text = Some(text);
+                let near = match &self.doc.path {
+                    Some(p) => p.with_extension("csv"),
+                    None => PathBuf::from("results.csv"),
+                };
+                self.files.ask(Purpose::ExportCsv, ctx, Some(&near));
+            }
             _ => {}
         }
     }
 
     fn path_chosen(&mut self, ctx: &Context, purpose: Purpose, path: PathBuf) {
         self.files.prompt = None;
+        // a name typed without its extension gets the one the file is written as
+        let path = match purpose.extension() {
+            Some(ext) if path.extension().is_none() => path.with_extension(ext),
+            _ => path,
+        };
         match purpose {
             Purpose::Open => self.open_path(&path),
             Purpose::SaveAs => self.file_command(ctx, Command::SaveTo(path)),
@@ -91,6 +124,14 @@ impl TautspanApp {
                     self.message = Some(match write_atomic(&path, &html) {
                         Ok(()) => Message::Info(format!("Report written to {}", path.display())),
                         Err(e) => Message::Error(format!("Report not written: {}: {e}", path.display())),
+                    });
+                }
+            }
+            Purpose::ExportCsv => {
+                if let Some(text) = self.csv_text.take() {
+                    self.message = Some(match write_atomic(&path, &text) {
+                        Ok(()) => Message::Info(format!("Results written to {}", path.display())),
+                        Err(e) => Message::Error(format!("Results not written: {}: {e}", path.display())),
                     });
                 }
             }
@@ -122,7 +163,7 @@ impl TautspanApp {
                     if ui.button("Save").clicked() {
                         match self.doc.path.clone() {
                             Some(path) => out.push(Command::SaveTo(path)),
-                            None => self.files.ask(Purpose::SaveAs, ctx, None),
+                            None => self.files.ask(Purpose::SaveAs, ctx, Some(&self.doc.save_path_suggestion())),
                         }
                     }
                     if ui.button("Discard changes").clicked() {
@@ -142,6 +183,11 @@ impl TautspanApp {
             ui.horizontal(|ui| {
                 let l = ui.label("Path");
                 let r = ui.add(egui::TextEdit::singleline(&mut prompt.text).desired_width(360.0)).labelled_by(l.id);
+                // the field takes the focus when it opens, so the path can be typed at once
+                if !prompt.focused {
+                    r.request_focus();
+                    prompt.focused = true;
+                }
                 let enter = r.lost_focus() && ui.input(|i| i.key_pressed(egui::Key::Enter));
                 if (ui.button(prompt.purpose.verb()).clicked() || enter) && !prompt.text.trim().is_empty() {
                     chosen = Some(PathBuf::from(prompt.text.trim()));
@@ -156,55 +202,9 @@ impl TautspanApp {
         } else if close {
             self.files.prompt = None;
             self.report_html = None;
+            self.csv_text = None;
         } else {
             self.files.prompt = Some(prompt);
-        }
-    }
-
-    /// Offer back unsaved work found at start: restore it (as unsaved
-    /// changes to the file it belonged to) or discard it.
-    pub(crate) fn recovery_ui(&mut self, ctx: &Context) {
-        let Some(found) = self.recovered.clone() else { return };
-        let from =
-            found.original.as_ref().map_or_else(|| "an untitled scenario".to_string(), |p| p.display().to_string());
-        let when = found
-            .written
-            .and_then(|t| t.duration_since(std::time::UNIX_EPOCH).ok())
-            .map(|d| {
-                let secs = d.as_secs();
-                let date = tautspan_core::report::civil_date(secs);
-                format!(" (written {date} {:02}:{:02} UTC)", secs % 86_400 / 3600, secs % 3600 / 60)
-            })
-            .unwrap_or_default();
-        let mut answer = None;
-        egui::Modal::new(egui::Id::unique("recovered-work")).show(ctx, |ui| {
-            ui.heading("Unsaved work found");
-            ui.label(format!(
-                "Tautspan did not close normally. Unsaved changes to {from} were kept{when}: \"{}\".",
-                found.dto.title
-            ));
-            ui.label("Restore them as unsaved changes, or discard them?");
-            ui.horizontal(|ui| {
-                if ui.button("Restore unsaved work").clicked() {
-                    answer = Some(true);
-                }
-                if ui.button("Discard it").clicked() {
-                    answer = Some(false);
-                }
-            });
-        });
-        match answer {
-            Some(true) => {
-                self.doc.replace(found.dto, found.original);
-                self.doc.dirty = true;
-                self.after_replace();
-                self.recovered = None;
-            }
-            Some(false) => {
-                self.recovery.discard();
-                self.recovered = None;
-            }
-            None => {}
         }
     }
 }

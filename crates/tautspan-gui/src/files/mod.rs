@@ -1,7 +1,7 @@
 //! The files folder: reading and saving scenarios (this file), the app's
 //! file commands and dialogs (`app_files`), the preferences kept between
-//! runs (`prefs`), and the copy of unsaved work kept against a crash
-//! (`recovery`).
+//! runs (`prefs`), and unsaved work kept for crash recovery (`recovery`) and
+//! offered back at start (`recovery_offer`).
 //!
 //! Files: native dialogs on a worker thread (an unanswered desktop portal
 //! can block forever, so the UI never waits on one), the in-app path field
@@ -12,6 +12,7 @@
 pub(crate) mod app_files;
 pub(crate) mod prefs;
 pub mod recovery;
+mod recovery_offer;
 
 use std::io::Write;
 use std::path::{Path, PathBuf};
@@ -28,6 +29,8 @@ pub enum Purpose {
     SaveAs,
     /// Export the report.
     ExportReport,
+    /// Export the results grid as CSV.
+    ExportCsv,
 }
 
 impl Purpose {
@@ -36,8 +39,33 @@ impl Purpose {
         match self {
             Purpose::Open => "Open",
             Purpose::SaveAs => "Save",
-            Purpose::ExportReport => "Export",
+            Purpose::ExportReport | Purpose::ExportCsv => "Export",
         }
+    }
+
+    /// The extension a path typed without one gets (none for opening).
+    pub fn extension(self) -> Option<&'static str> {
+        match self {
+            Purpose::Open => None,
+            Purpose::SaveAs => Some("ron"),
+            Purpose::ExportReport => Some("html"),
+            Purpose::ExportCsv => Some("csv"),
+        }
+    }
+}
+
+/// What the path field starts with: for opening, the folder of the file
+/// open (a separator at the end, ready for a name); for saving and
+/// exporting, the suggested file in that folder.
+fn start_text(purpose: Purpose, near: Option<&Path>) -> String {
+    let Some(near) = near else { return String::new() };
+    match purpose {
+        Purpose::Open => near
+            .parent()
+            .filter(|d| !d.as_os_str().is_empty())
+            .map(|d| format!("{}{}", d.display(), std::path::MAIN_SEPARATOR))
+            .unwrap_or_default(),
+        _ => near.display().to_string(),
     }
 }
 
@@ -59,6 +87,8 @@ pub struct PathPrompt {
     pub text: String,
     /// Why the field is shown.
     pub reason: String,
+    /// The field has had the focus once (it takes it when it opens).
+    pub focused: bool,
 }
 
 /// Dialogs in flight and the fallback field.
@@ -72,12 +102,14 @@ pub struct Files {
     pub prompt: Option<PathPrompt>,
     /// Use native dialogs (off in tests and when they have failed before).
     pub native: bool,
+    /// What the path field starts with should the dialog in flight give nothing.
+    last_near: String,
 }
 
 impl Default for Files {
     fn default() -> Self {
         let (tx, rx) = channel();
-        Files { tx, rx, in_flight: None, prompt: None, native: true }
+        Files { tx, rx, in_flight: None, prompt: None, native: true, last_near: String::new() }
     }
 }
 
@@ -88,11 +120,16 @@ impl Files {
             return;
         }
         if !self.native {
-            let text = near.map(|p| p.display().to_string()).unwrap_or_default();
-            self.prompt = Some(PathPrompt { purpose, text, reason: "Type the file's path.".to_string() });
+            self.prompt = Some(PathPrompt {
+                purpose,
+                text: start_text(purpose, near),
+                reason: "Type the file's path.".to_string(),
+                focused: false,
+            });
             return;
         }
         self.in_flight = Some(purpose);
+        self.last_near = start_text(purpose, near);
         let tx = self.tx.clone();
         let ctx = ctx.clone();
         let dir = near.and_then(Path::parent).map(Path::to_path_buf);
@@ -101,6 +138,7 @@ impl Files {
             let mut d = rfd::FileDialog::new();
             d = match purpose {
                 Purpose::ExportReport => d.add_filter("HTML report", &["html"]),
+                Purpose::ExportCsv => d.add_filter("CSV table", &["csv"]),
                 _ => d.add_filter("Tautspan scenario", &["ron"]),
             };
             if let Some(dir) = dir {
@@ -111,7 +149,7 @@ impl Files {
             }
             let path = match purpose {
                 Purpose::Open => d.pick_file(),
-                Purpose::SaveAs | Purpose::ExportReport => d.save_file(),
+                Purpose::SaveAs | Purpose::ExportReport | Purpose::ExportCsv => d.save_file(),
             };
             let _ = tx.send(Answer { purpose, path });
             ctx.request_repaint();
@@ -120,8 +158,9 @@ impl Files {
             self.in_flight = None;
             self.prompt = Some(PathPrompt {
                 purpose,
-                text: String::new(),
+                text: start_text(purpose, near),
                 reason: format!("The file dialog could not start ({e}); type the path instead."),
+                focused: false,
             });
         }
     }
@@ -133,7 +172,8 @@ impl Files {
         if a.path.is_none() {
             self.prompt = Some(PathPrompt {
                 purpose: a.purpose,
-                text: String::new(),
+                text: self.last_near.clone(),
+                focused: false,
                 reason: "The file dialog closed without a file (cancelled, or no desktop file dialog is available here). Type the path instead, or close this.".to_string(),
             });
         }

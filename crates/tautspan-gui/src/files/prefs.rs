@@ -34,6 +34,8 @@ pub struct Prefs {
     pub lower_tab: LowerTab,
     /// Draw force labels on the canvas.
     pub hide_labels: bool,
+    /// Colour the canvas's members by their worst case over all cases.
+    pub worst_case_colours: bool,
 }
 
 impl Prefs {

@@ -1,184 +1,239 @@
-//! Crash recovery: while the document has unsaved changes, a copy is written
+//! Crash recovery: while the scenario has unsaved changes, it is written
 //! every few seconds to a recovery file in the platform's state folder
-//! (`$XDG_STATE_HOME/tautspan` on Linux, found with the `directories`
-//! crate). Writing happens on a thread of its own, so a large rig never
-//! holds up a frame. The copy goes when the changes are saved, undone or
-//! discarded; if the app dies instead, the next start finds it and offers it
-//! back.
-//!
-//! The file is an ordinary scenario file with one comment line on top that
-//! names the file the work belonged to.
+//! (`directories`; `$XDG_STATE_HOME/tautspan` on Linux), atomically, with
+//! the file it came from named in a comment, on a thread of its own (a
+//! large rig takes longer to write than a frame). Saving, or closing after the
+//! question about unsaved changes, removes it. When the app starts and finds
+//! one, it offers the work back (restore or discard).
 
+use crate::document::Document;
+use crate::files::write_atomic;
 use std::path::{Path, PathBuf};
 use std::sync::Arc;
-use std::sync::mpsc::{Sender, channel};
-use std::time::{Duration, Instant, SystemTime};
+use std::sync::mpsc::{Receiver, Sender, channel};
+use std::time::{Duration, Instant};
 use tautspan_core::file::{ScenarioDto, write_scenario_text};
 
-/// The recovery file's name inside the state folder.
-pub const FILE_NAME: &str = "unsaved-work.ron";
+/// Environment variable naming another folder for the recovery file.
+pub const STATE_DIR_ENV: &str = "TAUTSPAN_STATE_DIR";
 
-/// How often unsaved work is written while it keeps changing.
+/// How often unsaved work is written, at most.
 pub const INTERVAL: Duration = Duration::from_secs(3);
 
-/// The first line of a recovery file; the original path (or `untitled`)
-/// follows it.
-const HEADER: &str = "// Tautspan recovery of unsaved work from: ";
+/// The recovery file's name.
+const FILE_NAME: &str = "unsaved-scenario.ron";
 
-/// The environment variable that moves the state folder (tests, or a
-/// machine whose home is read-only).
-pub const STATE_DIR_VAR: &str = "TAUTSPAN_STATE_DIR";
+/// The comment line naming the file the work came from.
+const ORIGIN: &str = "// recovered from: ";
 
-/// The platform's state folder for the app: `TAUTSPAN_STATE_DIR` when set,
-/// else the `directories` crate's state folder (Linux), else its local data
-/// folder (other platforms).
-pub fn state_dir() -> Option<PathBuf> {
-    if let Some(d) = std::env::var_os(STATE_DIR_VAR).filter(|d| !d.is_empty()) {
-        return Some(PathBuf::from(d));
+/// Where the recovery file lives: `$TAUTSPAN_STATE_DIR`, else the
+/// platform's state folder for the app (its local data folder where the
+/// platform has no state folder).
+pub fn default_file() -> Option<PathBuf> {
+    if let Some(d) = std::env::var_os(STATE_DIR_ENV).filter(|d| !d.is_empty()) {
+        return Some(PathBuf::from(d).join(FILE_NAME));
     }
     let dirs = directories::ProjectDirs::from("", "", "Tautspan")?;
-    Some(dirs.state_dir().unwrap_or_else(|| dirs.data_local_dir()).to_path_buf())
+    let dir = dirs.state_dir().unwrap_or_else(|| dirs.data_local_dir());
+    Some(dir.join(FILE_NAME))
 }
 
-/// Unsaved work found at start.
-#[derive(Debug, Clone)]
-pub struct Found {
-    /// The file the work belonged to (`None`: never saved).
-    pub original: Option<PathBuf>,
+/// Work found in a recovery file.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Recovered {
     /// The scenario as it was last written.
     pub dto: ScenarioDto,
-    /// When it was written.
-    pub written: Option<SystemTime>,
-    /// The recovery file itself.
-    pub file: PathBuf,
+    /// The file it came from, if it had one.
+    pub origin: Option<PathBuf>,
 }
 
-/// Look for unsaved work in `dir`. A recovery file that no longer reads is
-/// reported as an error with its path (never silently dropped).
-pub fn find(dir: &Path) -> Result<Option<Found>, String> {
-    let file = dir.join(FILE_NAME);
-    let text = match std::fs::read_to_string(&file) {
-        Ok(t) => t,
-        Err(e) if e.kind() == std::io::ErrorKind::NotFound => return Ok(None),
-        Err(e) => return Err(format!("{}: cannot read the recovery file: {e}", file.display())),
-    };
-    let original = text
-        .lines()
-        .next()
-        .and_then(|l| l.strip_prefix(HEADER))
-        .map(str::trim)
-        .filter(|p| !p.is_empty() && *p != "untitled")
-        .map(PathBuf::from);
-    let dto = tautspan_core::file::parse_scenario_text(&text)
-        .map(|(d, _)| d)
-        .map_err(|e| format!("{}: the recovery file does not read: {e}", file.display()))?;
-    let written = std::fs::metadata(&file).and_then(|m| m.modified()).ok();
-    Ok(Some(Found { original, dto, written, file }))
+/// The recovery file's text: a header, the origin, the scenario.
+pub fn text_of(dto: &ScenarioDto, origin: Option<&Path>) -> Result<String, String> {
+    let body = write_scenario_text(dto).map_err(|e| e.to_string())?;
+    let origin = origin.map_or_else(|| "(not saved yet)".to_string(), |p| p.display().to_string());
+    Ok(format!("// Tautspan: unsaved work, kept in case the app stops unexpectedly\n{ORIGIN}{origin}\n{body}"))
 }
 
-/// The recovery file's text for a scenario.
-pub fn text_of(original: Option<&Path>, dto: &ScenarioDto) -> Result<String, String> {
-    let body = write_scenario_text(dto).map_err(|e| format!("cannot write the recovery copy: {e}"))?;
-    let from = original.map_or_else(|| "untitled".to_string(), |p| p.display().to_string());
-    Ok(format!("{HEADER}{from}\n{body}"))
+/// Read a recovery file: `None` when there is none; an error in words when
+/// it cannot be read back.
+pub fn read(file: &Path) -> Option<Result<Recovered, String>> {
+    let text = std::fs::read_to_string(file).ok()?;
+    let origin = text.lines().find_map(|l| l.strip_prefix(ORIGIN)).filter(|o| !o.starts_with('(')).map(PathBuf::from);
+    Some(
+        tautspan_core::model::load_scenario(&text)
+            .map(|l| Recovered { dto: l.dto, origin })
+            .map_err(|e| format!("the unsaved work found in {} cannot be read back: {e}", file.display())),
+    )
 }
 
+/// A job for the writer thread. One thread does them in order, so a
+/// removal is never overtaken by an earlier write.
 enum Job {
-    Write { original: Option<PathBuf>, dto: Arc<ScenarioDto> },
-    Remove,
+    Write { file: PathBuf, dto: Arc<ScenarioDto>, origin: Option<PathBuf> },
+    Remove(PathBuf),
 }
 
-/// The recovery writer of one app.
+/// The writer thread: serialising and syncing a large rig takes longer than
+/// a frame, so it is done off the UI thread.
+struct Writer {
+    jobs: Sender<Job>,
+    done: Receiver<Result<(), String>>,
+    pending: usize,
+}
+
+impl Writer {
+    fn start() -> Option<Writer> {
+        let (jobs, rx) = channel::<Job>();
+        let (tx, done) = channel();
+        std::thread::Builder::new()
+            .name("tautspan-recovery".into())
+            .spawn(move || {
+                for job in rx {
+                    let result = match job {
+                        Job::Write { file, dto, origin } => write_copy(&file, &dto, origin.as_deref()),
+                        Job::Remove(file) => {
+                            let _ = std::fs::remove_file(file);
+                            Ok(())
+                        }
+                    };
+                    if tx.send(result).is_err() {
+                        break;
+                    }
+                }
+            })
+            .ok()?;
+        Some(Writer { jobs, done, pending: 0 })
+    }
+
+    fn send(&mut self, job: Job) {
+        if self.jobs.send(job).is_ok() {
+            self.pending += 1;
+        }
+    }
+
+    /// The first error among the jobs finished so far.
+    fn finished(&mut self) -> Result<(), String> {
+        let mut first = Ok(());
+        while let Ok(r) = self.done.try_recv() {
+            self.pending = self.pending.saturating_sub(1);
+            if first.is_ok() {
+                first = r;
+            }
+        }
+        first
+    }
+
+    /// Wait until every job sent is done.
+    fn idle(&mut self) -> Result<(), String> {
+        let mut first = Ok(());
+        while self.pending > 0 {
+            let Ok(r) = self.done.recv() else { break };
+            self.pending -= 1;
+            if first.is_ok() {
+                first = r;
+            }
+        }
+        first
+    }
+}
+
+fn write_copy(file: &Path, dto: &ScenarioDto, origin: Option<&Path>) -> Result<(), String> {
+    let text = text_of(dto, origin)?;
+    if let Some(dir) = file.parent() {
+        std::fs::create_dir_all(dir).map_err(|e| format!("{}: {e}", dir.display()))?;
+    }
+    write_atomic(file, &text).map_err(|e| format!("{}: {e}", file.display()))
+}
+
+/// The recovery copy of one app: what was written last and when.
+#[derive(Default)]
 pub struct Recovery {
-    dir: Option<PathBuf>,
-    /// How often a changing document is written.
-    pub interval: Duration,
-    written: Option<(u64, Instant)>,
-    exists: bool,
-    jobs: Option<Sender<Job>>,
+    /// The recovery file; `None`: recovery off (tests, no state folder).
+    pub file: Option<PathBuf>,
+    /// Work found at start, offered back until restored or discarded.
+    pub offer: Option<Result<Recovered, String>>,
+    written: Option<u64>,
+    last_write: Option<Instant>,
+    writer: Option<Writer>,
 }
 
-impl Default for Recovery {
-    /// No recovery (tests and the bench drive the app without one).
-    fn default() -> Recovery {
-        Recovery { dir: None, interval: INTERVAL, written: None, exists: false, jobs: None }
+impl std::fmt::Debug for Recovery {
+    fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
+        f.debug_struct("Recovery").field("file", &self.file).field("written", &self.written).finish_non_exhaustive()
     }
 }
 
 impl Recovery {
-    /// Recovery into `dir`.
-    pub fn into_dir(dir: PathBuf) -> Recovery {
-        Recovery { dir: Some(dir), ..Recovery::default() }
-    }
-
-    /// The folder written to, if any.
-    pub fn dir(&self) -> Option<&Path> {
-        self.dir.as_deref()
+    /// Recovery into `file`, with whatever work it holds offered back.
+    pub fn at(file: Option<PathBuf>) -> Recovery {
+        let offer = file.as_deref().and_then(read);
+        Recovery { file, offer, ..Recovery::default() }
     }
 
     fn send(&mut self, job: Job) {
-        let Some(dir) = self.dir.clone() else { return };
-        if self.jobs.is_none() {
-            let (tx, rx) = channel::<Job>();
-            let spawned = std::thread::Builder::new().name("tautspan-recovery".into()).spawn(move || {
-                let file = dir.join(FILE_NAME);
-                for job in rx {
-                    match job {
-                        Job::Write { original, dto } => {
-                            if let Ok(text) = text_of(original.as_deref(), &dto) {
-                                let _ = std::fs::create_dir_all(&dir);
-                                let _ = super::write_atomic(&file, &text);
-                            }
-                        }
-                        Job::Remove => {
-                            let _ = std::fs::remove_file(&file);
-                        }
-                    }
+        if self.writer.is_none() {
+            self.writer = Writer::start();
+        }
+        match &mut self.writer {
+            Some(w) => w.send(job),
+            // no thread to be had: do it here
+            None => match job {
+                Job::Write { file, dto, origin } => {
+                    let _ = write_copy(&file, &dto, origin.as_deref());
                 }
-            });
-            if spawned.is_err() {
-                return;
-            }
-            self.jobs = Some(tx);
-        }
-        if let Some(tx) = &self.jobs {
-            let _ = tx.send(job);
+                Job::Remove(file) => {
+                    let _ = std::fs::remove_file(file);
+                }
+            },
         }
     }
 
-    /// Called every frame: write the document when it has unsaved changes
-    /// that are not yet in the recovery file and the interval has passed;
-    /// remove the file once nothing is unsaved.
-    pub fn tick(&mut self, dirty: bool, revision: u64, original: Option<&Path>, dto: &Arc<ScenarioDto>) {
-        if self.dir.is_none() {
-            return;
+    /// Called every frame: have the document written when it has unsaved
+    /// changes not yet written and the last write is `INTERVAL` old; have
+    /// the file removed once the document is clean. Returns how long until
+    /// a write is due (for a repaint then), or an error in words when an
+    /// earlier write failed.
+    pub fn tick(&mut self, doc: &Document) -> Result<Option<Duration>, String> {
+        if let Some(w) = &mut self.writer {
+            w.finished()?;
         }
-        if !dirty {
-            if self.exists {
-                self.send(Job::Remove);
-                self.exists = false;
-                self.written = None;
+        // while work is offered back, its file is left as it is
+        let (Some(file), None) = (self.file.clone(), &self.offer) else { return Ok(None) };
+        if !doc.dirty {
+            if self.written.take().is_some() {
+                self.send(Job::Remove(file));
             }
-            return;
+            return Ok(None);
         }
-        let due = match self.written {
-            None => true,
-            Some((rev, at)) => rev != revision && at.elapsed() >= self.interval,
-        };
-        if due {
-            self.send(Job::Write { original: original.map(Path::to_path_buf), dto: dto.clone() });
-            self.written = Some((revision, Instant::now()));
-            self.exists = true;
+        if self.written == Some(doc.revision) {
+            return Ok(None);
         }
+        if let Some(t) = self.last_write {
+            let age = t.elapsed();
+            if age < INTERVAL {
+                return Ok(Some(INTERVAL - age));
+            }
+        }
+        self.last_write = Some(Instant::now());
+        self.written = Some(doc.revision);
+        self.send(Job::Write { file, dto: doc.dto.clone(), origin: doc.path.clone() });
+        Ok(None)
     }
 
-    /// The work is saved elsewhere or deliberately dropped: remove the file.
-    pub fn discard(&mut self) {
-        if let Some(dir) = &self.dir {
-            let _ = std::fs::remove_file(dir.join(FILE_NAME));
-        }
-        self.exists = false;
+    /// Wait for the writes asked for so far; their first error.
+    pub fn flush(&mut self) -> Result<(), String> {
+        self.writer.as_mut().map_or(Ok(()), Writer::idle)
+    }
+
+    /// Remove the recovery file (work saved, discarded, or the app closed by
+    /// choice), after any write still under way.
+    pub fn clear(&mut self) {
+        let _ = self.flush();
+        self.offer = None;
         self.written = None;
+        if let Some(f) = &self.file {
+            let _ = std::fs::remove_file(f);
+        }
     }
 }
 
@@ -186,36 +241,43 @@ impl Recovery {
 mod tests {
     use super::*;
 
-    fn scratch(name: &str) -> PathBuf {
-        let d = std::env::temp_dir().join(format!("tautspan-recovery-{name}-{}", std::process::id()));
-        let _ = std::fs::remove_dir_all(&d);
-        d
-    }
-
     #[test]
-    fn text_round_trips_with_its_original_path() {
-        let dto = tautspan_core::file::parse_scenario_text(crate::DEMO_SCENARIO).map(|(d, _)| d).unwrap_or_default();
-        let dir = scratch("round");
-        let _ = std::fs::create_dir_all(&dir);
-        let text = text_of(Some(Path::new("/jobs/yard/hoist.ron")), &dto).unwrap_or_default();
-        assert!(super::super::write_atomic(&dir.join(FILE_NAME), &text).is_ok());
-        let found = find(&dir).ok().flatten();
-        assert!(found.is_some());
-        if let Some(f) = found {
-            assert_eq!(f.original.as_deref(), Some(Path::new("/jobs/yard/hoist.ron")));
-            assert_eq!(f.dto, dto);
-        }
+    fn the_text_reads_back_with_its_origin() {
+        let loaded = tautspan_core::model::load_scenario(crate::DEMO_SCENARIO).unwrap_or_else(|e| panic!("{e}"));
+        let dir = std::env::temp_dir().join(format!("tautspan-recovery-unit-{}", std::process::id()));
+        std::fs::create_dir_all(&dir).unwrap_or_else(|e| panic!("{e}"));
+        let file = dir.join(FILE_NAME);
+        let origin = Path::new("/jobs/gantry.ron");
+        std::fs::write(&file, text_of(&loaded.dto, Some(origin)).unwrap_or_default()).unwrap_or_else(|e| panic!("{e}"));
+        let back = read(&file).unwrap_or_else(|| panic!("found")).unwrap_or_else(|e| panic!("{e}"));
+        assert_eq!(back.dto, loaded.dto);
+        assert_eq!(back.origin.as_deref(), Some(origin));
+        std::fs::write(&file, text_of(&loaded.dto, None).unwrap_or_default()).unwrap_or_else(|e| panic!("{e}"));
+        assert_eq!(read(&file).and_then(Result::ok).and_then(|r| r.origin), None, "not saved yet: no origin");
         let _ = std::fs::remove_dir_all(&dir);
     }
 
     #[test]
-    fn nothing_found_is_none_and_a_broken_file_is_an_error_naming_it() {
-        let dir = scratch("broken");
-        assert!(matches!(find(&dir), Ok(None)));
-        let _ = std::fs::create_dir_all(&dir);
-        let _ = std::fs::write(dir.join(FILE_NAME), "Scenario(format: ");
-        let e = find(&dir).err().unwrap_or_default();
-        assert!(e.contains(FILE_NAME) && e.contains("does not read"), "{e}");
+    fn unsaved_work_is_written_then_removed_once_saved() {
+        let dir = std::env::temp_dir().join(format!("tautspan-recovery-tick-{}", std::process::id()));
+        let file = dir.join(FILE_NAME);
+        let _ = std::fs::remove_dir_all(&dir);
+        let mut r = Recovery::at(Some(file.clone()));
+        assert!(r.offer.is_none());
+        let mut doc = Document::new(crate::document::blank_scenario(), None);
+        assert_eq!(r.tick(&doc), Ok(None));
+        assert!(!file.exists(), "nothing unsaved, nothing written");
+        doc.edit(None, |d| d.title = "edited".to_string());
+        assert_eq!(r.tick(&doc), Ok(None));
+        assert_eq!(r.flush(), Ok(()), "written on the writer thread");
+        let back = read(&file).and_then(Result::ok).map(|r| r.dto.title);
+        assert_eq!(back.as_deref(), Some("edited"));
+        doc.edit(None, |d| d.title = "again".to_string());
+        assert!(matches!(r.tick(&doc), Ok(Some(_))), "the next write waits for the interval");
+        doc.dirty = false;
+        assert_eq!(r.tick(&doc), Ok(None));
+        assert_eq!(r.flush(), Ok(()));
+        assert!(!file.exists(), "clean again: removed");
         let _ = std::fs::remove_dir_all(&dir);
     }
 }

@@ -10,9 +10,11 @@ use crate::document::rename::IdKind;
 use crate::fields::id_field;
 use crate::fields::qty_field::{FieldBuffers, QtyField};
 use crate::fields::units_display::{Shown, UnitSystem};
+use crate::panels::warning_severity::{NEAR_AMBER, OVER_RED, UNCHECKED_VIOLET};
 use egui::{RichText, Ui};
+use tautspan_core::analysis::{CaseResult, State};
 use tautspan_core::file::{CaseDto, Qty, ScenarioDto};
-use tautspan_core::units::{Dimension, Sign, parse_quantity};
+use tautspan_core::units::{Dimension, Sign};
 
 fn kind_of(c: &CaseDto) -> &'static str {
     match c {
@@ -21,6 +23,43 @@ fn kind_of(c: &CaseDto) -> &'static str {
         CaseDto::Drop { .. } => "drop",
         CaseDto::Sudden { .. } => "sudden",
     }
+}
+
+/// A case's line beside its name: the largest utilisation of every member,
+/// floor and rated part in it ("max 34 %"), and its worst state: over where
+/// anything is over, else unchecked where anything is, else near; "not
+/// solved" where the case failed.
+pub fn summary(r: &CaseResult) -> (String, Option<State>) {
+    if r.error.is_some() || !r.converged {
+        return ("not solved".to_string(), Some(State::Over));
+    }
+    let items = r
+        .members
+        .iter()
+        .map(|m| (m.utilisation, m.state))
+        .chain(r.floors.iter().map(|f| (f.utilisation, f.state)))
+        .chain(r.parts().map(|p| (p.utilisation, p.state)));
+    let (mut max, mut worst) = (0.0_f64, None);
+    for (u, st) in items {
+        if u.is_finite() {
+            max = max.max(u);
+        }
+        let rank = |s: Option<State>| match s {
+            Some(State::Over) => 3,
+            Some(State::Unchecked) => 2,
+            Some(State::Near) => 1,
+            _ => 0,
+        };
+        if rank(Some(st)) > rank(worst) {
+            worst = Some(st);
+        }
+    }
+    let text = match worst {
+        Some(State::Over) => format!("OVER, max {:.0} %", max * 100.0),
+        Some(State::Unchecked) => format!("UNCHECKED items, max {:.0} %", max * 100.0),
+        _ => format!("max {:.0} %", max * 100.0),
+    };
+    (text, worst)
 }
 
 /// Draw the cases panel.
@@ -40,14 +79,7 @@ pub fn ui(
         ui.push_id(("case", i), |ui| {
             ui.horizontal(|ui| {
                 let id = c.id().to_string();
-                let state = derived.case(Some(&id)).filter(|r| r.id == id).map(|r| {
-                    let worst = r.members.iter().map(|m| m.utilisation).fold(0.0, f64::max);
-                    if r.error.is_some() || !r.converged {
-                        "not solved".to_string()
-                    } else {
-                        format!("max {:.0} %", worst * 100.0)
-                    }
-                });
+                let state = derived.case(Some(&id)).filter(|r| r.id == id).map(summary);
                 if ui
                     .selectable_label(shown == Some(id.as_str()), format!("{id} ({})", kind_of(c)))
                     .on_hover_text("Show this case on the canvas")
@@ -55,8 +87,14 @@ pub fn ui(
                 {
                     out.push(Command::ShowCase(id.clone()));
                 }
-                if let Some(s) = state {
-                    ui.label(RichText::new(s).small().weak());
+                if let Some((text, st)) = state {
+                    let t = RichText::new(text).small();
+                    ui.label(match st {
+                        Some(State::Over) => t.strong().color(OVER_RED),
+                        Some(State::Unchecked) => t.strong().color(UNCHECKED_VIOLET),
+                        Some(State::Near) => t.color(NEAR_AMBER),
+                        _ => t.weak(),
+                    });
                 }
                 if ui.small_button("Remove").on_hover_text(format!("Remove case {id}")).clicked() {
                     out.push(Command::edit(move |d| d.cases.retain(|c| c.id() != id)));
@@ -142,22 +180,29 @@ fn case_fields(
         }
         match c {
             CaseDto::Swing { release, .. } => {
-                let l = ui.label("Release angle");
-                let now = parse_quantity(&release.0, Dimension::Angle, Sign::NonNegative).map_or(0.0, f64::to_degrees);
-                let mut deg = now;
-                let r = ui.add(egui::Slider::new(&mut deg, 0.0..=90.0).suffix("°").max_decimals(1)).labelled_by(l.id);
-                if r.changed() && (deg - now).abs() > 1e-9 {
-                    let q = Qty(format!("{} deg", tautspan_core::units::format_number(deg, 4)));
-                    out.push(Command::edit_merged(format!("cases[{i}].release"), move |d| {
-                        if let Some(CaseDto::Swing { release, .. }) = d.cases.get_mut(i) {
+                // typed, not a slider: a value out of range (200 deg) reaches
+                // the core, which says why it is not a swing, instead of being
+                // clamped without a word
+                QtyField {
+                    label: "Release angle",
+                    path: format!("cases[{i}].release"),
+                    current: Some(release),
+                    dimension: Dimension::Angle,
+                    sign: Sign::NonNegative,
+                    optional: false,
+                    hint: "e.g. 30 deg",
+                }
+                .show(
+                    ui,
+                    bufs,
+                    derived,
+                    out,
+                    Box::new(move |d, q| {
+                        if let (Some(CaseDto::Swing { release, .. }), Some(q)) = (d.cases.get_mut(i), q) {
                             *release = q;
                         }
-                    }));
-                }
-                if r.drag_stopped() {
-                    out.push(Command::SealUndo);
-                }
-                ui.end_row();
+                    }),
+                );
                 let azimuth = match c {
                     CaseDto::Swing { azimuth, .. } => azimuth.as_ref(),
                     _ => None,

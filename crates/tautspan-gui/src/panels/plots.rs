@@ -1,8 +1,11 @@
 //! Plots: the selected member's peak force over the swing's arc
-//! against release angle, with its allowable and the largest release angle
-//! inside it marked; and its time history from the core's simulation. Both
-//! run on worker threads (progress shown, the simulation can be cancelled),
-//! so the UI never waits on them.
+//! against release angle, with its allowable, the case's own release angle
+//! and the largest release angle inside the allowable drawn as lines, tick
+//! labels on both axes and the key above the plot, off the curve; and its
+//! time history from the core's simulation, of the dynamic case shown (the
+//! first dynamic case while a static one is shown). Both run on worker
+//! threads (progress shown, the simulation can be cancelled), so the UI
+//! never waits on them.
 
 use crate::document::Document;
 use crate::document::core_bridge::{CurvePoint, simulate, swing_curve};
@@ -10,7 +13,8 @@ use crate::document::derived::Derived;
 use crate::document::selection::Selection;
 use crate::fields::units_display::{Shown, UnitSystem};
 use egui::{Color32, RichText, Ui};
-use egui_plot::{HLine, Legend, Line, LineStyle, Plot, VLine};
+use egui_plot::{GridMark, HLine, Line, LineStyle, Plot, VLine};
+use std::ops::RangeInclusive;
 use std::sync::Arc;
 use std::sync::atomic::{AtomicBool, AtomicU32, Ordering};
 use std::sync::mpsc::{Receiver, TryRecvError, channel};
@@ -44,6 +48,59 @@ pub struct Plots {
 impl std::fmt::Debug for Plots {
     fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
         f.debug_struct("Plots").field("curve_cached", &self.curve.is_some()).finish()
+    }
+}
+
+/// Colour of the member's force.
+const CURVE: Color32 = Color32::from_rgb(0x2a, 0x7a, 0xd8);
+/// Colour of the allowable.
+const ALLOWABLE: Color32 = Color32::from_rgb(0xb0, 0x3a, 0x2e);
+/// Colour of the largest release inside the allowable.
+const LIMIT: Color32 = Color32::from_rgb(0xd1, 0x93, 0x2a);
+/// Colour of the case's own release angle.
+const CASE_ANGLE: Color32 = Color32::from_rgb(0x3c, 0x8c, 0x4a);
+
+/// A tick label on the release-angle axis: whole degrees.
+pub fn angle_tick(mark: GridMark, _range: &RangeInclusive<f64>) -> String {
+    format!("{:.0}°", mark.value)
+}
+
+/// A tick label on a force axis: the number in the display unit, as many
+/// decimals as the step between ticks needs.
+pub fn force_tick(mark: GridMark, _range: &RangeInclusive<f64>) -> String {
+    let decimals = if mark.step_size >= 1.0 { 0 } else { (-mark.step_size.log10()).ceil() as usize };
+    let v = if mark.value.abs() < mark.step_size * 1e-6 { 0.0 } else { mark.value };
+    format!("{v:.decimals$}")
+}
+
+/// The key of a plot, above it: one coloured entry per line.
+fn plot_key(ui: &mut Ui, entries: &[(Color32, String)]) {
+    ui.horizontal_wrapped(|ui| {
+        for (c, text) in entries {
+            let (r, _) = ui.allocate_exact_size(egui::vec2(16.0, 10.0), egui::Sense::hover());
+            ui.painter().line_segment([r.left_center(), r.right_center()], egui::Stroke::new(2.5, *c));
+            ui.label(RichText::new(text).color(*c).small());
+        }
+    });
+}
+
+/// The case a time history runs: the case shown when it is dynamic, else
+/// the first dynamic case (a static case has no history to run).
+pub fn history_case<'a>(doc: &'a Document, shown: Option<&str>) -> Option<&'a CaseDto> {
+    let dynamic = || doc.dto.cases.iter().filter(|c| !matches!(c, CaseDto::Static { .. }));
+    dynamic().find(|c| Some(c.id()) == shown).or_else(|| dynamic().next())
+}
+
+/// What to say over a finished run: `None` when it is of the case and the
+/// results shown; else that the scenario changed (another revision), or
+/// that the run is of another case.
+pub fn run_note(run: &(u64, String), now: &(u64, String)) -> Option<String> {
+    if run.0 != now.0 {
+        Some("The scenario changed since this run; run it again.".to_string())
+    } else if run.1 != now.1 {
+        Some(format!("This run is of case {}; run again for case {}.", run.1, now.1))
+    } else {
+        None
     }
 }
 
@@ -150,27 +207,51 @@ impl Plots {
             .as_ref()
             .and_then(|s| s.analysis.comparison.iter().find(|r| r.id == member))
             .and_then(|r| r.limits.release_deg);
+        // the case's own release angle, as the core swept it
+        let own = derived
+            .solved
+            .as_ref()
+            .and_then(|s| s.analysis.cases.iter().find(|c| c.id == case.id()))
+            .and_then(|c| c.arc.as_ref())
+            .map(|a| a.release_deg);
         let pts: Vec<[f64; 2]> = points.iter().map(|p| [p.release_deg, units.value(p.force_n, Shown::Force)]).collect();
         let unit = units.unit(Shown::Force);
+        let mut entries = vec![(CURVE, "peak force over the arc".to_string())];
+        if let Some(a) = allowable {
+            entries.push((ALLOWABLE, format!("allowable {}", units.fmt(a, Shown::Force))));
+        }
+        if let Some(d) = own {
+            entries.push((CASE_ANGLE, format!("case {}: release {d:.1}°", case.id())));
+        }
+        if let Some(d) = limit {
+            entries.push((LIMIT, format!("largest release inside the allowable {d:.1}°")));
+        }
+        plot_key(ui, &entries);
         Plot::new("swing-curve")
-            .legend(Legend::default())
             .x_axis_label("release angle from vertical (deg)")
             .y_axis_label(format!("force ({unit})"))
+            .show_axes([true, true])
+            .x_axis_formatter(angle_tick)
+            .y_axis_formatter(force_tick)
+            .y_axis_min_width(44.0)
+            .include_x(0.0)
+            .include_x(90.0)
+            .include_y(0.0)
             .height(ui.available_height().max(120.0))
             .show(ui, |p| {
-                p.line(Line::new("peak over the arc", pts).color(Color32::from_rgb(0x2a, 0x7a, 0xd8)).width(2.0));
+                p.line(Line::new("peak force over the arc", pts).color(CURVE).width(2.0));
                 if let Some(a) = allowable {
                     p.hline(
                         HLine::new("allowable", units.value(a, Shown::Force))
-                            .color(Color32::from_rgb(0xb0, 0x3a, 0x2e))
+                            .color(ALLOWABLE)
                             .style(LineStyle::dashed_loose()),
                     );
                 }
+                if let Some(d) = own {
+                    p.vline(VLine::new("case release", d).color(CASE_ANGLE).style(LineStyle::dashed_dense()));
+                }
                 if let Some(d) = limit {
-                    p.vline(
-                        VLine::new(format!("largest release inside allowable {d:.1}°"), d)
-                            .color(Color32::from_rgb(0xd1, 0x93, 0x2a)),
-                    );
+                    p.vline(VLine::new("largest release inside the allowable", d).color(LIMIT));
                 }
             });
     }
@@ -186,10 +267,13 @@ impl Plots {
         allowable: Option<f64>,
         units: UnitSystem,
     ) {
-        ui.label(RichText::new(format!("{member}: time history of case {}", shown.unwrap_or("(first)"))).strong());
+        let Some(case) = history_case(doc, shown) else {
+            ui.label("Add a swing, drop or sudden case to run a time history.");
+            return;
+        };
+        let case_id = case.id().to_string();
+        ui.label(RichText::new(format!("{member}: time history of case {case_id}")).strong());
         let Some(solved) = derived.solved.as_ref() else { return };
-        let case_id =
-            shown.map(str::to_string).or_else(|| doc.dto.cases.first().map(|c| c.id().to_string())).unwrap_or_default();
         let key = (derived.revision, case_id.clone());
         if let Some(job) = &self.sim_job
             && let Ok(r) = job.rx.try_recv()
@@ -225,8 +309,8 @@ impl Plots {
             }
         });
         let Some((k, result)) = &self.sim else { return };
-        if *k != key {
-            ui.label(RichText::new("The scenario changed since this run; run it again.").small().weak());
+        if let Some(note) = run_note(k, &key) {
+            ui.label(RichText::new(note).small().weak());
         }
         match result {
             Err(e) => {
@@ -252,22 +336,55 @@ impl Plots {
                     sim.energy_drift * 100.0,
                     if sim.cancelled { " (cancelled early)" } else { "" }
                 ));
+                let mut entries = vec![(CURVE, format!("member force, case {}", k.1))];
+                if let Some(a) = allowable {
+                    entries.push((ALLOWABLE, format!("allowable {}", units.fmt(a, Shown::Force))));
+                }
+                plot_key(ui, &entries);
                 Plot::new("time-history")
-                    .legend(Legend::default())
                     .x_axis_label("time (s)")
                     .y_axis_label(format!("force ({})", units.unit(Shown::Force)))
+                    .show_axes([true, true])
+                    .y_axis_formatter(force_tick)
+                    .y_axis_min_width(44.0)
+                    .include_y(0.0)
                     .height(ui.available_height().max(120.0))
                     .show(ui, |p| {
-                        p.line(Line::new("member force", pts).color(Color32::from_rgb(0x2a, 0x7a, 0xd8)));
+                        p.line(Line::new("member force", pts).color(CURVE));
                         if let Some(a) = allowable {
                             p.hline(
                                 HLine::new("allowable", units.value(a, Shown::Force))
-                                    .color(Color32::from_rgb(0xb0, 0x3a, 0x2e))
+                                    .color(ALLOWABLE)
                                     .style(LineStyle::dashed_loose()),
                             );
                         }
                     });
             }
         }
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn a_run_is_stale_only_when_the_scenario_changed() {
+        let run = (4, "swing-25".to_string());
+        assert_eq!(run_note(&run, &(4, "swing-25".to_string())), None);
+        let other_case = run_note(&run, &(4, "snatch-20mm".to_string())).unwrap_or_default();
+        assert!(other_case.contains("of case swing-25") && !other_case.contains("changed"), "{other_case}");
+        let changed = run_note(&run, &(5, "swing-25".to_string())).unwrap_or_default();
+        assert!(changed.contains("scenario changed"), "{changed}");
+    }
+
+    #[test]
+    fn tick_labels_read_as_numbers() {
+        let mark = |value, step_size| GridMark { value, step_size };
+        assert_eq!(angle_tick(mark(30.0, 10.0), &(0.0..=90.0)), "30°");
+        assert_eq!(force_tick(mark(12.0, 2.0), &(0.0..=20.0)), "12");
+        assert_eq!(force_tick(mark(0.25, 0.05), &(0.0..=1.0)), "0.25");
+        // a tick a hair off zero from the spacing's arithmetic reads 0
+        assert_eq!(force_tick(mark(-1e-17, 0.5), &(0.0..=5.0)), "0.0");
     }
 }

@@ -82,6 +82,8 @@ pub fn ui(ui: &mut Ui, input: ToolbarInput<'_>, out: &mut Vec<Command>) {
         }
         ui.separator();
         ui.checkbox(&mut input.prefs.hide_labels, "Hide force labels");
+        ui.checkbox(&mut input.prefs.worst_case_colours, "Worst case colours")
+            .on_hover_text("Colour each member by its largest utilisation over all cases, not the case shown");
     });
     // wraps in a narrow window, so the caution below keeps the full width
     ui.horizontal_wrapped(|ui| {

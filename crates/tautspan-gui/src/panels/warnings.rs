@@ -1,5 +1,7 @@
 //! The warnings list: the scenario's own warnings and each case's, with the
-//! member (or floor, node) they concern; a click selects it. Validation
+//! member (or floor, node) they concern; a click selects it. Most serious
+//! first (over, slack, unchecked, near, then advisories in quieter type;
+//! `warning_severity.rs`), with the counts of each above. Validation
 //! problems are listed here too while the scenario does not validate.
 
 use crate::document::Document;
@@ -7,6 +9,7 @@ use crate::document::command::Command;
 use crate::document::derived::Derived;
 use crate::document::selection::Selection;
 use crate::fields::qty_field::ERROR;
+use crate::panels::warning_severity::{Severity, by_severity, counts};
 use egui::{RichText, Ui};
 
 /// Warning groups listed before the rest are offered behind a button.
@@ -72,13 +75,22 @@ pub fn ui(ui: &mut Ui, doc: &Document, derived: &Derived, out: &mut Vec<Command>
         ui.label(RichText::new("None.").weak());
         return;
     }
+    let summary: Vec<String> = counts(groups).iter().map(|(s, n)| format!("{n} {}", s.summary_words(*n))).collect();
+    ui.label(RichText::new(summary.join(" · ")).strong());
     let show_all_id = ui.scope_id().with("show-all-warnings");
     let show_all = ui.data(|d| d.get_temp::<bool>(show_all_id)).unwrap_or(false);
     let shown = if show_all { total } else { total.min(SHOWN_FIRST) };
-    for (case, g) in groups.iter().take(shown) {
+    for (severity, (case, g)) in by_severity(groups).into_iter().take(shown) {
         let text = match case {
-            Some(c) => format!("[{c}] {}", g.message),
-            None => g.message.clone(),
+            Some(c) => format!("{} [{c}] {}", severity.mark(), g.message),
+            None => format!("{} {}", severity.mark(), g.message),
+        };
+        let text = match severity.colour() {
+            Some(c) if severity == Severity::Over || severity == Severity::Slack => {
+                RichText::new(text).color(c).strong()
+            }
+            Some(c) => RichText::new(text).color(c),
+            None => RichText::new(text).weak().small(),
         };
         if ui.link(text).clicked() {
             if let Some(sel) = g.subjects.first().map(|s| subject_selection(doc, s))

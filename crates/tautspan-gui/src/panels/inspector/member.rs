@@ -8,11 +8,35 @@ use super::input::{InspectorInput, item_problems};
 use super::line::Line;
 use crate::document::command::Command;
 use crate::fields::qty_field::{FieldBuffers, QtyField};
-use crate::fields::units_display::{Shown, fmt_utilisation};
+use crate::fields::units_display::{Shown, UnitSystem, fmt_utilisation};
 use egui::{RichText, Ui};
 use tautspan_core::file::{MemberDto, Qty, RatingDto, SectionDto};
 use tautspan_core::library::{ChainGrade, Construction, Material, MemberKind, ROPE_GRADES};
-use tautspan_core::units::{Dimension, Sign};
+use tautspan_core::units::{Dimension, Sign, format_quantity, parse_quantity};
+
+/// A grid row under a field: what it holds in the unit system shown.
+fn equivalent(ui: &mut Ui, text: String) {
+    ui.label("");
+    ui.label(RichText::new(text).small().weak());
+    ui.end_row();
+}
+
+/// A size as typed, also in the unit system shown ("12 mm" → "= 0.4724 in"
+/// in US customary, "0.5 in" → "= 12.7 mm" in SI); `None` when it is written
+/// in that unit already or does not parse.
+pub fn size_in(units: UnitSystem, typed: &str) -> Option<String> {
+    let si = parse_quantity(typed, Dimension::Length, Sign::Positive).ok()?;
+    let shown = units.fmt(si, Shown::SmallLength);
+    let unit = shown.rsplit(' ').next().unwrap_or_default();
+    (!typed.trim().ends_with(unit)).then(|| format!("= {shown}"))
+}
+
+/// A rope grade (N/mm², as the library lists it) in ksi for US customary.
+pub fn grade_in(units: UnitSystem, grade: &str) -> Option<String> {
+    let n_per_mm2: f64 = grade.trim().parse().ok()?;
+    (units == UnitSystem::UsCustomary)
+        .then(|| format!("= {}", format_quantity(n_per_mm2 * 1e6, Dimension::Pressure, "ksi", 4)))
+}
 
 fn picker(
     ui: &mut Ui,
@@ -144,6 +168,9 @@ pub fn size_fields(
         hint: input.units.unit(Shown::SmallLength),
     }
     .show(ui, bufs, input.derived, out, Box::new(move |d, q| line.edit(d, |m| *m.diameter = q)));
+    if let Some(text) = m.diameter.as_ref().and_then(|d| size_in(input.units, &d.0)) {
+        equivalent(ui, text);
+    }
     QtyField {
         label: "Area",
         path: line.path("area"),
@@ -175,6 +202,9 @@ pub fn library_fields(
         let grades: Vec<&str> = grades.iter().map(String::as_str).collect();
         if let Some(g) = picker(ui, "Rope grade (N/mm²)", "rope-grade", m.grade.as_deref(), &grades, "none") {
             out.push(Command::edit(move |d| line.edit(d, |m| *m.grade = g)));
+        }
+        if let Some(text) = m.grade.as_deref().and_then(|g| grade_in(input.units, g)) {
+            equivalent(ui, text);
         }
     }
     if m.kind == MemberKind::Chain {
