@@ -49,22 +49,14 @@ pub fn refusal(dto: &ScenarioDto, kind: IdKind, old: &str, new: &str) -> Option<
     if new == old {
         return None;
     }
+    // cases have their own ids; every item on the drawing shares one set,
+    // by the core's rule, the same the file reader applies
     let holder = if kind == IdKind::Case {
-        dto.cases.iter().any(|c| c.id() == new).then_some(IdKind::Case)
-    } else if dto.nodes.iter().any(|n| n.id == new) {
-        Some(IdKind::Node)
-    } else if dto.members.iter().any(|m| m.id == new) {
-        Some(IdKind::Member)
-    } else if dto.ropes.iter().any(|r| r.id == new) {
-        Some(IdKind::Rope)
-    } else if dto.masses.iter().any(|m| m.id == new) {
-        Some(IdKind::Mass)
-    } else if dto.floors.iter().any(|f| f.id == new) {
-        Some(IdKind::Floor)
+        dto.cases.iter().any(|c| c.id() == new).then_some("case")
     } else {
-        None
+        tautspan_core::model::drawing_id_holder(dto, new).map(|(k, _)| k.noun())
     };
-    holder.map(|h| format!("\"{new}\" is already the id of a {}; the id stays \"{old}\".", h.noun()))
+    holder.map(|h| format!("\"{new}\" is already the id of a {h}; the id stays \"{old}\"."))
 }
 
 fn case_id_mut(c: &mut CaseDto) -> &mut String {

@@ -185,14 +185,37 @@ impl Files {
 /// column and field.
 pub fn read_scenario(path: &Path) -> Result<ScenarioDto, String> {
     let name = path.display().to_string();
-    let text = std::fs::read_to_string(path).map_err(|e| format!("{name}: cannot read: {e}"))?;
+    let text = read_capped(path).map_err(|e| format!("{name}: {e}"))?;
     load_scenario(&text).map(|l| l.dto).map_err(|e| e.in_file(&name).to_string())
+}
+
+/// A file's text, with the size cap for scenario files applied while
+/// reading (a device or a pipe stops at the cap instead of filling memory).
+fn read_capped(path: &Path) -> Result<String, String> {
+    use std::io::Read;
+    let cap = tautspan_core::file::MAX_FILE_BYTES;
+    let file = std::fs::File::open(path).map_err(|e| format!("cannot read: {e}"))?;
+    let mut bytes = Vec::new();
+    file.take(cap + 1).read_to_end(&mut bytes).map_err(|e| format!("cannot read: {e}"))?;
+    if bytes.len() as u64 > cap {
+        return Err(format!(
+            "the file is larger than the cap of {} MiB for a scenario file (reading stopped there)",
+            cap / 1_048_576
+        ));
+    }
+    String::from_utf8(bytes).map_err(|_| "the file is not UTF-8 text; save it as UTF-8".to_string())
 }
 
 /// Write text to `path` atomically: a temporary file beside it, flushed and
 /// synced to disk, then renamed over the target, so a failed save never
 /// leaves a half-written file where the colleague's copy was.
 pub fn write_atomic(path: &Path, text: &str) -> std::io::Result<()> {
+    // never replace a device, a folder or a link with a file
+    if let Ok(meta) = std::fs::symlink_metadata(path)
+        && !meta.file_type().is_file()
+    {
+        return Err(std::io::Error::other("not a regular file; choose a file name"));
+    }
     let dir = match path.parent() {
         Some(d) if !d.as_os_str().is_empty() => d.to_path_buf(),
         _ => PathBuf::from("."),
@@ -239,6 +262,16 @@ mod tests {
         let leftovers = std::fs::read_dir(&dir)
             .map(|r| r.filter_map(Result::ok).filter(|e| e.file_name().to_string_lossy().ends_with(".tmp")).count());
         assert_eq!(leftovers.ok(), Some(0));
+        // a folder in the way is refused and left as it is
+        let sub = dir.join("folder.ron");
+        let _ = std::fs::create_dir_all(&sub);
+        assert!(write_atomic(&sub, "three").is_err());
+        assert!(sub.is_dir());
+        // a file over the cap is refused while reading
+        let big = dir.join("big.ron");
+        let _ = std::fs::write(&big, vec![b' '; (tautspan_core::file::MAX_FILE_BYTES + 10) as usize]);
+        let e = read_scenario(&big).err().unwrap_or_default();
+        assert!(e.contains("larger than the cap of 16 MiB"), "{e}");
         let _ = std::fs::remove_dir_all(&dir);
     }
 }
