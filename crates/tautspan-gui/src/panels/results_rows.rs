@@ -75,6 +75,7 @@ impl RowKind {
 }
 
 /// One row: an item in one case.
+#[derive(Debug, Clone)]
 pub struct Row<'a> {
     /// Case index.
     pub case: usize,
@@ -124,7 +125,9 @@ fn badness(r: &Row<'_>) -> (u8, f64) {
     }
 }
 
-fn all_rows(a: &Analysis) -> Vec<Row<'_>> {
+/// Every row of an analysis: each case's members, rated parts, floors,
+/// floor feet and unrated anchor reactions, in that order.
+pub fn all_rows(a: &Analysis) -> Vec<Row<'_>> {
     let mut rows = Vec::new();
     for (c, cr) in a.cases.iter().enumerate() {
         let mut order = 0;
@@ -217,12 +220,22 @@ fn all_rows(a: &Analysis) -> Vec<Row<'_>> {
 
 /// The rows shown: filtered, then sorted.
 pub fn rows(a: &Analysis, filter: Filter, sort: Sort) -> Vec<Row<'_>> {
-    let mut rows = all_rows(a);
+    let all = all_rows(a);
+    let order = shown_order(&all, filter, sort);
+    let mut all: Vec<Option<Row<'_>>> = all.into_iter().map(Some).collect();
+    order.into_iter().filter_map(|i| all.get_mut(i).and_then(Option::take)).collect()
+}
+
+/// Which of `all` (every row of an analysis, in [`all_rows`]' order) are
+/// shown, in the order shown: the app keeps this while the results, the
+/// filter and the sort stay the same, so a frame does not sort every row.
+pub fn shown_order(all: &[Row<'_>], filter: Filter, sort: Sort) -> Vec<usize> {
+    let mut rows: Vec<(usize, &Row<'_>)> = all.iter().enumerate().collect();
     if filter.worst_per_item {
         let mut worst: HashMap<(RowKind, &str), usize> = HashMap::new();
-        for (i, r) in rows.iter().enumerate() {
+        for (i, (_, r)) in rows.iter().enumerate() {
             let slot = worst.entry((r.kind, r.id.as_ref())).or_insert(i);
-            if badness(r) > badness(&rows[*slot]) {
+            if badness(r) > badness(rows[*slot].1) {
                 *slot = i;
             }
         }
@@ -234,10 +247,10 @@ pub fn rows(a: &Analysis, filter: Filter, sort: Sort) -> Vec<Row<'_>> {
         rows.retain(|_| k.next().unwrap_or(false));
     }
     if filter.problems_only {
-        rows.retain(|r| matches!(r.state, Some(State::Over | State::Near | State::Unchecked)));
+        rows.retain(|(_, r)| matches!(r.state, Some(State::Over | State::Near | State::Unchecked)));
     }
     let num = |v: Option<f64>| v.unwrap_or(f64::NEG_INFINITY);
-    rows.sort_by(|rx, ry| {
+    rows.sort_by(|(_, rx), (_, ry)| {
         let o = match sort.column {
             Column::Member => rx.order.cmp(&ry.order).then(rx.case.cmp(&ry.case)),
             Column::Case => rx.case.cmp(&ry.case).then(rx.order.cmp(&ry.order)),
@@ -250,7 +263,7 @@ pub fn rows(a: &Analysis, filter: Filter, sort: Sort) -> Vec<Row<'_>> {
         };
         if sort.descending { o.reverse() } else { o }
     });
-    rows
+    rows.into_iter().map(|(i, _)| i).collect()
 }
 
 /// A CSV field, quoted where it holds a comma, quote or line break.

@@ -10,18 +10,22 @@ use crate::document::command::Command;
 use crate::document::derived::Derived;
 use crate::document::selection::Selection;
 use crate::fields::units_display::{Shown, UnitSystem, fmt_utilisation};
-use crate::panels::results_rows::{Column, Filter, RowKind, Sort, csv, rows};
+use crate::panels::results_rows::{Column, Filter, Row, RowKind, Sort, all_rows, csv, shown_order};
 use crate::panels::warning_severity::{NEAR_AMBER, OVER_RED, UNCHECKED_VIOLET};
 use egui::{RichText, Ui};
+use std::sync::Arc;
 use tautspan_core::analysis::State;
 
 /// The grid's sort and filters, kept for the session.
-#[derive(Debug, Clone, Copy, PartialEq, Eq, Default)]
+#[derive(Debug, Clone, PartialEq, Eq, Default)]
 pub struct ResultsView {
     /// Sorting.
     pub sort: Sort,
     /// Which rows.
     pub filter: Filter,
+    /// The rows shown, in order, for the results, filter and sort they were
+    /// found for (the results by their allocation: a new analysis is a new one).
+    order: Option<(usize, Filter, Sort, Vec<usize>)>,
 }
 
 const COLUMNS: [(&str, Column, f32); 6] = [
@@ -67,13 +71,21 @@ pub fn ui(
         return;
     };
     let a = &solved.analysis;
-    let rows = rows(a, view.filter, view.sort);
+    let all = all_rows(a);
+    let key = Arc::as_ptr(solved) as usize;
+    let order = match view.order.take() {
+        Some((k, f, s, order)) if k == key && f == view.filter && s == view.sort => order,
+        _ => shown_order(&all, view.filter, view.sort),
+    };
+    view.order = Some((key, view.filter, view.sort, order.clone()));
+    let rows: Vec<&Row<'_>> = order.iter().filter_map(|&i| all.get(i)).collect();
     ui.horizontal(|ui| {
         ui.checkbox(&mut view.filter.problems_only, "Over / near / unchecked only");
         ui.checkbox(&mut view.filter.worst_per_item, "Worst case per item");
         ui.label(RichText::new(format!("{} rows", rows.len())).weak());
         if ui.button("Export CSV…").on_hover_text("Write the rows shown to a CSV file").clicked() {
-            out.push(Command::ExportCsv(csv(a, &rows, units)));
+            let shown: Vec<Row<'_>> = rows.iter().map(|r| (*r).clone()).collect();
+            out.push(Command::ExportCsv(csv(a, &shown, units)));
         }
     });
     ui.horizontal(|ui| {
@@ -96,7 +108,7 @@ pub fn ui(
     ui.separator();
     let row_h = 18.0;
     egui::ScrollArea::vertical().auto_shrink([false, false]).show_rows(ui, row_h, rows.len(), |ui, range| {
-        for r in &rows[range] {
+        for &r in &rows[range] {
             let case = &a.cases[r.case];
             let resp = ui.horizontal(|ui| {
                 // a part selects what it belongs to: its member, else its node
@@ -104,7 +116,8 @@ pub fn ui(
                     RowKind::Floor | RowKind::Foot => Selection::Floor(r.owner.to_string()),
                     RowKind::Reaction => Selection::Node(r.owner.to_string()),
                     RowKind::Member | RowKind::Part => {
-                        if case.members.iter().any(|m| m.id == *r.owner) {
+                        // a member's row is its own; a part's owner is its member or node
+                        if r.kind == RowKind::Member || case.members.iter().any(|m| m.id == *r.owner) {
                             // ropes are among the members' results
                             Selection::of_member_result(&solved.scenario, &r.owner)
                         } else {
@@ -124,8 +137,16 @@ pub fn ui(
                 cell(ui, COLUMNS[3].2, row_h, allowable);
                 cell(ui, COLUMNS[4].2, row_h, r.utilisation.map_or_else(|| "–".to_string(), fmt_utilisation));
                 cell(ui, COLUMNS[5].2, row_h, state_text(r.state));
+                // the comparison lists the members in their order: looked up
+                // by position first, so a row does not scan every member
                 let limits = (r.kind == RowKind::Member)
-                    .then(|| a.comparison.iter().find(|row| row.id == *r.id).map(|row| &row.limits))
+                    .then(|| {
+                        a.comparison
+                            .get(r.order.saturating_sub(1))
+                            .filter(|row| row.id == *r.id)
+                            .or_else(|| a.comparison.iter().find(|row| row.id == *r.id))
+                            .map(|row| &row.limits)
+                    })
                     .flatten();
                 let text = limits
                     .map(|l| {
