@@ -31,7 +31,7 @@ pub fn write_atomic(path: &Path, text: &str) -> std::io::Result<()> {
 }
 
 /// Run the command.
-pub fn run(file: &Path, out: &Path) -> ExitCode {
+pub fn run(file: &Path, out: &Path, units: tautspan_core::report::UnitSystem) -> ExitCode {
     let loaded = match read_scenario(file) {
         Ok(l) => l,
         Err(e) => {
@@ -39,8 +39,26 @@ pub fn run(file: &Path, out: &Path) -> ExitCode {
             return ExitCode::from(EXIT_INPUT);
         }
     };
+    // the digest and the scenario come from one and the same read of the
+    // file: read again, hashed, and parsed from those bytes (the first read
+    // gave the located errors and applied the caps)
+    let bytes = match std::fs::read(file) {
+        Ok(b) => b,
+        Err(e) => {
+            eprintln!("{}: cannot read: {e}", file.display());
+            return ExitCode::from(EXIT_INPUT);
+        }
+    };
+    let loaded = match std::str::from_utf8(&bytes).ok().map(tautspan_core::model::load_scenario) {
+        Some(Ok(l)) => l,
+        _ => {
+            eprintln!("{}: the file changed while it was read; run the report again", file.display());
+            return ExitCode::from(EXIT_INPUT);
+        }
+    };
+    let source = tautspan_core::report::SourceFile::new(file.display().to_string(), &bytes);
     let a = analyse(&loaded.scenario);
-    let html = tautspan_core::report::html(&loaded.scenario, &a, &today());
+    let html = tautspan_core::report::html_for_file(&loaded.scenario, &a, &today(), units, Some(&source));
     if let Err(e) = write_atomic(out, &html) {
         eprintln!("{}: cannot write the report: {e}", out.display());
         return ExitCode::from(EXIT_INPUT);

@@ -152,10 +152,37 @@ impl UnitSystem {
         write(m_s2, s, shown, 6)
     }
 
+    /// The units of the command line's text and CSV columns: (symbol, SI
+    /// value of one unit) for forces (kN | kip), small lengths (mm | in),
+    /// layout lengths (m | ft) and bearing pressures (kPa | psf). The
+    /// factors are the file table's, exact by definition (NIST SP 811, 2008,
+    /// Appendix B.8: 1 in = 0.0254 m, 1 ft = 0.3048 m, 1 lbf =
+    /// 4.448 221 615 260 5 N, 1 kip = 1000 lbf, 1 psf = 47.880 26 Pa).
+    pub fn columns(self) -> Columns {
+        let c = |s: &'static str| (s, factor(s));
+        match self {
+            UnitSystem::Si => Columns { force: c("kN"), small: c("mm"), length: c("m"), pressure: c("kPa") },
+            UnitSystem::UsCustomary => Columns { force: c("kip"), small: c("in"), length: c("ft"), pressure: c("psf") },
+        }
+    }
+
     /// The name shown in the report header.
     pub fn name(self) -> &'static str {
         self.pick("SI", "US customary")
     }
+}
+
+/// The units of text and CSV columns, each as (symbol, SI value of one unit).
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Columns {
+    /// Forces: kN or kip.
+    pub force: (&'static str, f64),
+    /// Stretch, sag, deflection: mm or in.
+    pub small: (&'static str, f64),
+    /// Positions and heights: m or ft.
+    pub length: (&'static str, f64),
+    /// Bearing pressure: kPa or psf.
+    pub pressure: (&'static str, f64),
 }
 
 /// A plain number from the results (ratio, factor), three significant digits.
