@@ -32,13 +32,10 @@ pub fn write_atomic(path: &Path, text: &str) -> std::io::Result<()> {
 
 /// Run the command.
 pub fn run(file: &Path, out: &Path, units: tautspan_core::report::UnitSystem) -> ExitCode {
-    let loaded = match read_scenario(file) {
-        Ok(l) => l,
-        Err(e) => {
-            eprintln!("{e}");
-            return ExitCode::from(EXIT_INPUT);
-        }
-    };
+    if let Err(e) = read_scenario(file) {
+        eprintln!("{e}");
+        return ExitCode::from(EXIT_INPUT);
+    }
     // the digest and the scenario come from one and the same read of the
     // file: read again, hashed, and parsed from those bytes (the first read
     // gave the located errors and applied the caps)
