@@ -189,7 +189,12 @@ fn every_example_output_follows_the_schema() {
 fn the_schema_requires_the_contract_and_allows_growth() {
     let s = schema();
     let req = |def: &str| -> Vec<String> {
-        s["$defs"][def]["required"].as_array().expect(def).iter().map(|x| x.as_str().expect("name").to_string()).collect()
+        s["$defs"][def]["required"]
+            .as_array()
+            .expect(def)
+            .iter()
+            .map(|x| x.as_str().expect("name").to_string())
+            .collect()
     };
     // the contracted fields of DESIGN.md and the README are required
     for f in ["file", "title", "caution", "verdict", "scope", "cases"] {

@@ -353,8 +353,8 @@ fn apply(text: &str, m: &Mutation) -> String {
         // a value nested in brackets, shallow or very deep
         9 => match pick(&strs) {
             Some((s, e)) => {
-                let depth = if m.choice % 2 == 0 { 1 + m.count % 4 } else { m.count * 5 };
-                let (o, c) = if m.choice % 3 == 0 { ("(", ")") } else { ("[", "]") };
+                let depth = if m.choice.is_multiple_of(2) { 1 + m.count % 4 } else { m.count * 5 };
+                let (o, c) = if m.choice.is_multiple_of(3) { ("(", ")") } else { ("[", "]") };
                 splice(text, s, e, &format!("{}{}{}", o.repeat(depth), &text[s..e], c.repeat(depth)))
             }
             None => text.to_string(),
@@ -380,7 +380,7 @@ fn apply(text: &str, m: &Mutation) -> String {
         _ => {
             let at = m.pick % (text.len() + 1);
             let at = (0..=at).rev().find(|&k| text.is_char_boundary(k)).unwrap_or(0);
-            if m.choice % 2 == 0 {
+            if m.choice.is_multiple_of(2) {
                 text[..at].to_string()
             } else {
                 splice(text, at, at, ["\"", "(", "]", ",", "\u{0}", "é", "//"][m.choice % 7])
@@ -451,7 +451,7 @@ fn pipeline(text: &str) -> Result<(), String> {
         return Err(format!("`{w}` in the CSV output"));
     }
     // the report in one system or the other, by the text's length (half the cost of both)
-    let units = if text.len() % 2 == 0 { UnitSystem::Si } else { UnitSystem::UsCustomary };
+    let units = if text.len().is_multiple_of(2) { UnitSystem::Si } else { UnitSystem::UsCustomary };
     let html = html_with_units(&loaded.scenario, &a, "2026-01-01", units);
     if let Some(w) = non_finite_word(&html) {
         return Err(format!("`{w}` in the report ({})", units.name()));
@@ -573,7 +573,8 @@ fn big_run() {
             std::thread::spawn(move || {
                 let mut seed = SEED;
                 seed[0] ^= k as u8 + 1;
-                let mut runner = TestRunner::new_with_rng(Config::default(), TestRng::from_seed(RngAlgorithm::ChaCha, &seed));
+                let mut runner =
+                    TestRunner::new_with_rng(Config::default(), TestRng::from_seed(RngAlgorithm::ChaCha, &seed));
                 let strat = strategy();
                 let share = cases / threads + u64::from(k < cases % threads);
                 for _ in 0..share {
@@ -588,14 +589,8 @@ fn big_run() {
                     }
                     if let Err(e) = r {
                         // one finding per kind and message, the digits (timings, values) left out
-                        let key: String = e
-                            .lines()
-                            .next()
-                            .unwrap_or("")
-                            .chars()
-                            .filter(|c| !c.is_ascii_digit())
-                            .take(120)
-                            .collect();
+                        let key: String =
+                            e.lines().next().unwrap_or("").chars().filter(|c| !c.is_ascii_digit()).take(120).collect();
                         let mut f = findings.lock().expect("lock");
                         let n = f.len();
                         let count = f.entry(key.clone()).or_insert(0);

@@ -159,8 +159,14 @@ fn case_text(c: &CaseResult, out: &mut String, u: &Columns) {
     out.push_str(&indent(&table(&header, &rows, &right)));
     for m in &c.members {
         if let (Some(e), Some(b)) = (m.euler_n, m.buckling_resistance_n) {
-            let _ =
-                writeln!(out, "  strut {}: Euler load {} {f}, buckling resistance chi A f_y {} {f}", m.id, kn(u, e), kn(u, b), f = u.force.0);
+            let _ = writeln!(
+                out,
+                "  strut {}: Euler load {} {f}, buckling resistance chi A f_y {} {f}",
+                m.id,
+                kn(u, e),
+                kn(u, b),
+                f = u.force.0
+            );
         }
         if let Some(r) = &m.reason {
             let _ = writeln!(out, "  unchecked {}: {r}", m.id);

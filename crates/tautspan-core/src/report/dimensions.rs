@@ -13,9 +13,10 @@ pub fn extent(points_m: &[[f64; 2]]) -> Option<(f64, f64, f64, f64)> {
         return None;
     }
     let f = |k: usize, min: bool| {
-        finite.iter().map(|p| p[k]).fold(if min { f64::INFINITY } else { f64::NEG_INFINITY }, |a, b| {
-            if min { a.min(b) } else { a.max(b) }
-        })
+        finite
+            .iter()
+            .map(|p| p[k])
+            .fold(if min { f64::INFINITY } else { f64::NEG_INFINITY }, |a, b| if min { a.min(b) } else { a.max(b) })
     };
     Some((f(0, true), f(0, false), f(1, true), f(1, false)))
 }
