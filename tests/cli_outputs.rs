@@ -138,3 +138,14 @@ fn report_in_us_units() {
     close(value("width"), 8.0 * FT_M, 1e-12, "width");
     close(value("height"), (120.0 + 1000.0 * 120.0 / (29.0e6 * 0.1)) * IN_M, 1e-6, "height");
 }
+
+/// Rope sizes in inches: the bridle example's 12 mm wire rope reads
+/// 12 / 25.4 = 0.4724 in (4 digits); its 650 kg truss 650 / 0.453 592 37 =
+/// 1433 lb (NIST SP 811 B.8), under one short ton.
+#[test]
+fn report_in_us_units_gives_rope_sizes_in_inches() {
+    let f = Path::new(env!("CARGO_MANIFEST_DIR")).join("scenarios/bridle-unequal.ron").display().to_string();
+    let html = report(&["--units", "us", &f], "rope");
+    assert!(html.contains("⌀&nbsp;0.4724\u{a0}in"), "rope diameter in inches");
+    assert!(html.contains("1433\u{a0}lb<"), "mass in lb");
+}
