@@ -10,13 +10,14 @@ use std::process::ExitCode;
 use tautspan_core::CAUTION;
 use tautspan_core::analysis::analyse;
 use tautspan_core::file::{FileError, FileErrors};
-use tautspan_core::output::{CSV_HEADER, check_text, csv_caution_line, write_check_json, write_csv_rows};
+use tautspan_core::output::{check_text_in, csv_caution_line, csv_header_in, write_check_json, write_csv_rows_in};
+use tautspan_core::report::UnitSystem;
 
 /// Run the command; the exit code follows the contract (0, 1, 2).
-pub fn run(files: &[PathBuf], format: CheckFormat, case: Option<&str>) -> ExitCode {
+pub fn run(files: &[PathBuf], format: CheckFormat, case: Option<&str>, units: UnitSystem) -> ExitCode {
     let stdout = std::io::stdout();
     let mut out = BufWriter::with_capacity(1 << 16, stdout.lock());
-    match write_all(&mut out, files, format, case).and_then(|worst| out.flush().map(|()| worst)) {
+    match write_all(&mut out, files, format, case, units).and_then(|worst| out.flush().map(|()| worst)) {
         Ok(worst) => ExitCode::from(worst),
         Err(e) => {
             eprintln!("tautspan: cannot write the output: {e}");
@@ -44,14 +45,20 @@ fn write_error_json<W: Write>(out: &mut W, name: &str, errors: &FileErrors) -> s
     serde_json::to_writer(&mut *out, &v).map_err(std::io::Error::other)
 }
 
-fn write_all<W: Write>(out: &mut W, files: &[PathBuf], format: CheckFormat, case: Option<&str>) -> std::io::Result<u8> {
+fn write_all<W: Write>(
+    out: &mut W,
+    files: &[PathBuf],
+    format: CheckFormat,
+    case: Option<&str>,
+    units: UnitSystem,
+) -> std::io::Result<u8> {
     let mut worst = 0u8;
     // several files make a JSON array (one object per file), one file an object
     let array = files.len() > 1;
     let mut written = 0usize;
     let mut any_text = false;
     match format {
-        CheckFormat::Csv => writeln!(out, "{}\n{CSV_HEADER}", csv_caution_line())?,
+        CheckFormat::Csv => writeln!(out, "{}\n{}", csv_caution_line(), csv_header_in(units))?,
         CheckFormat::Json if array => out.write_all(b"[")?,
         _ => {}
     }
@@ -95,7 +102,7 @@ fn write_all<W: Write>(out: &mut W, files: &[PathBuf], format: CheckFormat, case
         }
         match format {
             CheckFormat::Text => {
-                out.write_all(check_text(&name, &a).as_bytes())?;
+                out.write_all(check_text_in(&name, &a, units).as_bytes())?;
                 any_text = true;
             }
             CheckFormat::Json => {
@@ -104,7 +111,7 @@ fn write_all<W: Write>(out: &mut W, files: &[PathBuf], format: CheckFormat, case
                 }
                 write_check_json(out, &name, &a)?;
             }
-            CheckFormat::Csv => write_csv_rows(out, &name, &a)?,
+            CheckFormat::Csv => write_csv_rows_in(out, &name, &a, units)?,
         }
         written += 1;
         // a large rig's analysis is dropped here, before the next file is read

@@ -43,6 +43,25 @@ pub enum CheckFormat {
     Csv,
 }
 
+/// The units `check` (text, CSV) and `report` print in; files keep their own.
+#[derive(Clone, Copy, ValueEnum)]
+pub enum Units {
+    /// SI: kN, mm, m, kPa, kg.
+    Si,
+    /// US customary: kip (text) or lbf (CSV, report), in, ft, psf, lb and short tons.
+    Us,
+}
+
+impl Units {
+    /// The core's unit system.
+    pub fn system(self) -> tautspan_core::report::UnitSystem {
+        match self {
+            Units::Si => tautspan_core::report::UnitSystem::Si,
+            Units::Us => tautspan_core::report::UnitSystem::UsCustomary,
+        }
+    }
+}
+
 /// Output formats of `simulate`.
 #[derive(Clone, Copy, ValueEnum)]
 pub enum SimulateFormat {
@@ -69,6 +88,9 @@ enum Command {
         /// Only this case (by id).
         #[arg(long = "case")]
         case: Option<String>,
+        /// Units of the text and CSV output. JSON stays SI: its field names carry the unit (`force_n`).
+        #[arg(long, value_enum, default_value = "si")]
+        units: Units,
     },
     /// Run one case in the time domain and print its histories (csv) or summary (json).
     ///
@@ -104,6 +126,9 @@ enum Command {
         /// Output HTML file.
         #[arg(long)]
         out: PathBuf,
+        /// Units the report is written in.
+        #[arg(long, value_enum, default_value = "si")]
+        units: Units,
     },
 }
 
@@ -117,10 +142,12 @@ fn main() -> ExitCode {
                 ExitCode::from(EXIT_INPUT)
             }
         },
-        Some(Command::Check { files, format, case }) => check::run(&files, format, case.as_deref()),
+        Some(Command::Check { files, format, case, units }) => {
+            check::run(&files, format, case.as_deref(), units.system())
+        }
         Some(Command::Simulate { file, case, duration, step, damping, format }) => {
             simulate::run(&file, &case, &duration, step.as_deref(), damping, format)
         }
-        Some(Command::Report { file, out }) => report::run(&file, &out),
+        Some(Command::Report { file, out, units }) => report::run(&file, &out, units.system()),
     }
 }

@@ -71,6 +71,13 @@ pub fn print_errors(errors: &FileErrors) {
 
 /// Read and validate one scenario file; errors name the file.
 pub fn read_scenario(path: &Path) -> Result<Loaded, FileErrors> {
+    let text = read_scenario_text(path)?;
+    load_scenario(&text).map_err(|e| e.in_file(&path.display().to_string()))
+}
+
+/// A scenario file's text, with the size cap applied while reading and the
+/// errors located (not yet parsed).
+pub fn read_scenario_text(path: &Path) -> Result<String, FileErrors> {
     let name = path.display().to_string();
     let one = |msg: String| FileErrors(vec![FileError::new(msg).in_file(name.clone())]);
     let meta = std::fs::metadata(path).map_err(|e| one(format!("cannot open: {e}")))?;
@@ -94,7 +101,7 @@ pub fn read_scenario(path: &Path) -> Result<Loaded, FileErrors> {
         }
         FileErrors(vec![err])
     })?;
-    load_scenario(&text).map_err(|e| e.in_file(&name))
+    Ok(text)
 }
 
 #[cfg(test)]

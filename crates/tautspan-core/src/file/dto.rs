@@ -515,6 +515,10 @@ pub struct ScenarioDto {
     pub format: u32,
     /// Title.
     pub title: String,
+    /// The drawing's revision as the planner marks it (`"B"`); optional,
+    /// printed on the report beside the file's SHA-256.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub revision: Option<String>,
     /// Free text for the colleague who opens it.
     #[serde(default)]
     pub notes: String,

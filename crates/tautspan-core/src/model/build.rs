@@ -441,6 +441,7 @@ pub fn build(dto: &ScenarioDto) -> Result<Scenario, Vec<Problem>> {
     }
     Ok(Scenario {
         title: dto.title.clone(),
+        revision: dto.revision.as_deref().map(str::trim).filter(|r| !r.is_empty()).map(str::to_string),
         notes: dto.notes.clone(),
         gravity: Acceleration::new::<meter_per_second_squared>(gravity),
         near_limit,

@@ -350,6 +350,8 @@ impl Case {
 pub struct Scenario {
     /// Title.
     pub title: String,
+    /// The file's revision mark, if it gives one.
+    pub revision: Option<String>,
     /// Notes.
     pub notes: String,
     /// Gravity (magnitude; acts along −y).

@@ -5,6 +5,8 @@ use std::io::{self, Write};
 
 use crate::CAUTION;
 use crate::analysis::Analysis;
+use crate::report::UnitSystem;
+use crate::units::unit;
 
 /// Quote a CSV field when it needs it (RFC 4180).
 pub fn field(s: &str) -> String {
@@ -21,6 +23,50 @@ fn opt(v: Option<f64>) -> String {
 
 /// The CSV header line.
 pub const HEADER: &str = "file,case,kind,item,item_type,force_n,allowable_n,utilisation,state,stretch_m,deflection_m,ratio_to_static,governing_case,release_limit_deg,drop_limit_m,sling_angle_from_horizontal_deg,euler_n,buckling_resistance_n";
+
+/// The SI columns renamed in US customary units (lbf, in, ft), and the
+/// divisor that takes each from SI.
+const US_COLUMNS: &[(&str, &str, &str)] = &[
+    ("force_n", "force_lbf", "lbf"),
+    ("allowable_n", "allowable_lbf", "lbf"),
+    ("stretch_m", "stretch_in", "in"),
+    ("deflection_m", "deflection_in", "in"),
+    ("drop_limit_m", "drop_limit_ft", "ft"),
+    ("euler_n", "euler_lbf", "lbf"),
+    ("buckling_resistance_n", "buckling_resistance_lbf", "lbf"),
+];
+
+/// The header line in the chosen units: SI's [`HEADER`], or the same columns
+/// with the unit in each name changed (`force_lbf`, `stretch_in`, `drop_limit_ft`).
+pub fn header_in(units: UnitSystem) -> String {
+    match units {
+        UnitSystem::Si => HEADER.to_string(),
+        UnitSystem::UsCustomary => HEADER
+            .split(',')
+            .map(|c| US_COLUMNS.iter().find(|u| u.0 == c).map_or(c, |u| u.1))
+            .collect::<Vec<_>>()
+            .join(","),
+    }
+}
+
+/// Divisors from SI to the written unit: (force, small length, length).
+#[derive(Clone, Copy)]
+struct Scale {
+    force: f64,
+    small: f64,
+    length: f64,
+}
+
+impl Scale {
+    fn of(units: UnitSystem) -> Scale {
+        // the file table's exact factors (NIST SP 811 B.8); 1 where SI
+        let f = |s: &str| unit(s).map_or(1.0, |u| u.to_si);
+        match units {
+            UnitSystem::Si => Scale { force: 1.0, small: 1.0, length: 1.0 },
+            UnitSystem::UsCustomary => Scale { force: f("lbf"), small: f("in"), length: f("ft") },
+        }
+    }
+}
 
 /// The caution line (as a `#` comment) for the top of a CSV output.
 pub fn caution_line() -> String {
@@ -58,9 +104,20 @@ pub fn check_csv_rows(file: &str, a: &Analysis) -> String {
 /// # Errors
 /// Whatever writing to `w` fails with.
 pub fn write_csv_rows<W: Write>(w: &mut W, file: &str, a: &Analysis) -> io::Result<()> {
+    write_csv_rows_in(w, file, a, UnitSystem::Si)
+}
+
+/// [`write_csv_rows`] in the chosen units (the columns of [`header_in`]).
+///
+/// # Errors
+/// Whatever writing to `w` fails with.
+pub fn write_csv_rows_in<W: Write>(w: &mut W, file: &str, a: &Analysis, units: UnitSystem) -> io::Result<()> {
+    let sc = Scale::of(units);
+    let force = |v: f64| num(v / sc.force);
+    let small = |v: f64| num(v / sc.small);
     w.write_all(scope_lines(file, a).as_bytes())?;
     for (ci, c) in a.cases.iter().enumerate() {
-        let lim = (opt(c.limits.release_deg), opt(c.limits.drop_height_m));
+        let lim = (opt(c.limits.release_deg), opt(c.limits.drop_height_m.map(|h| h / sc.length)));
         for (k, m) in c.members.iter().enumerate() {
             let row = a.comparison.get(k);
             writeln!(
@@ -72,19 +129,19 @@ pub fn write_csv_rows<W: Write>(w: &mut W, file: &str, a: &Analysis) -> io::Resu
                     field(&c.kind),
                     field(&m.id),
                     "member".into(),
-                    num(m.force_n),
-                    num(m.allowable_n),
+                    force(m.force_n),
+                    force(m.allowable_n),
                     num(m.utilisation),
                     m.state.as_str().into(),
-                    num(m.stretch_m),
+                    small(m.stretch_m),
                     String::new(),
                     opt(row.and_then(|r| r.ratio_to_static.get(ci).copied().flatten())),
                     field(row.and_then(|r| r.governing_case.as_deref()).unwrap_or("")),
                     lim.0.clone(),
                     lim.1.clone(),
                     num(m.sling_angle_deg),
-                    opt(m.euler_n),
-                    opt(m.buckling_resistance_n),
+                    opt(m.euler_n.map(|v| v / sc.force)),
+                    opt(m.buckling_resistance_n.map(|v| v / sc.force)),
                 ]
                 .join(","),
             )?;
@@ -100,12 +157,12 @@ pub fn write_csv_rows<W: Write>(w: &mut W, file: &str, a: &Analysis) -> io::Resu
                     field(&c.kind),
                     field(&f.id),
                     "floor".into(),
-                    num(f.normal_force_n),
-                    num(f.allowable_n),
+                    force(f.normal_force_n),
+                    force(f.allowable_n),
                     num(f.utilisation),
                     f.state.as_str().into(),
                     String::new(),
-                    num(f.deflection_m),
+                    small(f.deflection_m),
                     opt(row.and_then(|r| r.ratio_to_static.get(ci).copied().flatten())),
                     field(row.and_then(|r| r.governing_case.as_deref()).unwrap_or("")),
                     lim.0.clone(),
@@ -128,8 +185,8 @@ pub fn write_csv_rows<W: Write>(w: &mut W, file: &str, a: &Analysis) -> io::Resu
                         field(&c.kind),
                         field(&format!("{}/{}", f.id, x.node)),
                         "foot".into(),
-                        num(x.normal_force_n),
-                        if x.utilisation.is_some() { num(f.allowable_n) } else { String::new() },
+                        force(x.normal_force_n),
+                        if x.utilisation.is_some() { force(f.allowable_n) } else { String::new() },
                         opt(x.utilisation),
                         x.state.as_str().into(),
                         String::new(),
@@ -159,8 +216,8 @@ pub fn write_csv_rows<W: Write>(w: &mut W, file: &str, a: &Analysis) -> io::Resu
                     field(&c.kind),
                     field(&id),
                     "part".into(),
-                    num(p.force_n),
-                    num(p.wll_n),
+                    force(p.force_n),
+                    force(p.wll_n),
                     num(p.utilisation),
                     p.state.as_str().into(),
                     String::new(),

@@ -3,11 +3,39 @@
 
 use crate::CAUTION;
 use crate::analysis::{Analysis, CaseResult, LOAD_PATH_THRESHOLD, LoadPathResult};
+use crate::report::{Columns, UnitSystem};
 use crate::units::format_number;
 use std::fmt::Write;
 
-fn kn(v: f64) -> String {
-    if v.is_finite() { format_number(v / 1e3, 4) } else { "-".to_string() }
+/// A value (SI) in the column unit `unit` (symbol, SI value of one), four
+/// significant digits; `-` where not finite or where the division overflows.
+fn conv(v: f64, unit: (&str, f64), digits: usize) -> String {
+    let x = v / unit.1;
+    if x.is_finite() { format_number(x, digits) } else { "-".to_string() }
+}
+
+fn kn(u: &Columns, v: f64) -> String {
+    conv(v, u.force, 4)
+}
+
+/// A column header with its SI unit word replaced by the chosen system's:
+/// `kN` by the force unit, `mm` by the small length, `m` by the length,
+/// `kPa` by the pressure.
+fn head(h: &str, u: &Columns) -> String {
+    h.split(' ')
+        .map(|w| match w {
+            "kN" => u.force.0,
+            "mm" => u.small.0,
+            "m" => u.length.0,
+            "kPa" => u.pressure.0,
+            w => w,
+        })
+        .collect::<Vec<_>>()
+        .join(" ")
+}
+
+fn heads(hs: &[&str], u: &Columns) -> Vec<String> {
+    hs.iter().map(|h| head(h, u)).collect()
 }
 
 fn pct(v: f64) -> String {
@@ -51,7 +79,7 @@ pub fn table(header: &[&str], rows: &[Vec<String>], right: &[bool]) -> String {
     out
 }
 
-fn case_text(c: &CaseResult, out: &mut String) {
+fn case_text(c: &CaseResult, out: &mut String, u: &Columns) {
     let _ = writeln!(out, "\nCase {} ({})", c.id, c.kind);
     if let Some(e) = &c.error {
         let _ = writeln!(out, "  not solved: {e}");
@@ -60,9 +88,10 @@ fn case_text(c: &CaseResult, out: &mut String) {
     if let Some(d) = &c.dynamic {
         let _ = writeln!(
             out,
-            "  load on mass {}: {} kN = {} x weight; {}",
+            "  load on mass {}: {} {} = {} x weight; {}",
             d.mass,
-            kn(d.load_n),
+            kn(u, d.load_n),
+            u.force.0,
             format_number(d.factor, 4),
             d.formula
         );
@@ -87,12 +116,12 @@ fn case_text(c: &CaseResult, out: &mut String) {
         .map(|m| {
             let mut row = vec![
                 m.id.clone(),
-                kn(m.force_n),
-                kn(m.allowable_n),
+                kn(u, m.force_n),
+                kn(u, m.allowable_n),
                 pct(m.utilisation),
                 m.state.as_str().to_string(),
-                format_number(m.stretch_m * 1e3, 4),
-                format_number(m.sag_m * 1e3, 3),
+                conv(m.stretch_m, u.small, 4),
+                conv(m.sag_m, u.small, 3),
                 format_number(m.sling_angle_deg, 3),
             ];
             if waves {
@@ -104,37 +133,47 @@ fn case_text(c: &CaseResult, out: &mut String) {
             row
         })
         .collect();
-    let mut header = vec![
-        "member",
-        "force kN",
-        "allowable kN",
-        "util %",
-        "state",
-        "stretch mm",
-        "sag mm",
-        "sling angle deg from horizontal",
-    ];
+    let mut header = heads(
+        &[
+            "member",
+            "force kN",
+            "allowable kN",
+            "util %",
+            "state",
+            "stretch mm",
+            "sag mm",
+            "sling angle deg from horizontal",
+        ],
+        u,
+    );
     let mut right = vec![false, true, true, true, false, true, true, true];
     if waves {
-        header.push("wave transit ms");
+        header.push("wave transit ms".into());
         right.push(true);
     }
     if swing {
-        header.push("peak at deg");
+        header.push("peak at deg".into());
         right.push(true);
     }
+    let header: Vec<&str> = header.iter().map(String::as_str).collect();
     out.push_str(&indent(&table(&header, &rows, &right)));
     for m in &c.members {
         if let (Some(e), Some(b)) = (m.euler_n, m.buckling_resistance_n) {
-            let _ =
-                writeln!(out, "  strut {}: Euler load {} kN, buckling resistance chi A f_y {} kN", m.id, kn(e), kn(b));
+            let _ = writeln!(
+                out,
+                "  strut {}: Euler load {} {f}, buckling resistance chi A f_y {} {f}",
+                m.id,
+                kn(u, e),
+                kn(u, b),
+                f = u.force.0
+            );
         }
         if let Some(r) = &m.reason {
             let _ = writeln!(out, "  unchecked {}: {r}", m.id);
         }
         if !m.segments.is_empty() {
             let spans: Vec<String> =
-                m.segments.iter().map(|g| format!("{}-{} {} kN", g.from, g.to, kn(g.force_n))).collect();
+                m.segments.iter().map(|g| format!("{}-{} {} {}", g.from, g.to, kn(u, g.force_n), u.force.0)).collect();
             let _ = writeln!(out, "  rope {} over sheaves, tension per span: {}", m.id, spans.join(", "));
         }
     }
@@ -145,17 +184,18 @@ fn case_text(c: &CaseResult, out: &mut String) {
             .map(|f| {
                 vec![
                     f.id.clone(),
-                    kn(f.normal_force_n),
-                    kn(f.allowable_n),
-                    format_number(f.deflection_m * 1e3, 4),
-                    format_number(f.deflection_limit_m * 1e3, 4),
+                    kn(u, f.normal_force_n),
+                    kn(u, f.allowable_n),
+                    conv(f.deflection_m, u.small, 4),
+                    conv(f.deflection_limit_m, u.small, 4),
                     pct(f.utilisation),
                     f.state.as_str().to_string(),
                 ]
             })
             .collect();
+        let h = heads(&["floor", "normal kN", "allowable kN", "deflection mm", "limit mm", "util %", "state"], u);
         out.push_str(&indent(&table(
-            &["floor", "normal kN", "allowable kN", "deflection mm", "limit mm", "util %", "state"],
+            &h.iter().map(String::as_str).collect::<Vec<_>>(),
             &rows,
             &[false, true, true, true, true, true, false],
         )));
@@ -167,11 +207,11 @@ fn case_text(c: &CaseResult, out: &mut String) {
                     vec![
                         f.id.clone(),
                         x.node.clone(),
-                        kn(x.normal_force_n),
-                        kn(x.horizontal_n),
+                        kn(u, x.normal_force_n),
+                        kn(u, x.horizontal_n),
                         x.friction_required.map_or_else(|| "-".to_string(), |m| format_number(m, 3)),
                         format_number(f.friction_limit, 3),
-                        x.bearing_pressure_pa.map_or_else(|| "-".to_string(), |p| format_number(p / 1e3, 4)),
+                        x.bearing_pressure_pa.map_or_else(|| "-".to_string(), |p| conv(p, u.pressure, 4)),
                         x.utilisation.map_or_else(|| "-".to_string(), pct),
                         x.state.as_str().to_string(),
                     ]
@@ -179,8 +219,12 @@ fn case_text(c: &CaseResult, out: &mut String) {
             })
             .collect();
         if !feet.is_empty() {
-            out.push_str(&indent(&table(
+            let h = heads(
                 &["floor", "foot", "normal kN", "horizontal kN", "friction", "limit", "bearing kPa", "util %", "state"],
+                u,
+            );
+            out.push_str(&indent(&table(
+                &h.iter().map(String::as_str).collect::<Vec<_>>(),
                 &feet,
                 &[false, false, true, true, true, true, true, true, false],
             )));
@@ -194,9 +238,9 @@ fn case_text(c: &CaseResult, out: &mut String) {
             vec![
                 id,
                 p.kind.clone(),
-                kn(p.force_n),
-                kn(p.wll_n),
-                kn(p.rated_wll_n),
+                kn(u, p.force_n),
+                kn(u, p.wll_n),
+                kn(u, p.rated_wll_n),
                 pct(p.utilisation),
                 p.state.as_str().to_string(),
                 p.angle_deg.map_or("-".into(), |a| format_number(a, 3)),
@@ -204,8 +248,12 @@ fn case_text(c: &CaseResult, out: &mut String) {
         })
         .collect();
     if !parts.is_empty() {
-        out.push_str(&indent(&table(
+        let h = heads(
             &["rated part", "kind", "force kN", "WLL used kN", "WLL rated kN", "util %", "state", "angle deg"],
+            u,
+        );
+        out.push_str(&indent(&table(
+            &h.iter().map(String::as_str).collect::<Vec<_>>(),
             &parts,
             &[false, false, true, true, true, true, false, true],
         )));
@@ -227,7 +275,7 @@ fn case_text(c: &CaseResult, out: &mut String) {
         let _ = writeln!(out, "  largest release angle inside the allowable: {} deg", format_number(r, 4));
     }
     if let Some(h) = c.limits.drop_height_m {
-        let _ = writeln!(out, "  largest drop height inside the allowable: {} m", format_number(h, 4));
+        let _ = writeln!(out, "  largest drop height inside the allowable: {} {}", conv(h, u.length, 4), u.length.0);
     }
     for w in &c.warnings {
         let _ = writeln!(out, "  warning: {w}");
@@ -281,27 +329,33 @@ fn indent(s: &str) -> String {
 /// The comparison table: static force, each case's force and utilisation,
 /// governing case and limits per member and floor.
 pub fn comparison_text(a: &Analysis) -> String {
-    let mut header: Vec<String> = vec!["item".into(), "static kN".into()];
+    comparison_text_in(a, UnitSystem::Si)
+}
+
+/// [`comparison_text`] in the chosen units.
+pub fn comparison_text_in(a: &Analysis, units: UnitSystem) -> String {
+    let u = &units.columns();
+    let mut header: Vec<String> = vec!["item".into(), head("static kN", u)];
     for c in &a.cases {
-        header.push(format!("{} kN", c.id));
+        header.push(format!("{} {}", c.id, u.force.0));
         header.push("x static".into());
         header.push("util %".into());
     }
-    header.extend(["allowable kN".into(), "governs".into(), "max release deg".into(), "max drop m".into()]);
+    header.extend([head("allowable kN", u), "governs".into(), "max release deg".into(), head("max drop m", u)]);
     let rows: Vec<Vec<String>> = a
         .comparison
         .iter()
         .map(|r| {
-            let mut row = vec![r.id.clone(), r.static_force_n.map_or("-".into(), kn)];
+            let mut row = vec![r.id.clone(), r.static_force_n.map_or("-".into(), |v| kn(u, v))];
             for i in 0..a.cases.len() {
-                row.push(r.force_n.get(i).copied().flatten().map_or("-".into(), kn));
+                row.push(r.force_n.get(i).copied().flatten().map_or("-".into(), |v| kn(u, v)));
                 row.push(r.ratio_to_static.get(i).copied().flatten().map_or("-".into(), |x| format_number(x, 3)));
                 row.push(r.utilisation.get(i).copied().flatten().map_or("-".into(), pct));
             }
-            row.push(kn(r.allowable_n));
+            row.push(kn(u, r.allowable_n));
             row.push(r.governing_case.clone().unwrap_or_else(|| "-".into()));
             row.push(r.limits.release_deg.map_or("-".into(), |x| format_number(x, 3)));
-            row.push(r.limits.drop_height_m.map_or("-".into(), |x| format_number(x, 3)));
+            row.push(r.limits.drop_height_m.map_or("-".into(), |x| conv(x, u.length, 3)));
             row
         })
         .collect();
@@ -310,17 +364,25 @@ pub fn comparison_text(a: &Analysis) -> String {
     table(&h, &rows, &right)
 }
 
-/// The whole text report of one file.
+/// The whole text report of one file, in SI units.
 pub fn check_text(file: &str, a: &Analysis) -> String {
+    check_text_in(file, a, UnitSystem::Si)
+}
+
+/// The whole text report of one file in the chosen units (the file keeps
+/// its own; only what is printed changes).
+pub fn check_text_in(file: &str, a: &Analysis, units: UnitSystem) -> String {
+    let u = &units.columns();
     let mut out = String::new();
     let _ = writeln!(out, "{file}: {}", a.title);
     let _ = writeln!(out, "CAUTION: {CAUTION}");
+    let _ = writeln!(out, "Units: {}", units.name());
     for c in &a.cases {
-        case_text(c, &mut out);
+        case_text(c, &mut out, u);
     }
     if !a.comparison.is_empty() {
         let _ = writeln!(out, "\nComparison (per member, floor and rated part, every case)");
-        out.push_str(&indent(&comparison_text(a)));
+        out.push_str(&indent(&comparison_text_in(a, units)));
     }
     if !a.warnings.is_empty() {
         let _ = writeln!(out);

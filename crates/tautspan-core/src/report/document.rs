@@ -10,6 +10,7 @@ use super::header::{caution, title_block, verdict};
 use super::inputs_members::members;
 use super::inputs_other::{floors, masses, nodes};
 use super::legend::legend;
+use super::source_file::SourceFile;
 use super::style::CSS;
 use super::unit_system::UnitSystem;
 use super::warnings::warnings;
@@ -25,9 +26,21 @@ pub fn html(scenario: &Scenario, analysis: &Analysis, date: &str) -> String {
 
 /// The report in the chosen units.
 pub fn html_with_units(scenario: &Scenario, analysis: &Analysis, date: &str, units: UnitSystem) -> String {
+    html_for_file(scenario, analysis, date, units, None)
+}
+
+/// The report in the chosen units, naming the scenario file it was made
+/// from with its SHA-256 (and the file's revision, when it gives one).
+pub fn html_for_file(
+    scenario: &Scenario,
+    analysis: &Analysis,
+    date: &str,
+    units: UnitSystem,
+    source: Option<&SourceFile>,
+) -> String {
     let title = if scenario.title.trim().is_empty() { "Load-path check" } else { scenario.title.trim() };
     let body = [
-        title_block(scenario, analysis, date, units),
+        title_block(scenario, analysis, date, units, source),
         caution(analysis),
         verdict(analysis),
         layout(scenario, analysis, units),

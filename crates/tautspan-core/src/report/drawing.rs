@@ -40,6 +40,7 @@ pub fn drawing(scenario: &Scenario, analysis: &Analysis, units: UnitSystem) -> (
     svg.push_str(&members(scenario, analysis, &elev, &view));
     svg.push_str(&nodes(scenario, &elev, &view));
     svg.push_str(&masses(scenario, &elev, &view, units));
+    svg.push_str(&super::dimensions::dimensions(&elev.xy_m, &view, units));
     svg.push_str(&scale_bar([18.0, view.height - 14.0], view.scale, units));
     svg.push_str(&axes([view.width - 40.0, view.height - 14.0]));
     svg.push_str("</svg>");
@@ -48,10 +49,11 @@ pub fn drawing(scenario: &Scenario, analysis: &Analysis, units: UnitSystem) -> (
 
 fn caption(elev: &Elevation) -> String {
     match elev.case {
-        Some(c) => {
-            format!("Elevation (x to the right, y up) in the solved geometry of static case “{}”.", escape(&c.id))
-        }
-        None => "Elevation (x to the right, y up) as drawn: no static case was solved.".to_string(),
+        Some(c) => format!(
+            "Elevation (x to the right, y up) in the solved geometry of static case “{}”; overall width and height dimensioned between the extreme nodes.",
+            escape(&c.id)
+        ),
+        None => "Elevation (x to the right, y up) as drawn: no static case was solved; overall width and height dimensioned between the extreme nodes.".to_string(),
     }
 }
 

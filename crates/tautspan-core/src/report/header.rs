@@ -3,6 +3,7 @@
 
 use super::escape::escape;
 use super::marks::state_in;
+use super::source_file::SourceFile;
 use super::unit_system::{UnitSystem, percent};
 use crate::analysis::{Analysis, State, Verdict};
 use crate::model::Scenario;
@@ -13,8 +14,26 @@ pub fn caution(analysis: &Analysis) -> String {
     format!("<div class=\"caution\" role=\"note\"><span class=\"tag\">CAUTION</span>{}</div>", escape(text))
 }
 
-/// Title block: kind of document, title, date, units, notes.
-pub fn title_block(scenario: &Scenario, analysis: &Analysis, date: &str, units: UnitSystem) -> String {
+/// Title block: kind of document, title, date, units, the file with its
+/// SHA-256 and revision, notes.
+pub fn title_block(
+    scenario: &Scenario,
+    analysis: &Analysis,
+    date: &str,
+    units: UnitSystem,
+    source: Option<&SourceFile>,
+) -> String {
+    let revision = scenario.revision.as_deref().map_or_else(
+        || "<span class=\"none\">not given in the file</span>".to_string(),
+        |r| format!("<span class=\"revision\">{}</span>", escape(r)),
+    );
+    let file = source.map_or_else(String::new, |f| {
+        format!(
+            "<dt>File</dt><dd class=\"file\">{}</dd><dt>SHA-256</dt><dd><code class=\"sha256\">{}</code></dd>",
+            escape(&f.name),
+            escape(&f.sha256)
+        )
+    });
     let title = if scenario.title.trim().is_empty() { analysis.title.as_str() } else { scenario.title.as_str() };
     let notes = if scenario.notes.trim().is_empty() {
         "<span class=\"none\">none</span>".to_string()
@@ -23,7 +42,7 @@ pub fn title_block(scenario: &Scenario, analysis: &Analysis, date: &str, units: 
     };
     format!(
         "<header class=\"top\"><p class=\"doc-kind\">Load-path check report</p><h1>{}</h1>\
-         <dl class=\"meta\"><dt>Date</dt><dd>{}</dd><dt>Units</dt><dd>{}</dd>\
+         <dl class=\"meta\"><dt>Date</dt><dd>{}</dd><dt>Units</dt><dd>{}</dd>{file}<dt>Revision</dt><dd>{revision}</dd>\
          <dt>Cases</dt><dd>{}</dd><dt>Notes</dt><dd>{notes}</dd></dl></header>",
         escape(title),
         escape(date),

@@ -1,0 +1,100 @@
+//! Findings of the fuzzer (`tests/fuzz_scenarios.rs`) that belong to the
+//! validation's range checks and the solver, minimized by hand to one rig
+//! of an anchor, a rope, a strut and a mass with one value changed; the
+//! inputs are in `tests/fuzz_regressions/`. Each is `#[ignore]`d until
+//! those checks land; then it must pass as it is: the file is refused with
+//! a located error, or every output is free of `NaN` and `inf`.
+//! Run them: `cargo test -p tautspan-core --test fuzz_regressions -- --ignored`.
+
+#![allow(clippy::expect_used, clippy::unwrap_used, reason = "tests fail loudly")]
+
+use tautspan_core::analysis::analyse;
+use tautspan_core::model::load_scenario;
+use tautspan_core::output::check_text;
+use tautspan_core::report::{UnitSystem, html_with_units};
+
+fn input(name: &str) -> String {
+    let p = std::path::Path::new(env!("CARGO_MANIFEST_DIR")).join("tests/fuzz_regressions").join(name);
+    std::fs::read_to_string(p).expect("regression input")
+}
+
+/// Refused with a located error, or analysed with no non-finite word in
+/// the text output or the report in either system.
+fn refused_or_finite(name: &str) {
+    let text = input(name);
+    let Ok(loaded) = load_scenario(&text) else { return };
+    let a = analyse(&loaded.scenario);
+    let mut outs = vec![("text", check_text(name, &a))];
+    for u in [UnitSystem::Si, UnitSystem::UsCustomary] {
+        outs.push(("report", html_with_units(&loaded.scenario, &a, "2026-01-01", u)));
+    }
+    for (what, out) in outs {
+        let bad = out
+            .split(|c: char| !(c.is_ascii_alphanumeric() || c == '.'))
+            .find(|w| matches!(*w, "NaN" | "inf" | "Minf" | "Linf"));
+        assert!(bad.is_none(), "{name}: `{}` in the {what}", bad.unwrap_or(""));
+    }
+}
+
+/// An anchor at y = 1e38 m is accepted; the warning says "strain inf %".
+#[test]
+#[ignore = "range checks on coordinates pending (validation)"]
+fn anchor_at_1e38_m() {
+    refused_or_finite("coord1e38.ron");
+}
+
+/// An anchor at y = 1.8e308 m is accepted; the report's drawing gets
+/// `inf` and `NaN` coordinates.
+#[test]
+#[ignore = "range checks on coordinates pending (validation)"]
+fn anchor_at_1e308_m() {
+    refused_or_finite("coord1e308.ron");
+}
+
+/// A strut's foot at x = −1e300 m: the buckling explanation says K L = inf m.
+#[test]
+#[ignore = "range checks on coordinates pending (validation)"]
+fn strut_foot_at_minus_1e300_m() {
+    refused_or_finite("strut1e300.ron");
+}
+
+/// An aluminium tube's wall of 1e-300 mm: area 0, the buckling
+/// explanation prints NaN (E, N_cr, λ).
+#[test]
+#[ignore = "plausible ranges per section pending (validation)"]
+fn tube_wall_1e_minus_300_mm() {
+    refused_or_finite("wall1e-300.ron");
+}
+
+/// An aluminium tube's outer diameter of 1.8e308 mm: A = NaN in the report.
+#[test]
+#[ignore = "plausible ranges per section pending (validation)"]
+fn tube_outer_1e308_mm() {
+    refused_or_finite("outer1e308.ron");
+}
+
+/// A quantity nested 7000 brackets deep (the fuzzer's slow finding: a
+/// 1.6 MB file of nested brackets took 4.8 s, the location index storing a
+/// path for every token past depth 256). Wanted: refused at a stated depth
+/// cap with a located error that says so.
+#[test]
+#[ignore = "nesting depth cap and lazy location index pending (file reading)"]
+fn deep_nesting_is_refused_at_the_cap() {
+    let depth = 7000;
+    let deep = format!("{}\"100 kg\"{}", "[".repeat(depth), "]".repeat(depth));
+    let text = input("strut1e300.ron").replace("\"-1e300 m\"", "\"2 m\"").replace("\"100 kg\"", &deep);
+    let e = load_scenario(&text).expect_err("refused").to_string();
+    assert!(e.to_lowercase().contains("nest") || e.to_lowercase().contains("depth"), "{e}");
+    assert!(e.contains(':'), "located: {e}");
+}
+
+/// The unchanged rig passes: the check above is not blind to good files.
+#[test]
+fn the_rig_unchanged_is_finite() {
+    let base = input("strut1e300.ron").replace("\"-1e300 m\"", "\"2 m\"");
+    let loaded = load_scenario(&base).expect("the base rig is valid");
+    let a = analyse(&loaded.scenario);
+    assert!(a.cases.iter().all(|c| c.error.is_none()));
+    let txt = check_text("base.ron", &a);
+    assert!(!txt.split_whitespace().any(|w| w == "inf" || w == "NaN"), "{txt}");
+}
