@@ -274,3 +274,52 @@ fn shows_the_buckling_check_of_struts() {
     assert!(doc.contains("EN 1999-1-1 6.3.1.2, buckling class B") && doc.contains("tube 50 x 3 mm"));
     assert_well_formed(&doc);
 }
+
+/// The value of a dimension line (`width` or `height`) in one drawing's SVG.
+fn dimension_m(svg: &str, which: &str) -> f64 {
+    let key = format!("data-dimension=\"{which}\" data-value-m=\"");
+    let at = svg.find(&key).unwrap_or_else(|| panic!("no {which} dimension")) + key.len();
+    svg[at..].split('"').next().and_then(|v| v.parse().ok()).unwrap_or(f64::NAN)
+}
+
+/// A four-leg bridle spread in plan: anchors at (±1 m, ±0.5 m) in x–z, a
+/// ring below the middle. The report adds the plan (seen from above) with
+/// its overall extents dimensioned: 2 m along x and 1 m along z, the
+/// anchors' spacing as drawn (symmetric, so the solve moves no node in
+/// plan; tolerance 1e-6 m for the solver's own drift). A rig in one
+/// vertical plane and on no floor gets no plan: it would be a line.
+#[test]
+fn adds_a_dimensioned_plan_when_the_rig_is_spread_in_z() {
+    let text = r#"Scenario(format: 1, title: "Four-leg spread",
+        nodes: [
+            Node(id: "A1", at: ("-1 m", "3 m", "-0.5 m"), support: Anchor),
+            Node(id: "A2", at: ("1 m", "3 m", "-0.5 m"), support: Anchor),
+            Node(id: "A3", at: ("1 m", "3 m", "0.5 m"), support: Anchor),
+            Node(id: "A4", at: ("-1 m", "3 m", "0.5 m"), support: Anchor),
+            Node(id: "ring", at: ("0 m", "1 m", "0 m")),
+        ],
+        members: [
+            Member(id: "leg-1", ends: ("A1", "ring"), kind: Chain, diameter: "8 mm", grade: "80"),
+            Member(id: "leg-2", ends: ("A2", "ring"), kind: Chain, diameter: "8 mm", grade: "80"),
+            Member(id: "leg-3", ends: ("A3", "ring"), kind: Chain, diameter: "8 mm", grade: "80"),
+            Member(id: "leg-4", ends: ("A4", "ring"), kind: Chain, diameter: "8 mm", grade: "80"),
+        ],
+        masses: [ Mass(id: "crate", at: "ring", mass: "1000 kg") ],
+        cases: [ Static(id: "hanging") ])"#;
+    let page = report(text);
+    assert_well_formed(&page);
+    let start = page.find("<svg class=\"layout plan\"").unwrap_or_else(|| panic!("a plan drawing"));
+    let plan = &page[start..start + page[start..].find("</svg>").unwrap_or(0)];
+    assert!((dimension_m(plan, "width") - 2.0).abs() < 1e-6, "{plan}");
+    assert!((dimension_m(plan, "height") - 1.0).abs() < 1e-6);
+    for id in ["A1", "A2", "A3", "A4", "ring", "leg-1", "leg-4"] {
+        assert!(plan.contains(&format!(">{id}</text>")), "{id} named in the plan");
+    }
+    assert!(page.contains("Plan (seen from above: x to the right, z down the page)"));
+    // a single sling lies in x–y: no plan; a rig on a floor slab shows the
+    // panel in plan (4 m × 4 m, outlined)
+    assert!(!report(SINGLE).contains("layout plan"));
+    let with_floor = report(BRIDLE);
+    assert!(with_floor.contains("<svg class=\"layout plan\""));
+    assert_well_formed(&with_floor);
+}

@@ -4,7 +4,7 @@
 use super::assumptions::assumptions;
 use super::cases::cases;
 use super::comparison::comparison;
-use super::drawing::drawing;
+use super::drawing::{drawing, plan_drawing};
 use super::escape::escape;
 use super::header::{caution, title_block, verdict};
 use super::inputs_members::members;
@@ -64,8 +64,11 @@ pub fn html_for_file(
 
 fn layout(scenario: &Scenario, analysis: &Analysis, units: UnitSystem) -> String {
     let (svg, caption) = drawing(scenario, analysis, units);
+    let plan = plan_drawing(scenario, analysis, units)
+        .map(|(svg, caption)| format!("<figure class=\"plan\">{svg}<figcaption>{caption}</figcaption></figure>"))
+        .unwrap_or_default();
     format!(
-        "<section id=\"layout\"><h2>Layout</h2><figure>{svg}{}<figcaption>{caption}</figcaption></figure></section>",
+        "<section id=\"layout\"><h2>Layout</h2><figure>{svg}{}<figcaption>{caption}</figcaption></figure>{plan}</section>",
         legend(scenario.near_limit)
     )
 }

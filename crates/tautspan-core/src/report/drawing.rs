@@ -5,7 +5,7 @@
 //! scale bar.
 
 use super::escape::escape;
-use super::geometry::{Elevation, View, elevation};
+use super::geometry::{Elevation, Projection, View, elevation, projected};
 use super::marks::{Mark, mark};
 use super::ramp::colour;
 use super::scale_bar::scale_bar;
@@ -45,6 +45,83 @@ pub fn drawing(scenario: &Scenario, analysis: &Analysis, units: UnitSystem) -> (
     svg.push_str(&axes([view.width - 40.0, view.height - 14.0]));
     svg.push_str("</svg>");
     (svg, caption(&elev))
+}
+
+/// The plan (the rig seen from above, x to the right, z down the page) and
+/// its caption, drawn as the elevation is: members shaded by their highest
+/// utilisation, node and mass symbols, floor panels as outlines, overall
+/// dimensions. `None` for a rig that lies in one vertical plane (x–y): its
+/// plan would be a line.
+pub fn plan_drawing(scenario: &Scenario, analysis: &Analysis, units: UnitSystem) -> Option<(String, String)> {
+    let plan = projected(scenario, analysis, Projection::Plan);
+    let (z0, z1) =
+        plan.xy_m.iter().map(|p| p[1]).fold((f64::INFINITY, f64::NEG_INFINITY), |(a, b), z| (a.min(z), b.max(z)));
+    let has_floor = !scenario.floors.is_empty();
+    if !(z1 - z0 > 1e-3) && !has_floor {
+        return None;
+    }
+    let panels: Vec<[[f64; 2]; 2]> = scenario
+        .floors
+        .iter()
+        .map(|f| {
+            let [ox, oz] = [f.origin[0].value, f.origin[1].value];
+            [[ox, -oz], [ox + f.span[0].value, -(oz + f.span[1].value)]]
+        })
+        .collect();
+    let mut pts = plan.xy_m.clone();
+    pts.extend(panels.iter().flatten().copied());
+    let view = View::fit(&pts);
+    let mut svg = format!(
+        "<svg class=\"layout plan\" viewBox=\"0 0 {:.0} {:.0}\" role=\"img\" aria-label=\"Layout plan\">",
+        view.width, view.height
+    );
+    svg.push_str(DEFS);
+    for (f, [a, b]) in scenario.floors.iter().zip(&panels) {
+        let ([xa, ya], [xb, yb]) = (view.map(*a), view.map(*b));
+        let m = mark(analysis, plan.case, &f.id);
+        let stroke_w = if m.over { 3.5 } else { 1.5 };
+        svg.push_str(&format!(
+            "<g class=\"floor\"><title>{}</title><rect x=\"{:.2}\" y=\"{:.2}\" width=\"{:.2}\" height=\"{:.2}\" fill=\"url(#hatch)\" fill-opacity=\"0.35\" stroke=\"#1b1f24\" stroke-width=\"{stroke_w}\"/>\
+             <text x=\"{:.2}\" y=\"{:.2}\" class=\"lbl id\">{}</text></g>",
+            title(&f.id, &m),
+            xa.min(xb),
+            ya.min(yb),
+            (xb - xa).abs(),
+            (yb - ya).abs(),
+            xa.min(xb) + 4.0,
+            ya.max(yb) - 6.0,
+            escape(&f.id)
+        ));
+    }
+    svg.push_str(&members(scenario, analysis, &plan, &view));
+    svg.push_str(&nodes(scenario, &plan, &view));
+    svg.push_str(&masses(scenario, &plan, &view, units));
+    svg.push_str(&super::dimensions::dimensions(&plan.xy_m, &view, units));
+    svg.push_str(&scale_bar([18.0, view.height - 14.0], view.scale, units));
+    svg.push_str(&plan_axes([view.width - 40.0, view.height - 38.0]));
+    svg.push_str("</svg>");
+    let caption = match plan.case {
+        Some(c) => format!(
+            "Plan (seen from above: x to the right, z down the page) in the solved geometry of static case “{}”; floor panels outlined; overall x and z extents dimensioned between the extreme nodes.",
+            escape(&c.id)
+        ),
+        None => "Plan (seen from above: x to the right, z down the page) as drawn: no static case was solved; floor panels outlined; overall x and z extents dimensioned between the extreme nodes.".to_string(),
+    };
+    Some((svg, caption))
+}
+
+/// A small x–z axis cross for the plan at `at`, arrows right (x) and down (z).
+fn plan_axes(at: [f64; 2]) -> String {
+    let (x, y) = (at[0], at[1]);
+    format!(
+        "<g class=\"axes\" stroke=\"#1b1f24\" stroke-width=\"1.2\" fill=\"none\">\
+         <path d=\"M{x:.2} {y:.2} h24 m-5 -3 l5 3 l-5 3 M{x:.2} {y:.2} v24 m-3 -5 l3 5 l3 -5\"/></g>\
+         <text x=\"{:.2}\" y=\"{:.2}\" class=\"lbl\">x</text><text x=\"{:.2}\" y=\"{:.2}\" class=\"lbl\">z</text>",
+        x + 27.0,
+        y + 4.0,
+        x - 4.0,
+        y + 36.0
+    )
 }
 
 fn caption(elev: &Elevation) -> String {

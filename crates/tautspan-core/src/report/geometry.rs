@@ -19,8 +19,33 @@ pub fn static_case(analysis: &Analysis) -> Option<&CaseResult> {
     analysis.cases.iter().find(|c| c.kind == "static" && c.converged && c.error.is_none())
 }
 
+/// Which two coordinates a drawing shows.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum Projection {
+    /// x to the right, y up (looking along −z).
+    Elevation,
+    /// x to the right, z down the page: the rig seen from above (the app's
+    /// plan view draws it the same way).
+    Plan,
+}
+
+impl Projection {
+    /// The drawing's (right, up) coordinates of a point (x, y, z), m.
+    pub fn of(self, p: [f64; 3]) -> [f64; 2] {
+        match self {
+            Projection::Elevation => [p[0], p[1]],
+            Projection::Plan => [p[0], -p[2]],
+        }
+    }
+}
+
 /// Positions from the static case where it has the node, drawn otherwise.
 pub fn elevation<'a>(scenario: &Scenario, analysis: &'a Analysis) -> Elevation<'a> {
+    projected(scenario, analysis, Projection::Elevation)
+}
+
+/// As [`elevation`], in any projection.
+pub fn projected<'a>(scenario: &Scenario, analysis: &'a Analysis, projection: Projection) -> Elevation<'a> {
     let case = static_case(analysis);
     let xy_m = scenario
         .nodes
@@ -29,13 +54,8 @@ pub fn elevation<'a>(scenario: &Scenario, analysis: &'a Analysis) -> Elevation<'
         .map(|(i, node)| {
             let solved = case.and_then(|c| c.nodes.iter().find(|n| n.id == node.id));
             match solved {
-                Some(n) if n.position_m[0].is_finite() && n.position_m[1].is_finite() => {
-                    [n.position_m[0], n.position_m[1]]
-                }
-                _ => {
-                    let p = scenario.position_m(i);
-                    [p[0], p[1]]
-                }
+                Some(n) if n.position_m.iter().all(|v| v.is_finite()) => projection.of(n.position_m),
+                _ => projection.of(scenario.position_m(i)),
             }
         })
         .collect();
