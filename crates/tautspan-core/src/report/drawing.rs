@@ -57,7 +57,8 @@ pub fn plan_drawing(scenario: &Scenario, analysis: &Analysis, units: UnitSystem)
     let (z0, z1) =
         plan.xy_m.iter().map(|p| p[1]).fold((f64::INFINITY, f64::NEG_INFINITY), |(a, b), z| (a.min(z), b.max(z)));
     let has_floor = !scenario.floors.is_empty();
-    if !(z1 - z0 > 1e-3) && !has_floor {
+    let spread = z1 - z0 > 1e-3;
+    if !spread && !has_floor {
         return None;
     }
     let panels: Vec<[[f64; 2]; 2]> = scenario
