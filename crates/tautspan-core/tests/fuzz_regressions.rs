@@ -1,10 +1,10 @@
 //! Findings of the fuzzer (`tests/fuzz_scenarios.rs`) that belong to the
 //! validation's range checks and the solver, minimized by hand to one rig
 //! of an anchor, a rope, a strut and a mass with one value changed; the
-//! inputs are in `tests/fuzz_regressions/`. Each is `#[ignore]`d until
-//! those checks land; then it must pass as it is: the file is refused with
-//! a located error, or every output is free of `NaN` and `inf`.
-//! Run them: `cargo test -p tautspan-core --test fuzz_regressions -- --ignored`.
+//! inputs are in `tests/fuzz_regressions/`. Each must pass as it is: the
+//! file is refused with a located error (the plausible ranges of
+//! coordinates and section dimensions, the nesting cap), or every output is
+//! free of `NaN` and `inf`.
 
 #![allow(clippy::expect_used, clippy::unwrap_used, reason = "tests fail loudly")]
 
@@ -38,7 +38,6 @@ fn refused_or_finite(name: &str) {
 
 /// An anchor at y = 1e38 m is accepted; the warning says "strain inf %".
 #[test]
-#[ignore = "range checks on coordinates pending (validation)"]
 fn anchor_at_1e38_m() {
     refused_or_finite("coord1e38.ron");
 }
@@ -46,14 +45,12 @@ fn anchor_at_1e38_m() {
 /// An anchor at y = 1.8e308 m is accepted; the report's drawing gets
 /// `inf` and `NaN` coordinates.
 #[test]
-#[ignore = "range checks on coordinates pending (validation)"]
 fn anchor_at_1e308_m() {
     refused_or_finite("coord1e308.ron");
 }
 
 /// A strut's foot at x = −1e300 m: the buckling explanation says K L = inf m.
 #[test]
-#[ignore = "range checks on coordinates pending (validation)"]
 fn strut_foot_at_minus_1e300_m() {
     refused_or_finite("strut1e300.ron");
 }
@@ -61,14 +58,12 @@ fn strut_foot_at_minus_1e300_m() {
 /// An aluminium tube's wall of 1e-300 mm: area 0, the buckling
 /// explanation prints NaN (E, N_cr, λ).
 #[test]
-#[ignore = "plausible ranges per section pending (validation)"]
 fn tube_wall_1e_minus_300_mm() {
     refused_or_finite("wall1e-300.ron");
 }
 
 /// An aluminium tube's outer diameter of 1.8e308 mm: A = NaN in the report.
 #[test]
-#[ignore = "plausible ranges per section pending (validation)"]
 fn tube_outer_1e308_mm() {
     refused_or_finite("outer1e308.ron");
 }
@@ -78,7 +73,6 @@ fn tube_outer_1e308_mm() {
 /// path for every token past depth 256). Wanted: refused at a stated depth
 /// cap with a located error that says so.
 #[test]
-#[ignore = "nesting depth cap and lazy location index pending (file reading)"]
 fn deep_nesting_is_refused_at_the_cap() {
     let depth = 7000;
     let deep = format!("{}\"100 kg\"{}", "[".repeat(depth), "]".repeat(depth));

@@ -6,7 +6,7 @@
 use super::build_fittings::{Host, build_fittings, build_rated, build_rated_direction};
 use super::build_ropes::{build_ropes, build_sheave};
 use super::floor_feet::place_feet;
-use super::plausible::{AREA, COORDINATE, DROP_HEIGHT, MASS, MODULUS, Plausible};
+use super::plausible::{AREA, COORDINATE, DROP_HEIGHT, MASS, MODULUS, Plausible, SECTION_LENGTH};
 use super::scenario::{
     Bend, Case, DEFAULT_FRICTION_LIMIT, DesignFactor, Floor, Mass, Member, Node, Rating, Scenario, Strut, Support,
 };
@@ -76,7 +76,13 @@ impl Ctx {
         sign: Sign,
     ) -> Option<f64> {
         match parse_quantity(&q.0, dim, sign) {
-            Ok(v) => Some(v),
+            Ok(v) => match super::plausible::implausible_magnitude(v, &q.0) {
+                Some(why) => {
+                    self.err(path, why);
+                    None
+                }
+                None => Some(v),
+            },
             Err(e) => {
                 self.err(path, e.to_string());
                 None
@@ -603,8 +609,8 @@ fn build_section(ctx: &mut Ctx, i: usize, s: &SectionDto) -> Option<Section> {
     let p = |s: &'static str| Field { section: "members", index: i, name: s };
     match s {
         SectionDto::Tube { outer, wall } => {
-            let o = ctx.qty(outer, p("section.outer"), Dimension::Length, Sign::Positive);
-            let t = ctx.qty(wall, p("section.wall"), Dimension::Length, Sign::Positive);
+            let o = ctx.plausible_qty(outer, p("section.outer"), Dimension::Length, Sign::Positive, SECTION_LENGTH);
+            let t = ctx.plausible_qty(wall, p("section.wall"), Dimension::Length, Sign::Positive, SECTION_LENGTH);
             let (o, t) = (o?, t?);
             if t >= o / 2.0 {
                 ctx.err(
@@ -620,7 +626,7 @@ fn build_section(ctx: &mut Ctx, i: usize, s: &SectionDto) -> Option<Section> {
             Some(Section::Tube { outer_m: o, wall_m: t })
         }
         SectionDto::SolidRound { diameter } => ctx
-            .qty(diameter, p("section.diameter"), Dimension::Length, Sign::Positive)
+            .plausible_qty(diameter, p("section.diameter"), Dimension::Length, Sign::Positive, SECTION_LENGTH)
             .map(|d| Section::SolidRound { diameter_m: d }),
     }
 }

@@ -23,6 +23,10 @@ pub(super) enum Host {
 
 fn rated_load(ctx: &mut Ctx, q: &Qty, path: &str) -> Option<(Force, String)> {
     match parse_rated_load(&q.0, Sign::Positive) {
+        Ok((n, _)) if super::plausible::implausible_magnitude(n, &q.0).is_some() => {
+            ctx.err(path, super::plausible::implausible_magnitude(n, &q.0).unwrap_or_default());
+            None
+        }
         Ok((n, mass)) => {
             let note = if mass {
                 format!(

@@ -75,6 +75,24 @@ pub const MASS: Plausible = Plausible { what: "a mass", lo: 1e-3, hi: 1e7, text:
 /// A drop height: 0 to 1 km (a free fall of more is no rigging case).
 pub const DROP_HEIGHT: Plausible = Plausible { what: "a drop height", lo: 0.0, hi: 1e3, text: "0 m to 1 km" };
 
+/// Any quantity at all, in SI base units, before its own range: a nonzero
+/// magnitude below 1e-15 or above 1e15 (a denormal yield stress, a rating
+/// of 1e300 N) is no value a rig has in any unit, and would reach the
+/// checks as a zero divisor or an overflow. Zero passes (a drop of 0 m).
+pub fn implausible_magnitude(value: f64, typed: &str) -> Option<String> {
+    let m = value.abs();
+    (value != 0.0 && !(1e-15..=1e15).contains(&m)).then(|| {
+        format!(
+            "\"{typed}\" is outside any plausible magnitude for a scenario (1e-15 to 1e15 in SI base units); check the unit and the exponent"
+        )
+    })
+}
+
+/// A rod's section dimension (a tube's outside diameter or wall, a bar's
+/// diameter): 0.1 mm (thin-walled tube) to 5 m.
+pub const SECTION_LENGTH: Plausible =
+    Plausible { what: "a section dimension", lo: 1e-4, hi: 5.0, text: "0.1 mm to 5 m" };
+
 /// A node coordinate: within 10,000 km of zero (site grids' northings reach
 /// about 1e7 m).
 pub const COORDINATE: Plausible =
@@ -99,7 +117,7 @@ mod tests {
 
     #[test]
     fn bounds_are_inside_and_slips_outside() {
-        for r in [AREA, MODULUS, MASS, DROP_HEIGHT, COORDINATE] {
+        for r in [AREA, MODULUS, MASS, DROP_HEIGHT, COORDINATE, SECTION_LENGTH] {
             assert!(r.outside(r.lo, "lo").is_none() && r.outside(r.hi, "hi").is_none(), "{}", r.what);
             assert!(r.outside(f64::NAN, "NaN").is_some(), "{}", r.what);
         }
@@ -111,6 +129,11 @@ mod tests {
         assert!(AREA.outside(1e-306, "1e-300 mm^2").is_some());
         assert!(MODULUS.outside(1e300, "1e291 GPa").is_some());
         assert!(DROP_HEIGHT.outside(1e299, "1e299 m").is_some());
+        // any quantity: zero and ordinary values pass, denormal and huge ones do not
+        assert!(implausible_magnitude(0.0, "0 m").is_none());
+        assert!(implausible_magnitude(250e6, "250 MPa").is_none());
+        assert!(implausible_magnitude(4.9e-318, "4.9e-324 MPa").is_some());
+        assert!(implausible_magnitude(-1e300, "-1e300 N").is_some());
     }
 
     #[test]
