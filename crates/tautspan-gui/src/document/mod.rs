@@ -13,6 +13,7 @@ pub(crate) mod command;
 pub mod core_bridge;
 pub(crate) mod derived;
 pub(crate) mod edits;
+pub(crate) mod placing;
 pub(crate) mod rename;
 pub(crate) mod selection;
 pub(crate) mod solve_worker;
