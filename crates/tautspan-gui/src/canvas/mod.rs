@@ -185,6 +185,19 @@ fn snap_point(geo: &Geometry, view: &View, p: Pos2, units: UnitSystem, moving: O
     uv
 }
 
+/// The slab of the selected floor node, or the selected slab: where the
+/// floor node tool puts the next foot (with neither, it makes a new slab).
+fn selected_slab(input: &CanvasInput<'_>) -> Option<String> {
+    match input.selection {
+        Selection::Floor(f) => Some(f.clone()),
+        Selection::Node(id) => input.doc.dto.nodes.iter().find(|n| &n.id == id).and_then(|n| match &n.support {
+            SupportDto::Floor(f) => Some(f.clone()),
+            _ => None,
+        }),
+        _ => None,
+    }
+}
+
 /// The coordinates a new node keeps from outside the view: the selected
 /// node's, else 0.
 pub(crate) fn kept_coordinates(drawn: &Geometry, selection: &Selection) -> [f64; 3] {
@@ -299,10 +312,15 @@ pub fn ui(ui: &mut Ui, state: &mut CanvasState, view: &mut View, input: &CanvasI
                             let uv = snap_point(geo, view, p, units, None);
                             if let Some(xyz) = view.unproject(uv, keep) {
                                 let tool = input.tool;
+                                // a foot next to a selected foot or slab stands on the same slab
+                                let slab = selected_slab(input);
                                 out.push(Command::place(move |d| {
-                                    let id = match tool {
-                                        Tool::Anchor => placing::add_node_at(d, xyz, SupportDto::Anchor, units),
-                                        Tool::FloorNode => placing::add_floor_node_at(d, xyz, units),
+                                    let id = match (tool, slab) {
+                                        (Tool::Anchor, _) => placing::add_node_at(d, xyz, SupportDto::Anchor, units),
+                                        (Tool::FloorNode, Some(f)) => {
+                                            placing::add_node_at(d, xyz, SupportDto::Floor(f), units)
+                                        }
+                                        (Tool::FloorNode, None) => placing::add_floor_node_at(d, xyz, units),
                                         _ => placing::add_node_at(d, xyz, SupportDto::Joint, units),
                                     };
                                     Selection::Node(id)
