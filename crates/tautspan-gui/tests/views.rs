@@ -176,6 +176,16 @@ fn the_readout_gives_the_coordinates_of_the_view_under_the_cursor() {
 }
 
 #[test]
+fn the_legend_folds_away_and_back() {
+    let mut h = harness(app_on(TWO_DEEP));
+    assert!(!h.state().canvas.legend_hidden);
+    click(&mut h, "Hide legend");
+    assert!(h.state().canvas.legend_hidden);
+    click(&mut h, "Show legend");
+    assert!(!h.state().canvas.legend_hidden);
+}
+
+#[test]
 fn the_inspector_shows_the_solved_position_in_x_y_and_z() {
     let mut h = harness(app_on(TWO_DEEP));
     click(&mut h, "Plan (x–z)");
