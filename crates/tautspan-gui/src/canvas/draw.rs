@@ -41,17 +41,19 @@ fn draw_grid(painter: &Painter, view: &View, units: UnitSystem) {
     let rect = view.rect;
     painter.rect_filled(rect, 0.0, PAPER);
     let step = view.grid_step_m(units);
+    // the 3-D view has no plane of its own to rule: paper and scale bar only
+    let ruled = view.kind != ViewKind::Orbit;
     let lo = view.to_world(rect.left_bottom());
     let hi = view.to_world(rect.right_top());
     let mut x = (lo[0] / step).floor() * step;
-    while x <= hi[0] {
+    while ruled && x <= hi[0] {
         let sx = view.to_screen(x, 0.0).x;
         let c = if x.abs() < step * 1e-6 { GRID_AXIS } else { GRID };
         painter.line_segment([pos2(sx, rect.top()), pos2(sx, rect.bottom())], Stroke::new(1.0, c));
         x += step;
     }
     let mut y = (lo[1] / step).floor() * step;
-    while y <= hi[1] {
+    while ruled && y <= hi[1] {
         let sy = view.to_screen(0.0, y).y;
         let c = if y.abs() < step * 1e-6 { GRID_AXIS } else { GRID };
         painter.line_segment([pos2(rect.left(), sy), pos2(rect.right(), sy)], Stroke::new(1.0, c));
@@ -410,8 +412,20 @@ pub fn draw(
         }
     }
     painter.extend(joints);
+    // nodes on one screen point (one above the other in plan, one behind
+    // the other in the elevation) share one label naming them all
+    let mut shared: Vec<(Pos2, String)> = Vec::new();
     for (p, id) in names {
-        painter.text(p + vec2(9.0, 9.0), Align2::LEFT_TOP, id, FontId::proportional(11.0), CASING);
+        match shared.iter_mut().find(|(q, _)| q.distance(p) < 2.0) {
+            Some((_, text)) => {
+                text.push_str(", ");
+                text.push_str(id);
+            }
+            None => shared.push((p, id.to_string())),
+        }
+    }
+    for (p, text) in shared {
+        painter.text(p + vec2(9.0, 9.0), Align2::LEFT_TOP, text, FontId::proportional(11.0), CASING);
     }
     // in the deflected view the caption holds the top left; the legend goes below it
     let legend_top = if deflection.is_some() { CAPTION_HEIGHT + 16.0 } else { 12.0 } + LEGEND_SWITCH_HEIGHT;

@@ -16,8 +16,6 @@ use egui::{Align2, Color32, Pos2, RichText, Stroke, Ui, vec2};
 /// Height the view switch takes at the top of the canvas, pt.
 pub const SWITCH_HEIGHT: f32 = 34.0;
 
-const PANEL: Color32 = Color32::from_rgba_premultiplied(0xfa, 0xf9, 0xf4, 0xf0);
-
 /// Keys 1 to 4 switch the view (outside text fields).
 pub fn view_keys(ui: &Ui, view: &mut View) {
     if ui.ctx().egui_wants_keyboard_input() {
@@ -69,7 +67,7 @@ pub fn ui(
     let rect = view.rect;
     // the view switch, top left
     area(ui, "view-switch", rect.left_top() + vec2(8.0, 6.0), Align2::LEFT_TOP).show(ui.ctx(), |ui| {
-        egui::Frame::new().fill(PANEL).corner_radius(4.0).inner_margin(3.0).show(ui, |ui| {
+        egui::Frame::new().fill(ui.visuals().window_fill).corner_radius(4.0).inner_margin(3.0).show(ui, |ui| {
             ui.horizontal(|ui| {
                 for kind in ViewKind::ALL {
                     let key = format!("key {}", ViewKind::ALL.iter().position(|k| *k == kind).unwrap_or(0) + 1);
@@ -122,8 +120,8 @@ pub fn ui(
     };
     if let Some(text) = readout {
         area(ui, "readout", rect.right_bottom() + vec2(-10.0, -8.0), Align2::RIGHT_BOTTOM).show(ui.ctx(), |ui| {
-            egui::Frame::new().fill(PANEL).corner_radius(3.0).inner_margin(4.0).show(ui, |ui| {
-                ui.label(RichText::new(text).monospace().size(12.0));
+            egui::Frame::new().fill(ui.visuals().window_fill).corner_radius(3.0).inner_margin(4.0).show(ui, |ui| {
+                ui.add(egui::Label::new(RichText::new(text).monospace().size(12.0)).extend());
             });
         });
     }
