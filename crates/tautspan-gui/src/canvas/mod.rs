@@ -55,6 +55,51 @@ pub struct CanvasState {
     pub legend_hidden: bool,
     /// The multi-leg sling helper.
     pub sling: sling::SlingHelper,
+    /// The painted drawing of the last frame and what it was painted from:
+    /// painted again only when one of those changed.
+    painted: Option<(PaintKey, Arc<Vec<egui::Shape>>)>,
+}
+
+/// Everything the painted drawing depends on.
+#[derive(Debug, Clone, PartialEq)]
+struct PaintKey {
+    revision: u64,
+    projection: ProjectionKey,
+    view: (f64, f64, f64, egui::Rect, bool, u32),
+    selection: Selection,
+    case: Option<String>,
+    results: (u64, usize),
+    labels: bool,
+    units: UnitSystem,
+    picking: (Option<String>, Vec<String>, Vec<String>, Option<Pos2>),
+    legend: bool,
+}
+
+impl PaintKey {
+    fn of(state: &CanvasState, view: &View, input: &CanvasInput<'_>, hover: Option<Pos2>) -> PaintKey {
+        let routing = state.member_start.is_some() || !state.rope_path.is_empty();
+        PaintKey {
+            revision: input.doc.revision,
+            projection: ProjectionKey::of(view),
+            view: (view.centre_m[0], view.centre_m[1], view.px_per_m, view.rect, view.deflected, view.magnification),
+            selection: input.selection.clone(),
+            case: input.case.map(str::to_string),
+            results: (
+                input.derived.revision,
+                input.derived.solved.as_ref().map_or(0, |s| Arc::as_ptr(s) as usize),
+            ),
+            labels: input.labels,
+            units: input.units,
+            // the pointer matters only while a dashed line follows it
+            picking: (
+                state.member_start.clone(),
+                state.rope_path.clone(),
+                state.sling.points.clone(),
+                hover.filter(|_| routing),
+            ),
+            legend: !state.legend_hidden,
+        }
+    }
 }
 
 /// What a projected geometry depends on besides the document.
@@ -391,15 +436,28 @@ pub fn ui(ui: &mut Ui, state: &mut CanvasState, view: &mut View, input: &CanvasI
     }
 
     let painter = ui.painter_at(rect);
-    let deflection = deflected.as_ref().map(|_| Deflection { drawn: &shown });
-    let picking = draw::Picking {
-        member_start: state.member_start.as_deref(),
-        rope_path: &state.rope_path,
-        hover: response.hover_pos(),
-        sling: state.sling.route(),
-        legend: !state.legend_hidden,
-    };
-    draw::draw(&painter, view, geo, input, &picking, deflection.as_ref());
+    let key = PaintKey::of(state, view, input, response.hover_pos());
+    match &state.painted {
+        // nothing the drawing depends on changed: the last frame's shapes again
+        Some((k, shapes)) if *k == key => painter.extend(shapes.iter().cloned()),
+        _ => {
+            let layer = painter.layer_id();
+            let first = ui.ctx().graphics(|g| g.get(layer).map_or(0, |l| l.next_idx().0));
+            let deflection = deflected.as_ref().map(|_| Deflection { drawn: &shown });
+            let picking = draw::Picking {
+                member_start: state.member_start.as_deref(),
+                rope_path: &state.rope_path,
+                hover: response.hover_pos(),
+                sling: state.sling.route(),
+                legend: !state.legend_hidden,
+            };
+            draw::draw(&painter, view, geo, input, &picking, deflection.as_ref());
+            let shapes: Vec<egui::Shape> = ui.ctx().graphics(|g| {
+                g.get(layer).map_or_else(Vec::new, |l| l.all_entries().skip(first).map(|c| c.shape.clone()).collect())
+            });
+            state.painted = Some((key, Arc::new(shapes)));
+        }
+    }
     if let Some((_, caption)) = &deflected {
         draw::deflection_caption(ui, view, caption);
     } else if view.deflected {
