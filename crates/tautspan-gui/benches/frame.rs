@@ -143,12 +143,7 @@ fn views(h: &mut Harness<'static, TautspanApp>) {
             tess.push(ms(t.elapsed()));
             std::hint::black_box(meshes);
         }
-        line.push_str(&format!(
-            " {} {:.1} ms (+ tessellation {:.1} ms);",
-            kind.label(),
-            median(frames),
-            median(tess)
-        ));
+        line.push_str(&format!(" {} {:.1} ms (+ tessellation {:.1} ms);", kind.label(), median(frames), median(tess)));
     }
     let mut turning = Vec::new();
     for _ in 0..30 {

@@ -195,7 +195,10 @@ fn the_inspector_shows_the_solved_position_in_x_y_and_z() {
     // g × 2 m / (100 GPa × 50 mm²) = 1.96133 mm; x and z stay (the rope hangs plumb)
     let stretch = 500.0 * G * 2.0 / (100e9 * 50e-6);
     let y = 1.0 - stretch;
-    let text = format!("Solved position: x 0 m, y {} m, z 1 m", tautspan_gui::UnitSystem::Si.fmt(y, tautspan_gui::Shown::Length).trim_end_matches(" m"));
+    let text = format!(
+        "Solved position: x 0 m, y {} m, z 1 m",
+        tautspan_gui::UnitSystem::Si.fmt(y, tautspan_gui::Shown::Length).trim_end_matches(" m")
+    );
     assert!(h.query_by_label(&text).is_some(), "expected \"{text}\"");
     let case = case0(&h);
     let r = case.nodes.iter().find(|n| n.id == "J2").unwrap();

@@ -342,7 +342,12 @@ pub fn draw(
     if let Some(hook) = picking.sling.first().and_then(|id| geo.node(id)) {
         let h = view.to_screen(hook.pos_m[0], hook.pos_m[1]);
         for n in picking.sling.iter().skip(1).filter_map(|id| geo.node(id)) {
-            painter.extend(Shape::dashed_line(&[h, view.to_screen(n.pos_m[0], n.pos_m[1])], Stroke::new(2.0, PICK), 6.0, 4.0));
+            painter.extend(Shape::dashed_line(
+                &[h, view.to_screen(n.pos_m[0], n.pos_m[1])],
+                Stroke::new(2.0, PICK),
+                6.0,
+                4.0,
+            ));
         }
         painter.circle_stroke(h, 14.0, Stroke::new(2.0, PICK));
     }
@@ -479,7 +484,10 @@ pub struct Deflection<'a> {
 /// legend moves down below it), naming the case and the magnification (a
 /// widget, so it can be read out).
 pub fn deflection_caption(ui: &mut egui::Ui, view: &View, caption: &str) {
-    let at = Rect::from_min_max(view.rect.left_top() + vec2(12.0, 10.0 + super::overlay::SWITCH_HEIGHT), view.rect.right_bottom());
+    let at = Rect::from_min_max(
+        view.rect.left_top() + vec2(12.0, 10.0 + super::overlay::SWITCH_HEIGHT),
+        view.rect.right_bottom(),
+    );
     ui.scope_builder(egui::UiBuilder::new().max_rect(at), |ui| {
         ui.set_clip_rect(view.rect);
         let line = |text: egui::RichText| egui::Label::new(text).wrap_mode(egui::TextWrapMode::Extend);

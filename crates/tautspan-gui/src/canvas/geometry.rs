@@ -109,7 +109,9 @@ impl GeoFloor {
                 let right = view.to_screen(self.at_m[0] + self.span_z_m / 2.0, self.at_m[1]);
                 return Rect::from_min_max(pos2(left.x, left.y), pos2(right.x, right.y + t));
             }
-            ViewKind::Orbit => return Rect::from_center_size(view.to_screen(self.at_m[0], self.at_m[1]), egui::vec2(8.0, 8.0)),
+            ViewKind::Orbit => {
+                return Rect::from_center_size(view.to_screen(self.at_m[0], self.at_m[1]), egui::vec2(8.0, 8.0));
+            }
             ViewKind::Elevation => {}
         }
         let left = view.to_screen(self.at_m[0] - self.span_m / 2.0, self.at_m[1]);
@@ -256,10 +258,7 @@ impl Geometry {
             && self.ropes.iter().zip(&dto.ropes).all(|(g, r)| g.id == r.id && g.path == r.path)
             && self.masses.len() == dto.masses.len()
             && self.masses.iter().zip(&dto.masses).all(|(g, m)| g.id == m.id && g.at == m.at);
-        let Some(positions) = same
-            .then(|| dto.nodes.iter().map(xyz_of).collect::<Option<Vec<_>>>())
-            .flatten()
-        else {
+        let Some(positions) = same.then(|| dto.nodes.iter().map(xyz_of).collect::<Option<Vec<_>>>()).flatten() else {
             return false;
         };
         for ((g, p), n) in self.nodes.iter_mut().zip(positions).zip(&dto.nodes) {
@@ -294,9 +293,7 @@ impl Geometry {
             f.at_m = view.project(f.xyz_m).0;
         }
         if view.kind == crate::canvas::view::ViewKind::Orbit {
-            let depth = |a: &str, b: &str| {
-                out.node(a).map_or(0.0, |n| n.depth) + out.node(b).map_or(0.0, |n| n.depth)
-            };
+            let depth = |a: &str, b: &str| out.node(a).map_or(0.0, |n| n.depth) + out.node(b).map_or(0.0, |n| n.depth);
             let mut members: Vec<(f64, GeoMember)> =
                 out.members.iter().map(|m| (depth(&m.ends.0, &m.ends.1), m.clone())).collect();
             members.sort_by(|a, b| a.0.total_cmp(&b.0));

@@ -84,10 +84,7 @@ impl PaintKey {
             view: (view.centre_m[0], view.centre_m[1], view.px_per_m, view.rect, view.deflected, view.magnification),
             selection: input.selection.clone(),
             case: input.case.map(str::to_string),
-            results: (
-                input.derived.revision,
-                input.derived.solved.as_ref().map_or(0, |s| Arc::as_ptr(s) as usize),
-            ),
+            results: (input.derived.revision, input.derived.solved.as_ref().map_or(0, |s| Arc::as_ptr(s) as usize)),
             labels: input.labels,
             units: input.units,
             // the pointer matters only while a dashed line follows it

@@ -5,9 +5,9 @@
 //! nodes keep), and the legend's fold switch. They are widgets, not paint,
 //! so they can be read out and clicked.
 
+use crate::canvas::CanvasState;
 use crate::canvas::input::CanvasInput;
 use crate::canvas::view::{View, ViewKind};
-use crate::canvas::CanvasState;
 use crate::document::command::Command;
 use crate::document::selection::Selection;
 use crate::fields::units_display::Shown;
@@ -99,16 +99,20 @@ pub fn ui(
             let [u, v] = view.to_world(p);
             // plan shows −z upwards on screen; the readout says z itself
             let v = if view.kind == ViewKind::Plan { -v } else { v };
-            let mut text =
-                format!("{a} {}   {b} {}", units.fmt(u, Shown::Length), units.fmt(v, Shown::Length));
+            let mut text = format!("{a} {}   {b} {}", units.fmt(u, Shown::Length), units.fmt(v, Shown::Length));
             if placing {
                 let hidden = match view.kind {
                     ViewKind::Elevation => ("z", keep[2]),
                     ViewKind::Plan => ("y", keep[1]),
                     _ => ("x", keep[0]),
                 };
-                let from = if matches!(input.selection, Selection::Node(_)) { "the selected node's" } else { "none selected" };
-                text.push_str(&format!("   · new nodes at {} {} ({from})", hidden.0, units.fmt(hidden.1, Shown::Length)));
+                let from =
+                    if matches!(input.selection, Selection::Node(_)) { "the selected node's" } else { "none selected" };
+                text.push_str(&format!(
+                    "   · new nodes at {} {} ({from})",
+                    hidden.0,
+                    units.fmt(hidden.1, Shown::Length)
+                ));
             }
             Some(text)
         }
@@ -130,14 +134,17 @@ pub fn ui(
     if let Some((at, items)) = state.chooser.clone() {
         let mut picked: Option<Selection> = None;
         let shown = area(ui, "chooser", at + vec2(12.0, 4.0), Align2::LEFT_TOP).show(ui.ctx(), |ui| {
-            egui::Frame::popup(ui.style()).stroke(Stroke::new(1.5, Color32::from_rgb(0x1f, 0x5f, 0xd6))).show(ui, |ui| {
-                ui.label(RichText::new("Several items here:").small());
-                for s in &items {
-                    if ui.button(item_label(s)).clicked() {
-                        picked = Some(s.clone());
+            egui::Frame::popup(ui.style()).stroke(Stroke::new(1.5, Color32::from_rgb(0x1f, 0x5f, 0xd6))).show(
+                ui,
+                |ui| {
+                    ui.label(RichText::new("Several items here:").small());
+                    for s in &items {
+                        if ui.button(item_label(s)).clicked() {
+                            picked = Some(s.clone());
+                        }
                     }
-                }
-            });
+                },
+            );
         });
         let clicked_elsewhere = ui.input(|i| i.pointer.primary_clicked())
             && ui.input(|i| i.pointer.interact_pos()).is_some_and(|p| !shown.response.rect.contains(p))

@@ -86,7 +86,9 @@ fn describe(m: &MemberDto) -> String {
 fn source_label(s: &LegSource, units: UnitSystem) -> String {
     match s {
         LegSource::Like(id) => format!("like member {id}"),
-        LegSource::Library(k) => format!("library {}", describe(&edits::default_member(String::new(), "", "", *k, units))),
+        LegSource::Library(k) => {
+            format!("library {}", describe(&edits::default_member(String::new(), "", "", *k, units)))
+        }
     }
 }
 
@@ -116,9 +118,7 @@ fn place_legs(d: &mut ScenarioDto, points: &[String], source: &LegSource, units:
 
 /// The leg member between the hook and a pick point, if placed.
 fn leg_between<'a>(dto: &'a ScenarioDto, hook: &str, pick: &str) -> Option<&'a MemberDto> {
-    dto.members.iter().find(|m| {
-        (m.ends.0 == hook && m.ends.1 == pick) || (m.ends.0 == pick && m.ends.1 == hook)
-    })
+    dto.members.iter().find(|m| (m.ends.0 == hook && m.ends.1 == pick) || (m.ends.0 == pick && m.ends.1 == hook))
 }
 
 fn distance(geo: &Geometry, a: &str, b: &str) -> Option<f64> {
@@ -153,7 +153,8 @@ pub fn window(ui: &mut Ui, state: &mut CanvasState, drawn: &Geometry, input: &Ca
             ui.label(format!("Hook: {}", hook.unwrap_or("—")));
             ui.label(format!("Pick points: {}", if picks.is_empty() { "—".to_string() } else { picks.join(", ") }));
             // leg lengths and their mismatch
-            let lengths: Vec<f64> = hook.map_or_else(Vec::new, |h| picks.iter().filter_map(|p| distance(drawn, h, p)).collect());
+            let lengths: Vec<f64> =
+                hook.map_or_else(Vec::new, |h| picks.iter().filter_map(|p| distance(drawn, h, p)).collect());
             for (p, l) in picks.iter().zip(&lengths) {
                 ui.label(format!("leg to {p}: {}", units.fmt(*l, Shown::Length)));
             }
@@ -235,10 +236,8 @@ fn results(ui: &mut Ui, input: &CanvasInput<'_>, hook: &str, picks: &[String]) {
             "The standard's rating of a 3- or 4-leg sling counts only two legs as carrying the load \
              (a rigid load shares unevenly); each leg is still checked on its solved force.",
         );
-        let advice = case
-            .warning_items
-            .iter()
-            .find(|w| w.kind == WarningKind::MultiLeg && w.subject.as_deref() == Some(hook));
+        let advice =
+            case.warning_items.iter().find(|w| w.kind == WarningKind::MultiLeg && w.subject.as_deref() == Some(hook));
         match advice {
             Some(w) => ui.label(RichText::new(&w.message).small()),
             None => ui.label(RichText::new("The solve does not count these legs as one sling (no advisory).").small()),

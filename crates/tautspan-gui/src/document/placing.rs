@@ -45,8 +45,12 @@ pub fn add_floor_node_at(dto: &mut ScenarioDto, xyz_m: [f64; 3], units: UnitSyst
         && let Some((_, oz)) = &mut f.origin
         && xyz_m[2] != 0.0
     {
-        let half_m = tautspan_core::units::parse_quantity(&oz.0, tautspan_core::units::Dimension::Length, tautspan_core::units::Sign::Any)
-            .unwrap_or(0.0);
+        let half_m = tautspan_core::units::parse_quantity(
+            &oz.0,
+            tautspan_core::units::Dimension::Length,
+            tautspan_core::units::Sign::Any,
+        )
+        .unwrap_or(0.0);
         *oz = requantify(Some(oz), half_m + xyz_m[2], Shown::Length, units);
     }
     id
