@@ -246,3 +246,43 @@ fn results(ui: &mut Ui, input: &CanvasInput<'_>, hook: &str, picks: &[String]) {
         ui.label("Two legs: each leg is rated on its own solved force.");
     }
 }
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn legs_copied_from_a_member_take_its_sizing_and_fresh_ids() {
+        let mut d = ScenarioDto::default();
+        let like = edits::default_member("bridle".to_string(), "X", "Y", MemberKind::Chain, UnitSystem::Si);
+        d.members.push(like.clone());
+        let points: Vec<String> = ["H", "P1", "P2", "P3"].map(String::from).to_vec();
+        let picked = place_legs(&mut d, &points, &LegSource::Like("bridle".into()), UnitSystem::Si);
+        assert_eq!(picked, Selection::Member("leg1".into()));
+        let legs: Vec<&MemberDto> = d.members.iter().skip(1).collect();
+        assert_eq!(legs.iter().map(|m| m.id.as_str()).collect::<Vec<_>>(), ["leg1", "leg2", "leg3"]);
+        for (m, p) in legs.iter().zip(["P1", "P2", "P3"]) {
+            assert_eq!(m.ends, ("H".to_string(), p.to_string()));
+            assert_eq!((m.kind, &m.diameter, &m.grade), (like.kind, &like.diameter, &like.grade));
+        }
+    }
+
+    #[test]
+    fn the_helper_takes_a_hook_and_at_most_four_distinct_pick_points() {
+        let mut s = SlingHelper::default();
+        s.toggle();
+        assert!(s.open && s.picking);
+        for id in ["H", "P1", "P1", "P2", "P3", "P4", "P5"] {
+            s.pick(id.to_string());
+        }
+        assert_eq!(s.route(), ["H", "P1", "P2", "P3", "P4"]);
+        s.toggle();
+        assert!(!s.open && s.route().is_empty());
+    }
+
+    #[test]
+    fn no_library_leg_is_offered_outside_the_tables() {
+        assert!(library_choices(UnitSystem::UsCustomary).is_empty());
+        assert_eq!(library_choices(UnitSystem::Si), [MemberKind::WireRope, MemberKind::Chain]);
+    }
+}
