@@ -465,3 +465,49 @@ fn build_a_rope_over_a_running_block_in_the_side_view() {
         assert!(rel(seg.force_n, t) < STATICS_TOL, "span {}–{}: {} vs {t}", seg.from, seg.to, seg.force_n);
     }
 }
+
+#[test]
+fn a_node_dragged_in_plan_moves_in_x_and_z_and_keeps_its_height() {
+    let mut h = harness(app_on(TWO_DEEP));
+    click(&mut h, "Plan (x–z)");
+    frame_on(&mut h, [0.0, 0.0], 100.0);
+    // in plan J1 sits under A1 on one point: a drag takes the nearest of the
+    // two, and whichever it is moves in x and z and keeps its height
+    let from = h.state().view.to_screen_xyz([0.0, 1.0, -1.0]);
+    let to = h.state().view.to_screen_xyz([1.0, 1.0, -0.5]);
+    h.event(egui::Event::PointerMoved(from));
+    h.run();
+    h.event(egui::Event::PointerButton {
+        pos: from,
+        button: egui::PointerButton::Primary,
+        pressed: true,
+        modifiers: egui::Modifiers::NONE,
+    });
+    h.run();
+    for k in 1..=8 {
+        let t = k as f32 / 8.0;
+        h.event(egui::Event::PointerMoved(from + (to - from) * t));
+        h.run();
+    }
+    h.event(egui::Event::PointerButton {
+        pos: to,
+        button: egui::PointerButton::Primary,
+        pressed: false,
+        modifiers: egui::Modifiers::NONE,
+    });
+    h.run();
+    let dragged = match h.state().selection.clone() {
+        Selection::Node(id) => id,
+        other => panic!("a node is dragged, not {other:?}"),
+    };
+    let n = h.state().doc.dto.nodes.iter().find(|n| n.id == dragged).unwrap().clone();
+    assert_eq!(n.at.x.0, "1 m", "x from the plan, on the grid");
+    assert_eq!(n.at.z.as_ref().map(|z| z.0.as_str()), Some("-0.5 m"), "z from the plan");
+    let height = if dragged.starts_with('A') { "3 m" } else { "1 m" };
+    assert_eq!(n.at.y.0, height, "the height the plan does not show is kept");
+    // one undo step takes the whole drag back
+    h.key_press_modifiers(egui::Modifiers::COMMAND, egui::Key::Z);
+    h.run();
+    let n = h.state().doc.dto.nodes.iter().find(|n| n.id == dragged).unwrap().clone();
+    assert_eq!((n.at.x.0.as_str(), n.at.z.as_ref().map(|z| z.0.as_str())), ("0 m", Some("-1 m")));
+}
