@@ -60,12 +60,25 @@ pub struct CanvasState {
     painted: Option<(PaintKey, Arc<Vec<egui::Shape>>)>,
 }
 
+/// The canvas input and the screen's scale.
+struct KeyInput<'a> {
+    input: &'a CanvasInput<'a>,
+    pixels_per_point: f32,
+}
+
+impl<'a> std::ops::Deref for KeyInput<'a> {
+    type Target = CanvasInput<'a>;
+    fn deref(&self) -> &CanvasInput<'a> {
+        self.input
+    }
+}
+
 /// Everything the painted drawing depends on.
 #[derive(Debug, Clone, PartialEq)]
 struct PaintKey {
     revision: u64,
     projection: ProjectionKey,
-    view: (f64, f64, f64, egui::Rect, bool, u32),
+    view: (f64, f64, f64, egui::Rect, bool, u32, f32),
     selection: Selection,
     case: Option<String>,
     results: (u64, usize),
@@ -76,12 +89,20 @@ struct PaintKey {
 }
 
 impl PaintKey {
-    fn of(state: &CanvasState, view: &View, input: &CanvasInput<'_>, hover: Option<Pos2>) -> PaintKey {
+    fn of(state: &CanvasState, view: &View, input: &KeyInput<'_>, hover: Option<Pos2>) -> PaintKey {
         let routing = state.member_start.is_some() || !state.rope_path.is_empty();
         PaintKey {
             revision: input.doc.revision,
             projection: ProjectionKey::of(view),
-            view: (view.centre_m[0], view.centre_m[1], view.px_per_m, view.rect, view.deflected, view.magnification),
+            view: (
+                view.centre_m[0],
+                view.centre_m[1],
+                view.px_per_m,
+                view.rect,
+                view.deflected,
+                view.magnification,
+                input.pixels_per_point,
+            ),
             selection: input.selection.clone(),
             case: input.case.map(str::to_string),
             results: (input.derived.revision, input.derived.solved.as_ref().map_or(0, |s| Arc::as_ptr(s) as usize)),
@@ -433,7 +454,8 @@ pub fn ui(ui: &mut Ui, state: &mut CanvasState, view: &mut View, input: &CanvasI
     }
 
     let painter = ui.painter_at(rect);
-    let key = PaintKey::of(state, view, input, response.hover_pos());
+    let key_input = KeyInput { input, pixels_per_point: ui.ctx().pixels_per_point() };
+    let key = PaintKey::of(state, view, &key_input, response.hover_pos());
     match &state.painted {
         // nothing the drawing depends on changed: the last frame's shapes again
         Some((k, shapes)) if *k == key => painter.extend(shapes.iter().cloned()),
@@ -452,7 +474,7 @@ pub fn ui(ui: &mut Ui, state: &mut CanvasState, view: &mut View, input: &CanvasI
             let shapes: Vec<egui::Shape> = ui.ctx().graphics(|g| {
                 g.get(layer).map_or_else(Vec::new, |l| l.all_entries().skip(first).map(|c| c.shape.clone()).collect())
             });
-            state.painted = Some((key, Arc::new(shapes)));
+            state.painted = Some((key, Arc::new(baked(ui.ctx(), rect, shapes))));
         }
     }
     if let Some((_, caption)) = &deflected {
@@ -463,6 +485,37 @@ pub fn ui(ui: &mut Ui, state: &mut CanvasState, view: &mut View, input: &CanvasI
     let placing = matches!(input.tool, Tool::Anchor | Tool::Joint | Tool::FloorNode) && !state.sling.picking;
     overlay::ui(ui, state, view, &response, input, keep, placing, out);
     sling::window(ui, state, &drawn, input, out);
+}
+
+/// The painted shapes with every run of strokes and fills between two texts
+/// tessellated once into one mesh, so a kept drawing costs a copy of its
+/// vertices each frame instead of tessellating its strokes again (tens of
+/// thousands on a large net). Texts stay shapes (they are laid out on the
+/// font atlas); the order of painting is kept.
+fn baked(ctx: &egui::Context, clip: egui::Rect, shapes: Vec<egui::Shape>) -> Vec<egui::Shape> {
+    use egui::Shape;
+    let options = ctx.tessellation_options(|o| *o);
+    let atlas = ctx.fonts(|f| f.font_image_size());
+    let mut tessellator = egui::epaint::Tessellator::new(ctx.pixels_per_point(), options, atlas, Vec::new());
+    tessellator.set_clip_rect(clip);
+    let mut out = Vec::new();
+    let mut mesh = egui::epaint::Mesh::default();
+    let flush = |mesh: &mut egui::epaint::Mesh, out: &mut Vec<Shape>| {
+        if !mesh.is_empty() {
+            out.push(Shape::mesh(std::mem::take(mesh)));
+        }
+    };
+    for shape in shapes {
+        match shape {
+            Shape::Text(_) | Shape::Mesh(_) | Shape::Callback(_) => {
+                flush(&mut mesh, &mut out);
+                out.push(shape);
+            }
+            other => tessellator.tessellate_shape(other, &mut mesh),
+        }
+    }
+    flush(&mut mesh, &mut out);
+    out
 }
 
 /// The rope routed so far with the rope tool, placed as one edit (one undo
