@@ -6,7 +6,7 @@
 //! the 71 × 71 square net with a mass at every joint (9,940 members, 4,761
 //! masses): open to the first results shown (target < 1 s) and the
 //! UI-thread frame while one of its joints is dragged (target 60 Hz,
-//! < 16.7 ms). Run with `cargo bench -p tautspan-gui --bench frame`.
+//! < 16.7 ms), and its frame in plan and in 3-D (target < 8 ms). Run with `cargo bench -p tautspan-gui --bench frame`.
 
 #![allow(missing_docs, reason = "criterion's macros generate undocumented items")]
 
@@ -15,7 +15,7 @@ use egui_kittest::Harness;
 use std::time::{Duration, Instant};
 use tautspan_core::file::{CaseDto, MassDto, MemberDto, NodeDto, Position, Qty, ScenarioDto, SupportDto};
 use tautspan_core::library::MemberKind;
-use tautspan_gui::{Command, Document, Prefs, TautspanApp};
+use tautspan_gui::{Command, Document, Prefs, TautspanApp, ViewKind};
 
 /// A curtain net: a row of anchors, `layers` rows of joints below, each
 /// joint hung from the one above and the two diagonally above; a mass at
@@ -117,6 +117,44 @@ fn big_net() {
         median(frames.clone()),
         frames.iter().copied().fold(0.0, f64::max)
     );
+    views(&mut h);
+}
+
+/// The 71 × 71 net in plan and in the 3-D view (target: a frame < 8 ms):
+/// the frame with nothing changed (the projection kept from the frame
+/// before), and in 3-D the frame while the view is turned (projected and
+/// depth-sorted again every frame).
+fn views(h: &mut Harness<'static, TautspanApp>) {
+    let mut line = String::from("71 x 71 net, UI-thread frame, median of 30:");
+    for kind in [ViewKind::Plan, ViewKind::Orbit] {
+        h.state_mut().view.kind = kind;
+        h.state_mut().view.fit_pending = true;
+        h.step();
+        h.step();
+        let (mut frames, mut tess) = (Vec::new(), Vec::new());
+        for _ in 0..30 {
+            let t = Instant::now();
+            h.step();
+            frames.push(ms(t.elapsed()));
+            // what the painter hands the GPU: the shapes tessellated into meshes
+            let shapes = h.output().shapes.clone();
+            let t = Instant::now();
+            let meshes = h.ctx.tessellate(shapes, 1.0);
+            tess.push(ms(t.elapsed()));
+            std::hint::black_box(meshes);
+        }
+        line.push_str(&format!(" {} {:.1} ms (+ tessellation {:.1} ms);", kind.label(), median(frames), median(tess)));
+    }
+    let mut turning = Vec::new();
+    for _ in 0..30 {
+        h.state_mut().view.orbit(egui::vec2(3.0, 0.0));
+        let t = Instant::now();
+        h.step();
+        turning.push(ms(t.elapsed()));
+    }
+    line.push_str(&format!(" 3-D while turning {:.1} ms (target < 8 ms)", median(turning)));
+    println!("{line}");
+    h.state_mut().view.kind = ViewKind::Elevation;
 }
 
 fn harness(dto: ScenarioDto) -> Harness<'static, TautspanApp> {

@@ -14,7 +14,7 @@ pub use document::core_bridge;
 pub use files::recovery;
 
 pub use app::{Message, Pending, TautspanApp};
-pub use canvas::view::View;
+pub use canvas::view::{View, ViewKind};
 pub use document::command::Command;
 pub use document::selection::{Selection, Tool};
 pub use document::{Document, blank_scenario};

@@ -5,6 +5,7 @@
 //! core's displacements for display; it computes none.
 
 use crate::canvas::geometry::Geometry;
+use crate::canvas::view::View;
 use crate::document::core_bridge::Solved;
 use std::collections::HashMap;
 use tautspan_core::analysis::CaseResult;
@@ -12,36 +13,41 @@ use tautspan_core::analysis::CaseResult;
 /// The magnifications offered.
 pub const MAGNIFICATIONS: [u32; 4] = [1, 10, 100, 1000];
 
-/// Each node's displacement in the elevation (x, y), m, in a case.
-pub fn displacements(solved: &Solved, case: &CaseResult) -> HashMap<String, [f64; 2]> {
-    let drawn: HashMap<&str, [f64; 2]> =
-        solved.scenario.nodes.iter().map(|n| (n.id.as_str(), [n.position[0].value, n.position[1].value])).collect();
+/// Each node's displacement (x, y, z), m, in a case.
+pub fn displacements(solved: &Solved, case: &CaseResult) -> HashMap<String, [f64; 3]> {
+    let drawn: HashMap<&str, [f64; 3]> = solved
+        .scenario
+        .nodes
+        .iter()
+        .map(|n| (n.id.as_str(), [n.position[0].value, n.position[1].value, n.position[2].value]))
+        .collect();
     case.nodes
         .iter()
         .filter_map(|r| {
             let d = drawn.get(r.id.as_str())?;
-            Some((r.id.clone(), [r.position_m[0] - d[0], r.position_m[1] - d[1]]))
+            Some((r.id.clone(), std::array::from_fn(|k| r.position_m[k] - d[k])))
         })
         .collect()
 }
 
 /// The geometry with every node moved by its displacement × `magnification`
-/// (slabs move with their node; nodes without a result stay).
-pub fn displaced(geo: &Geometry, by: &HashMap<String, [f64; 2]>, magnification: f64) -> Geometry {
+/// (slabs move with their node; nodes without a result stay), drawn in `view`.
+pub fn displaced(geo: &Geometry, by: &HashMap<String, [f64; 3]>, magnification: f64, view: &View) -> Geometry {
     let mut out = geo.clone();
-    let shift = |id: &str, p: &mut [f64; 2]| {
+    let shift = |id: &str, p: &mut [f64; 3]| {
         if let Some(d) = by.get(id) {
-            p[0] += d[0] * magnification;
-            p[1] += d[1] * magnification;
+            for k in 0..3 {
+                p[k] += d[k] * magnification;
+            }
         }
     };
     for n in &mut out.nodes {
-        shift(&n.id, &mut n.pos_m);
+        shift(&n.id, &mut n.xyz_m);
     }
     for f in &mut out.floors {
-        shift(&f.node_id, &mut f.at_m);
+        shift(&f.node_id, &mut f.xyz_m);
     }
-    out
+    out.projected(view)
 }
 
 /// The caption the canvas carries in the deflected view.

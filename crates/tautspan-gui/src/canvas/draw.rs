@@ -11,7 +11,7 @@
 use super::input::CanvasInput;
 use crate::canvas::geometry::{GeoFloor, GeoMass, Geometry};
 use crate::canvas::labels::{self, Candidate, label};
-use crate::canvas::view::View;
+use crate::canvas::view::{View, ViewKind};
 use crate::document::selection::Selection;
 use crate::fields::units_display::{Shown, UnitSystem, fmt_utilisation};
 use egui::{Align2, Color32, FontId, Painter, Pos2, Rect, Shape, Stroke, pos2, vec2};
@@ -42,17 +42,19 @@ fn draw_grid(painter: &Painter, view: &View, units: UnitSystem) {
     let rect = view.rect;
     painter.rect_filled(rect, 0.0, PAPER);
     let step = view.grid_step_m(units);
+    // the 3-D view has no plane of its own to rule: paper and scale bar only
+    let ruled = view.kind != ViewKind::Orbit;
     let lo = view.to_world(rect.left_bottom());
     let hi = view.to_world(rect.right_top());
     let mut x = (lo[0] / step).floor() * step;
-    while x <= hi[0] {
+    while ruled && x <= hi[0] {
         let sx = view.to_screen(x, 0.0).x;
         let c = if x.abs() < step * 1e-6 { GRID_AXIS } else { GRID };
         painter.line_segment([pos2(sx, rect.top()), pos2(sx, rect.bottom())], Stroke::new(1.0, c));
         x += step;
     }
     let mut y = (lo[1] / step).floor() * step;
-    while y <= hi[1] {
+    while ruled && y <= hi[1] {
         let sy = view.to_screen(0.0, y).y;
         let c = if y.abs() < step * 1e-6 { GRID_AXIS } else { GRID };
         painter.line_segment([pos2(rect.left(), sy), pos2(rect.right(), sy)], Stroke::new(1.0, c));
@@ -144,6 +146,10 @@ pub struct Picking<'a> {
     pub rope_path: &'a [String],
     /// The pointer over the canvas.
     pub hover: Option<Pos2>,
+    /// The multi-leg sling helper's hook and pick points so far.
+    pub sling: &'a [String],
+    /// Draw the legend (the user may fold it away).
+    pub legend: bool,
 }
 
 /// Smallest radius a sheave is drawn with, points, so a small sheave far
@@ -177,8 +183,23 @@ pub fn draw(
         draw_ghost(painter, view, d.drawn);
     }
     let case = input.derived.case(input.case);
+    let mut panels_drawn: Vec<&str> = Vec::new();
     for f in &geo.floors {
-        draw_floor(painter, view, f, *input.selection == Selection::Floor(f.floor_id.clone()));
+        let picked = *input.selection == Selection::Floor(f.floor_id.clone());
+        // plan and 3-D show the panel: once per slab, however many feet stand on it
+        if matches!(view.kind, ViewKind::Plan | ViewKind::Orbit) {
+            if panels_drawn.contains(&f.floor_id.as_str()) {
+                continue;
+            }
+            panels_drawn.push(&f.floor_id);
+        }
+        if view.kind == ViewKind::Orbit {
+            let edge = if picked { Stroke::new(2.5, PICK) } else { Stroke::new(1.5, INK) };
+            let corners = f.panel_corners(view).to_vec();
+            painter.add(Shape::convex_polygon(corners, Color32::from_rgba_unmultiplied(0xd8, 0xd3, 0xc4, 0xa0), edge));
+            continue;
+        }
+        draw_floor(painter, view, f, picked);
         if let Some(fr) = case.and_then(|c| c.floors.iter().find(|r| r.id == f.floor_id)) {
             let r = f.rect_screen(view);
             let text = format!(
@@ -236,8 +257,16 @@ pub fn draw(
     for (k, m) in geo.members.iter().enumerate() {
         let Some((a, b)) = geo.ends(m) else { continue };
         let (sa, sb) = (view.to_screen(a.pos_m[0], a.pos_m[1]), view.to_screen(b.pos_m[0], b.pos_m[1]));
-        let result = result_at(k, &m.id);
         let picked = matches!(input.selection, Selection::Member(id) if *id == m.id);
+        // a member under a pixel on screen (seen end on, or far out) cannot be read: its
+        // ends' marks show where it is
+        if (sb - sa).length_sq() < 1.0 && !picked {
+            continue;
+        }
+        if !view.rect.expand(8.0).intersects(Rect::from_two_pos(sa, sb)) {
+            continue;
+        }
+        let result = result_at(k, &m.id);
         if let Some(share) = path.get(m.id.as_str()) {
             // the glow widens with the member's share of the mass's weight
             shapes
@@ -327,6 +356,19 @@ pub fn draw(
         let s = view.to_screen(start.pos_m[0], start.pos_m[1]);
         painter.extend(Shape::dashed_line(&[s, h], Stroke::new(2.0, PICK), 6.0, 4.0));
     }
+    // the sling helper's legs so far: from the hook to each pick point
+    if let Some(hook) = picking.sling.first().and_then(|id| geo.node(id)) {
+        let h = view.to_screen(hook.pos_m[0], hook.pos_m[1]);
+        for n in picking.sling.iter().skip(1).filter_map(|id| geo.node(id)) {
+            painter.extend(Shape::dashed_line(
+                &[h, view.to_screen(n.pos_m[0], n.pos_m[1])],
+                Stroke::new(2.0, PICK),
+                6.0,
+                4.0,
+            ));
+        }
+        painter.circle_stroke(h, 14.0, Stroke::new(2.0, PICK));
+    }
     // the rope routed so far, on to the pointer
     let mut route: Vec<Pos2> = picking
         .rope_path
@@ -370,6 +412,7 @@ pub fn draw(
         if matches!(input.selection, Selection::Node(id) if *id == n.id)
             || member_start == Some(n.id.as_str())
             || picking.rope_path.contains(&n.id)
+            || picking.sling.contains(&n.id)
         {
             painter.circle_stroke(p, 11.0, Stroke::new(2.5, PICK));
         }
@@ -392,11 +435,26 @@ pub fn draw(
         }
     }
     painter.extend(joints);
+    // nodes on one screen point (one above the other in plan, one behind
+    // the other in the elevation) share one label naming them all
+    let mut shared: Vec<(Pos2, String)> = Vec::new();
     for (p, id) in names {
-        painter.text(p + vec2(9.0, 9.0), Align2::LEFT_TOP, id, FontId::proportional(11.0), CASING);
+        match shared.iter_mut().find(|(q, _)| q.distance(p) < 2.0) {
+            Some((_, text)) => {
+                text.push_str(", ");
+                text.push_str(id);
+            }
+            None => shared.push((p, id.to_string())),
+        }
+    }
+    for (p, text) in shared {
+        painter.text(p + vec2(9.0, 9.0), Align2::LEFT_TOP, text, FontId::proportional(11.0), CASING);
     }
     // in the deflected view the caption holds the top left; the legend goes below it
-    let legend_top = if deflection.is_some() { CAPTION_HEIGHT + 16.0 } else { 12.0 };
+    let legend_top = if deflection.is_some() { CAPTION_HEIGHT + 16.0 } else { 12.0 } + LEGEND_SWITCH_HEIGHT;
+    if !picking.legend {
+        return;
+    }
     legend(painter, view, input.derived.solved.as_ref().map(|s| s.scenario.near_limit).unwrap_or(0.8), legend_top);
     if input.worst_case {
         label(
@@ -436,6 +494,9 @@ const READABLE_PT: f32 = 40.0;
 /// Fill of a mass's box.
 const MASS_FILL: Color32 = Color32::from_rgb(0x4b, 0x4f, 0x5a);
 
+/// Height the legend's fold switch takes above it, pt.
+pub const LEGEND_SWITCH_HEIGHT: f32 = 26.0;
+
 /// Height the deflected view's caption takes at the top of the canvas, pt.
 const CAPTION_HEIGHT: f32 = 48.0;
 
@@ -450,7 +511,10 @@ pub struct Deflection<'a> {
 /// legend moves down below it), naming the case and the magnification (a
 /// widget, so it can be read out).
 pub fn deflection_caption(ui: &mut egui::Ui, view: &View, caption: &str) {
-    let at = Rect::from_min_max(view.rect.left_top() + vec2(12.0, 10.0), view.rect.right_bottom());
+    let at = Rect::from_min_max(
+        view.rect.left_top() + vec2(12.0, 10.0 + super::overlay::SWITCH_HEIGHT),
+        view.rect.right_bottom(),
+    );
     ui.scope_builder(egui::UiBuilder::new().max_rect(at), |ui| {
         ui.set_clip_rect(view.rect);
         let line = |text: egui::RichText| egui::Label::new(text).wrap_mode(egui::TextWrapMode::Extend);

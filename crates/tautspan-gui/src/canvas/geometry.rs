@@ -16,15 +16,19 @@ use tautspan_core::units::{Dimension, Sign, parse_quantity};
 pub struct GeoNode {
     /// Id.
     pub id: String,
-    /// Drawn (x, y), m.
+    /// Drawn position in the view's plane (u, v), m: (x, y) until projected.
     pub pos_m: [f64; 2],
+    /// Drawn position (x, y, z), m.
+    pub xyz_m: [f64; 3],
+    /// Depth in the view (larger is nearer the viewer).
+    pub depth: f64,
     /// How it is held.
     pub support: SupportDto,
     /// Its sheave's tread diameter, m: `None` without a sheave, `Some(None)`
     /// while the diameter does not parse (drawn at the smallest size).
     pub sheave_m: Option<Option<f64>>,
-    /// The (x, y) text `pos_m` was read from: a drag re-reads only what changed.
-    read_from: [String; 2],
+    /// The (x, y, z) text the position was read from: a drag re-reads only what changed.
+    read_from: [String; 3],
 }
 
 /// A member as drawn.
@@ -76,21 +80,59 @@ pub struct GeoFloor {
     pub floor_id: String,
     /// The floor node's id.
     pub node_id: String,
-    /// The node's position, m.
+    /// The node's position in the view's plane, m.
     pub at_m: [f64; 2],
+    /// The node's position (x, y, z), m.
+    pub xyz_m: [f64; 3],
     /// Span along x, m.
     pub span_m: f64,
+    /// Span along z, m.
+    pub span_z_m: f64,
+    /// The panel's corner of least x and z, m: the file's `origin`, or
+    /// where the core puts a panel without one (centred under its feet).
+    pub origin_m: [f64; 2],
     /// Thickness, m.
     pub thickness_m: f64,
 }
 
 impl GeoFloor {
-    /// The slab's rectangle on screen (thickness at least 8 points so it reads).
+    /// The slab's rectangle on screen: in elevation and side its section
+    /// under the node (thickness at least 8 points so it reads), in plan
+    /// its panel; in the orbit a small square at the node (the panel is
+    /// drawn there as a projected outline, `panel_corners`).
     pub fn rect_screen(&self, view: &View) -> Rect {
+        use crate::canvas::view::ViewKind;
+        let t = ((self.thickness_m * view.px_per_m) as f32).max(8.0);
+        match view.kind {
+            ViewKind::Plan => {
+                let [x0, z0] = self.origin_m;
+                let a = view.to_screen(x0, -z0);
+                let b = view.to_screen(x0 + self.span_m, -(z0 + self.span_z_m));
+                return Rect::from_two_pos(a, b);
+            }
+            ViewKind::Side => {
+                let left = view.to_screen(self.at_m[0] - self.span_z_m / 2.0, self.at_m[1]);
+                let right = view.to_screen(self.at_m[0] + self.span_z_m / 2.0, self.at_m[1]);
+                return Rect::from_min_max(pos2(left.x, left.y), pos2(right.x, right.y + t));
+            }
+            ViewKind::Orbit => {
+                return Rect::from_center_size(view.to_screen(self.at_m[0], self.at_m[1]), egui::vec2(8.0, 8.0));
+            }
+            ViewKind::Elevation => {}
+        }
         let left = view.to_screen(self.at_m[0] - self.span_m / 2.0, self.at_m[1]);
         let right = view.to_screen(self.at_m[0] + self.span_m / 2.0, self.at_m[1]);
-        let t = ((self.thickness_m * view.px_per_m) as f32).max(8.0);
         Rect::from_min_max(pos2(left.x, left.y), pos2(right.x, right.y + t))
+    }
+}
+
+impl GeoFloor {
+    /// The panel's four corners at the node's height, on screen (for the orbit).
+    pub fn panel_corners(&self, view: &View) -> [egui::Pos2; 4] {
+        let [x0, z0] = self.origin_m;
+        let (x1, z1) = (x0 + self.span_m, z0 + self.span_z_m);
+        let y = self.xyz_m[1];
+        [[x0, y, z0], [x1, y, z0], [x1, y, z1], [x0, y, z1]].map(|p| view.to_screen_xyz(p))
     }
 }
 
@@ -115,8 +157,22 @@ fn len(text: &str) -> Option<f64> {
     parse_quantity(text, Dimension::Length, Sign::Any).ok()
 }
 
+/// A node's (x, y, z), m (z absent is 0), when it parses.
+fn xyz_of(n: &tautspan_core::file::NodeDto) -> Option<[f64; 3]> {
+    let z = match &n.at.z {
+        Some(z) => len(&z.0)?,
+        None => 0.0,
+    };
+    Some([len(&n.at.x.0)?, len(&n.at.y.0)?, z])
+}
+
 fn mass_kg(text: &str) -> Option<f64> {
     parse_quantity(text, Dimension::Mass, Sign::Positive).ok()
+}
+
+/// A node's position as written (z empty when not given).
+fn read_from(n: &tautspan_core::file::NodeDto) -> [String; 3] {
+    [n.at.x.0.clone(), n.at.y.0.clone(), n.at.z.as_ref().map_or_else(String::new, |q| q.0.clone())]
 }
 
 fn sheave_of(n: &tautspan_core::file::NodeDto) -> Option<Option<f64>> {
@@ -138,11 +194,24 @@ fn floors_of(nodes: &[GeoNode], dto: &ScenarioDto) -> Vec<GeoFloor> {
         .filter_map(|n| {
             let SupportDto::Floor(fid) = &n.support else { return None };
             let f = dto.floors.iter().find(|f| &f.id == fid)?;
+            let span_m = len(&f.span.0.0).unwrap_or(1.0).abs();
+            let span_z_m = len(&f.span.1.0).unwrap_or(1.0).abs();
+            // the panel's corner: the file's origin, or centred under its feet as the core places it
+            let origin_m = f.origin.as_ref().and_then(|(x, z)| Some([len(&x.0)?, len(&z.0)?])).unwrap_or_else(|| {
+                let feet: Vec<&GeoNode> = nodes.iter().filter(|m| m.support == n.support).collect();
+                let k = feet.len().max(1) as f64;
+                let cx = feet.iter().map(|m| m.xyz_m[0]).sum::<f64>() / k;
+                let cz = feet.iter().map(|m| m.xyz_m[2]).sum::<f64>() / k;
+                [cx - span_m / 2.0, cz - span_z_m / 2.0]
+            });
             Some(GeoFloor {
                 floor_id: fid.clone(),
                 node_id: n.id.clone(),
                 at_m: n.pos_m,
-                span_m: len(&f.span.0.0).unwrap_or(1.0).abs(),
+                xyz_m: n.xyz_m,
+                span_m,
+                span_z_m,
+                origin_m,
                 thickness_m: len(&f.thickness.0).unwrap_or(0.15).abs(),
             })
         })
@@ -156,12 +225,15 @@ impl Geometry {
             .nodes
             .iter()
             .filter_map(|n| {
+                let xyz_m = xyz_of(n)?;
                 Some(GeoNode {
                     id: n.id.clone(),
-                    pos_m: [len(&n.at.x.0)?, len(&n.at.y.0)?],
+                    pos_m: [xyz_m[0], xyz_m[1]],
+                    xyz_m,
+                    depth: xyz_m[2],
                     support: n.support.clone(),
                     sheave_m: sheave_of(n),
-                    read_from: [n.at.x.0.clone(), n.at.y.0.clone()],
+                    read_from: read_from(n),
                 })
             })
             .collect();
@@ -216,15 +288,18 @@ impl Geometry {
         // changes one node's; reading all of a large net's costs a frame)
         let mut moved = Vec::new();
         for (k, (g, n)) in self.nodes.iter().zip(&dto.nodes).enumerate() {
-            if g.read_from[0] != n.at.x.0 || g.read_from[1] != n.at.y.0 {
-                let (Some(x), Some(y)) = (len(&n.at.x.0), len(&n.at.y.0)) else { return false };
-                moved.push((k, [x, y]));
+            let z_text = n.at.z.as_ref().map_or("", |q| q.0.as_str());
+            if g.read_from[0] != n.at.x.0 || g.read_from[1] != n.at.y.0 || g.read_from[2] != z_text {
+                let Some(p) = xyz_of(n) else { return false };
+                moved.push((k, p));
             }
         }
         for (k, p) in moved {
             let (g, n) = (&mut self.nodes[k], &dto.nodes[k]);
-            g.pos_m = p;
-            g.read_from = [n.at.x.0.clone(), n.at.y.0.clone()];
+            g.pos_m = [p[0], p[1]];
+            g.xyz_m = p;
+            g.depth = p[2];
+            g.read_from = read_from(n);
         }
         for (g, n) in self.nodes.iter_mut().zip(&dto.nodes) {
             // a sheave added, removed or resized in place
@@ -252,6 +327,33 @@ impl Geometry {
     pub fn ends(&self, m: &GeoMember) -> Option<(&GeoNode, &GeoNode)> {
         let [a, b] = m.end_at?;
         Some((self.nodes.get(a)?, self.nodes.get(b)?))
+    }
+
+    /// The geometry as `view` shows it: every position in the view's plane,
+    /// and in the orbit the members and ropes ordered far to near, so the
+    /// near ones are painted over the far ones.
+    pub fn projected(&self, view: &View) -> Geometry {
+        let mut out = self.clone();
+        for n in &mut out.nodes {
+            (n.pos_m, n.depth) = view.project(n.xyz_m);
+        }
+        for f in &mut out.floors {
+            f.at_m = view.project(f.xyz_m).0;
+        }
+        if view.kind == crate::canvas::view::ViewKind::Orbit {
+            let depth = |a: &str, b: &str| out.node(a).map_or(0.0, |n| n.depth) + out.node(b).map_or(0.0, |n| n.depth);
+            let mut members: Vec<(f64, GeoMember)> =
+                out.members.iter().map(|m| (depth(&m.ends.0, &m.ends.1), m.clone())).collect();
+            members.sort_by(|a, b| a.0.total_cmp(&b.0));
+            out.members = members.into_iter().map(|(_, m)| m).collect();
+            let rope_depth = |r: &GeoRope| {
+                r.path.iter().filter_map(|id| out.node(id)).map(|n| n.depth).sum::<f64>() / r.path.len().max(1) as f64
+            };
+            let mut ropes: Vec<(f64, GeoRope)> = out.ropes.iter().map(|r| (rope_depth(r), r.clone())).collect();
+            ropes.sort_by(|a, b| a.0.total_cmp(&b.0));
+            out.ropes = ropes.into_iter().map(|(_, r)| r).collect();
+        }
+        out
     }
 
     /// A node by id.

@@ -1,6 +1,6 @@
 //! The document folder: what the user made and what is derived from it.
 //! `Document` (here), `command` (what the panels ask for), `edits` (the
-//! edits themselves), `undo`, `rename` (ids renamed with every reference),
+//! edits themselves), `placing` (nodes placed and moved in x, y and z), `undo`, `rename` (ids renamed with every reference),
 //! `selection`; answers come from `solve_worker` (one thread re-solving off
 //! the UI thread) into `derived` (the results shown), through `core_bridge`,
 //! the only door to `tautspan_core`'s analysis.
@@ -14,6 +14,7 @@ pub mod core_bridge;
 pub(crate) mod derived;
 pub(crate) mod edits;
 pub(crate) mod envelope;
+pub(crate) mod placing;
 pub(crate) mod rename;
 pub(crate) mod selection;
 pub(crate) mod solve_worker;

@@ -88,7 +88,10 @@ impl Tool {
             Tool::Joint => "Click to place a free joint (a shackle, a ring, a bridle apex).",
             Tool::Member(_) => "Click the first node, then the second, to join them with a member.",
             Tool::Mass => "Click a node to hang a mass from it.",
-            Tool::FloorNode => "Click to place a node resting on a floor slab.",
+            Tool::FloorNode => {
+                "Click to place a node resting on a floor slab: on the selected foot's slab, or a new slab when no \
+                 foot is selected."
+            }
             Tool::Rope => {
                 "Click the rope's first end, then each node it runs over (each gets a sheave), then its last end; \
                  Enter, a double click or the last node clicked again finishes, Esc cancels."

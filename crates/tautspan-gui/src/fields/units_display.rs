@@ -113,7 +113,8 @@ impl UnitSystem {
 
     /// The unit a value is written in, with its factor to SI.
     fn unit_for(self, si_value: f64, shown: Shown) -> (&'static str, f64) {
-        let a = si_value.abs();
+        // below roundoff a value is 0, written in the base unit ("0 m", not "0 mm")
+        let a = if si_value.abs() < ROUNDOFF * self.to_si(shown) { 1.0 } else { si_value.abs() };
         let (symbol, to_si) = match (self, shown) {
             (UnitSystem::Si, Shown::Length) if a < 1.0 => ("mm", 1e-3),
             (UnitSystem::Si, Shown::Mass) if a >= 1000.0 => ("t", 1000.0),
@@ -154,7 +155,7 @@ mod tests {
         // (value in SI, shown, expected) — conversions exact by definition
         let cases: [(f64, Shown, &str); 10] = [
             (9.2e-20, Shown::Force, "0 kN"),
-            (-3e-15, Shown::Length, "0 mm"),
+            (-3e-15, Shown::Length, "0 m"),
             (0.35, Shown::Length, "350 mm"),
             (2.5, Shown::Length, "2.5 m"),
             (400.0, Shown::Mass, "400 kg"),

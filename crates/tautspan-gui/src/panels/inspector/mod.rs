@@ -203,9 +203,10 @@ fn node(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, bufs: &mut FieldBuffe
     if let Some(r) = input.derived.case(input.case).and_then(|c| c.nodes.iter().find(|r| r.id == n.id)) {
         ui.separator();
         ui.label(format!(
-            "Solved position: x {}, y {}",
+            "Solved position: x {}, y {}, z {}",
             input.units.fmt(r.position_m[0], Shown::Length),
-            input.units.fmt(r.position_m[1], Shown::Length)
+            input.units.fmt(r.position_m[1], Shown::Length),
+            input.units.fmt(r.position_m[2], Shown::Length)
         ));
         crate::panels::parts_view::fittings(ui, &r.fittings, input.units);
     }
