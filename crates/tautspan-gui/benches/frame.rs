@@ -219,7 +219,49 @@ fn medians(h: &mut Harness<'static, TautspanApp>, n: u32) {
     println!("  worker re-solve (validate + analyse):   {:.2} ms", median(solve));
 }
 
+/// The 31 × 31 square net (1,860 members, 900 masses): open it to the
+/// first frame showing results (target < 0.5 s at 2,000 members), then the
+/// median time from an edit to its results shown (target < 100 ms).
+fn mid_net() {
+    let text = grid::grid_net(31, "2 kg");
+    let dto = match tautspan_core::file::parse_scenario_text(&text) {
+        Ok((dto, _)) => dto,
+        Err(e) => panic!("{e:?}"),
+    };
+    let members = dto.members.len();
+    let start = Instant::now();
+    let mut h = harness(dto);
+    wait(&mut h);
+    h.step();
+    let shown = start.elapsed();
+    let mut latency = Vec::new();
+    for k in 0..20u32 {
+        let x = 15.0 + 0.01 * f64::from(k % 5 + 1);
+        let ctx = h.ctx.clone();
+        let t = Instant::now();
+        h.state_mut().apply(
+            &ctx,
+            vec![Command::edit(move |d| {
+                if let Some(n) = d.nodes.iter_mut().find(|n| n.id == "n15_15") {
+                    n.at.x = Qty(format!("{x} m"));
+                }
+            })],
+        );
+        h.step();
+        wait(&mut h);
+        h.step();
+        latency.push(ms(t.elapsed()));
+    }
+    println!(
+        "31 x 31 net ({members} members): open to first results shown {:.0} ms (target < 500 ms); edit to new results shown, median {:.0} ms, largest {:.0} ms (target < 100 ms)",
+        ms(shown),
+        median(latency.clone()),
+        latency.iter().copied().fold(0.0, f64::max)
+    );
+}
+
 fn bench(c: &mut Criterion) {
+    mid_net();
     big_net();
     let dto = net(34, 10);
     assert_eq!(dto.members.len(), 1000);
