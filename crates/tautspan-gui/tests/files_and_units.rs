@@ -129,3 +129,36 @@ fn save_then_open_round_trips_and_unsaved_changes_are_guarded() {
     assert_eq!(h.state().prefs.recent.first(), Some(&path), "listed in recent files");
     let _ = std::fs::remove_dir_all(&dir);
 }
+
+/// The report exported from the app names the scenario file with its
+/// SHA-256 when what is open is what the file holds (the digest is the
+/// core's FIPS 180-4 function, itself checked against the standard's test
+/// vectors), and leaves the digest out once there are unsaved changes.
+#[test]
+fn the_exported_report_names_the_saved_file_and_its_digest() {
+    let dir = temp_dir("report-digest");
+    let scenario = dir.join("bridle.ron");
+    let mut h = harness(demo_app());
+    assert!(h.state_mut().save_to(&scenario), "saved");
+    h.run();
+    let bytes = std::fs::read(&scenario).unwrap_or_else(|e| panic!("{e}"));
+    let digest = tautspan_core::report::SourceFile::new("x", &bytes).sha256;
+    let export = |h: &mut egui_kittest::Harness<'static, tautspan_gui::TautspanApp>, out: &std::path::Path| {
+        let ctx = h.ctx.clone();
+        h.state_mut().apply(&ctx, vec![tautspan_gui::Command::ExportReport]);
+        h.run();
+        type_into(h, "Path", &out.display().to_string());
+        click(h, "Export");
+        std::fs::read_to_string(out).unwrap_or_else(|e| panic!("{e}"))
+    };
+    let clean = export(&mut h, &dir.join("clean.html"));
+    assert!(clean.contains(&digest), "the saved file's SHA-256 is in the report");
+    assert!(clean.contains("bridle.ron"));
+    // an unsaved change: the open scenario is no longer the file's
+    let ctx = h.ctx.clone();
+    h.state_mut().apply(&ctx, vec![tautspan_gui::Command::edit(|d| d.title = "changed".to_string())]);
+    h.run();
+    let dirty = export(&mut h, &dir.join("dirty.html"));
+    assert!(!dirty.contains(&digest), "no digest for a scenario with unsaved changes");
+    let _ = std::fs::remove_dir_all(&dir);
+}

@@ -10,7 +10,7 @@ use tautspan_core::analysis::{
 };
 use tautspan_core::file::ScenarioDto;
 use tautspan_core::model::{Problem, Scenario, build};
-use tautspan_core::report::{UnitSystem as ReportUnits, html_with_units};
+use tautspan_core::report::{SourceFile, UnitSystem as ReportUnits, html_for_file};
 
 /// A validated scenario and its analysis, or why there is none.
 #[derive(Debug, Clone)]
@@ -137,8 +137,14 @@ fn today() -> String {
     tautspan_core::report::civil_date(secs)
 }
 
-/// The HTML report of a scenario: the same function the command line uses.
-pub fn report_html(scenario: &Scenario, analysis: &Analysis, us_customary: bool) -> Result<String, String> {
+/// The HTML report of a scenario: the same function the command line uses,
+/// naming the scenario file and its SHA-256 when `source` is given.
+pub fn report_html(
+    scenario: &Scenario,
+    analysis: &Analysis,
+    us_customary: bool,
+    source: Option<&SourceFile>,
+) -> Result<String, String> {
     let units = if us_customary { ReportUnits::UsCustomary } else { ReportUnits::Si };
-    Ok(html_with_units(scenario, analysis, &today(), units))
+    Ok(html_for_file(scenario, analysis, &today(), units, source))
 }

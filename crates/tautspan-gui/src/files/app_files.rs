@@ -88,7 +88,17 @@ impl TautspanApp {
                     return;
                 };
                 let us = self.prefs.units == crate::fields::units_display::UnitSystem::UsCustomary;
-                match crate::document::core_bridge::report_html(&solved.scenario, &solved.analysis, us) {
+                // the file named with its SHA-256 only when what is open is
+                // what the file holds (saved, and unchanged on disk since)
+                let source = self.doc.path.as_deref().filter(|_| !self.doc.dirty).and_then(|p| {
+                    let bytes = std::fs::read(p).ok()?;
+                    let text = std::str::from_utf8(&bytes).ok()?;
+                    let (on_disk, _) = tautspan_core::file::parse_scenario_text(text).ok()?;
+                    (on_disk == *self.doc.dto)
+                        .then(|| tautspan_core::report::SourceFile::new(p.display().to_string(), &bytes))
+                });
+                match crate::document::core_bridge::report_html(&solved.scenario, &solved.analysis, us, source.as_ref())
+                {
                     Ok(html) => {
                         self.report_html = Some(html);
                         let near = self.doc.path.as_ref().map(|p| p.with_extension("html"));
