@@ -184,6 +184,7 @@ pub fn draw(
     }
     let case = input.derived.case(input.case);
     let mut panels_drawn: Vec<&str> = Vec::new();
+    let (mut floor_labelled, mut floor_labels): (Vec<&str>, Vec<Rect>) = (Vec::new(), Vec::new());
     for f in &geo.floors {
         let picked = *input.selection == Selection::Floor(f.floor_id.clone());
         // plan and 3-D show the panel: once per slab, however many feet stand on it
@@ -200,15 +201,35 @@ pub fn draw(
             continue;
         }
         draw_floor(painter, view, f, picked);
+        // one label a slab (an elevation draws a slab under each of its
+        // feet), under the slab's whole extent, kept clear of the labels
+        // already placed
+        if floor_labelled.contains(&f.floor_id.as_str()) {
+            continue;
+        }
+        floor_labelled.push(&f.floor_id);
         if let Some(fr) = case.and_then(|c| c.floors.iter().find(|r| r.id == f.floor_id)) {
-            let r = f.rect_screen(view);
+            let r = geo
+                .floors
+                .iter()
+                .filter(|g| g.floor_id == f.floor_id)
+                .map(|g| g.rect_screen(view))
+                .fold(f.rect_screen(view), |a, b| a.union(b));
             let text = format!(
-                "normal force {} · deflection {} · {}",
+                "{}: normal force {} · deflection {} · {}",
+                f.floor_id,
                 units.fmt(fr.normal_force_n, Shown::Force),
                 units.fmt(fr.deflection_m, Shown::SmallLength),
                 fmt_utilisation(fr.utilisation)
             );
-            label(painter, r.center_bottom() + vec2(0.0, 4.0), Align2::CENTER_TOP, text, INK);
+            labels::label_clear_of(
+                painter,
+                r.center_bottom() + vec2(0.0, 4.0),
+                Align2::CENTER_TOP,
+                text,
+                INK,
+                &mut floor_labels,
+            );
         }
     }
 

@@ -38,6 +38,36 @@ pub fn label(painter: &Painter, at: Pos2, anchor: Align2, text: String, colour: 
     painter.galley(rect.min + vec2(2.0, 2.0), galley, colour);
 }
 
+/// As [`label`], moved down a line at a time until it overlaps none of
+/// `placed` (the slabs' labels, so two slabs side by side do not print over
+/// each other); its rectangle is added to `placed`.
+pub fn label_clear_of(
+    painter: &Painter,
+    at: Pos2,
+    anchor: Align2,
+    text: String,
+    colour: Color32,
+    placed: &mut Vec<Rect>,
+) {
+    let galley = painter.layout_no_wrap(text, FontId::proportional(12.0), colour);
+    let rect = clear_of(anchor.anchor_size(at, galley.size()).expand(2.0), placed);
+    placed.push(rect);
+    painter.rect_filled(rect, 2.0, Color32::from_rgba_unmultiplied(0xf5, 0xf3, 0xec, 0xe0));
+    painter.galley(rect.min + vec2(2.0, 2.0), galley, colour);
+}
+
+/// `rect` moved down by its own height plus a gap until it overlaps none of
+/// `placed` (at most 50 steps: past that it stays where it got).
+pub fn clear_of(mut rect: Rect, placed: &[Rect]) -> Rect {
+    for _ in 0..50 {
+        if !placed.iter().any(|p| p.intersects(rect)) {
+            break;
+        }
+        rect = rect.translate(vec2(0.0, rect.height() + 2.0));
+    }
+    rect
+}
+
 /// Where a member's label goes: beside its middle, on the side away from
 /// the rig's `centre`, so the labels of members meeting at a joint do not
 /// sit on each other.
@@ -102,6 +132,21 @@ mod tests {
 
     fn candidate(member: usize, a: Pos2, b: Pos2, utilisation: f64) -> Candidate {
         Candidate { member, ends: [a, b], utilisation, picked: false }
+    }
+
+    #[test]
+    fn a_label_over_another_moves_down_until_clear() {
+        let first = Rect::from_min_size(pos2(100.0, 200.0), vec2(180.0, 18.0));
+        // a second slab's label at nearly the same place: moved one line down
+        let second = clear_of(Rect::from_min_size(pos2(140.0, 205.0), vec2(180.0, 18.0)), &[first]);
+        assert!(!second.intersects(first));
+        assert_eq!(second.min, pos2(140.0, 225.0), "one line (18 + 2) down");
+        // a third over both: below both
+        let third = clear_of(Rect::from_min_size(pos2(120.0, 200.0), vec2(180.0, 18.0)), &[first, second]);
+        assert!(!third.intersects(first) && !third.intersects(second));
+        // one already clear stays
+        let apart = Rect::from_min_size(pos2(400.0, 200.0), vec2(100.0, 18.0));
+        assert_eq!(clear_of(apart, &[first, second]), apart);
     }
 
     #[test]
