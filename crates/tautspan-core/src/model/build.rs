@@ -75,14 +75,26 @@ impl Ctx {
         dim: Dimension,
         sign: Sign,
     ) -> Option<f64> {
+        let v = self.qty_unguarded(q, path, dim, sign)?;
+        match super::plausible::implausible_magnitude(v, &q.0) {
+            Some(why) => {
+                self.err(path, why);
+                None
+            }
+            None => Some(v),
+        }
+    }
+
+    /// A quantity parsed, before any plausibility check.
+    fn qty_unguarded(
+        &mut self,
+        q: &Qty,
+        path: impl std::fmt::Display + Copy,
+        dim: Dimension,
+        sign: Sign,
+    ) -> Option<f64> {
         match parse_quantity(&q.0, dim, sign) {
-            Ok(v) => match super::plausible::implausible_magnitude(v, &q.0) {
-                Some(why) => {
-                    self.err(path, why);
-                    None
-                }
-                None => Some(v),
-            },
+            Ok(v) => Some(v),
             Err(e) => {
                 self.err(path, e.to_string());
                 None
@@ -99,7 +111,8 @@ impl Ctx {
         sign: Sign,
         range: Plausible,
     ) -> Option<f64> {
-        let v = self.qty(q, path, dim, sign)?;
+        // the quantity's own range says more than the general magnitude guard
+        let v = self.qty_unguarded(q, path, dim, sign)?;
         match range.outside(v, &q.0) {
             Some(message) => {
                 self.err(path, message);
