@@ -513,3 +513,20 @@ fn a_node_dragged_in_plan_moves_in_x_and_z_and_keeps_its_height() {
     let n = h.state().doc.dto.nodes.iter().find(|n| n.id == dragged).unwrap().clone();
     assert_eq!((n.at.x.0.as_str(), n.at.z.as_ref().map(|z| z.0.as_str())), ("0 m", Some("-1 m")));
 }
+
+/// A small window: the view switch takes its short names so it never runs
+/// under the legend's switch, and the legend, with no room beside the rig,
+/// is not drawn over it (nor its switch).
+#[test]
+fn a_small_canvas_keeps_the_switch_short_and_the_legend_off_the_rig() {
+    let mut h = Harness::builder()
+        .with_size([960.0, 600.0])
+        .build_ui_state(|ui, app: &mut TautspanApp| app.frame(ui), app_on(TWO_DEEP));
+    h.run();
+    assert!(h.query_by_label("x–z").is_some(), "short names on a narrow canvas");
+    assert!(h.query_by_label("Plan (x–z)").is_none());
+    assert!(h.query_by_label("Hide legend").is_none() && h.query_by_label("Show legend").is_none());
+    h.get_by_label("x–z").click();
+    h.run();
+    assert_eq!(h.state().view.kind, ViewKind::Plan);
+}

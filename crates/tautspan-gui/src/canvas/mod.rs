@@ -115,7 +115,7 @@ impl PaintKey {
                 state.sling.points.clone(),
                 hover.filter(|_| routing),
             ),
-            legend: !state.legend_hidden,
+            legend: !state.legend_hidden && overlay::legend_fits(view.rect),
         }
     }
 }
@@ -468,7 +468,7 @@ pub fn ui(ui: &mut Ui, state: &mut CanvasState, view: &mut View, input: &CanvasI
                 rope_path: &state.rope_path,
                 hover: response.hover_pos(),
                 sling: state.sling.route(),
-                legend: !state.legend_hidden,
+                legend: !state.legend_hidden && overlay::legend_fits(view.rect),
             };
             draw::draw(&painter, view, geo, input, &picking, deflection.as_ref());
             let shapes: Vec<egui::Shape> = ui.ctx().graphics(|g| {

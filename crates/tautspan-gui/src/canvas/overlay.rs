@@ -52,6 +52,15 @@ fn area(ui: &Ui, id: &str, at: Pos2, pivot: Align2) -> egui::Area {
     egui::Area::new(ui.scope_id().with(id)).fixed_pos(at).pivot(pivot).order(egui::Order::Foreground).constrain(false)
 }
 
+/// Narrower than this (points), the view switch uses the short names.
+const NARROW_CANVAS: f32 = 640.0;
+
+/// Whether the canvas has room for the legend beside the rig: the legend
+/// is 190 × 112 points, a quarter of a canvas of at least 520 × 320.
+pub fn legend_fits(rect: egui::Rect) -> bool {
+    rect.width() >= 520.0 && rect.height() >= 320.0
+}
+
 /// Draw the widgets over the canvas and act on them.
 #[allow(clippy::too_many_arguments, reason = "the canvas's pieces, passed apart to keep the borrows short")]
 pub fn ui(
@@ -68,15 +77,24 @@ pub fn ui(
     // the view switch, top left
     area(ui, "view-switch", rect.left_top() + vec2(8.0, 6.0), Align2::LEFT_TOP).show(ui.ctx(), |ui| {
         egui::Frame::new().fill(ui.visuals().window_fill).corner_radius(4.0).inner_margin(3.0).show(ui, |ui| {
+            // a narrow canvas gets the short names, so the row never runs
+            // under the legend's switch
+            let narrow = rect.width() < NARROW_CANVAS;
             ui.horizontal(|ui| {
                 for kind in ViewKind::ALL {
-                    let key = format!("key {}", ViewKind::ALL.iter().position(|k| *k == kind).unwrap_or(0) + 1);
-                    if ui.selectable_label(view.kind == kind, kind.label()).on_hover_text(key).clicked() {
+                    let key = format!(
+                        "{}, key {}",
+                        kind.label(),
+                        ViewKind::ALL.iter().position(|k| *k == kind).unwrap_or(0) + 1
+                    );
+                    let name = if narrow { kind.short_label() } else { kind.label() };
+                    if ui.selectable_label(view.kind == kind, name).on_hover_text(key).clicked() {
                         switch(view, kind);
                     }
                 }
                 ui.separator();
-                let sling = egui::Button::selectable(state.sling.open, "Multi-leg sling…");
+                let sling =
+                    egui::Button::selectable(state.sling.open, if narrow { "Sling…" } else { "Multi-leg sling…" });
                 if ui.add(sling).on_hover_text("Pick a hook point and 2 to 4 pick points to place the legs").clicked() {
                     state.sling.toggle();
                 }
@@ -84,10 +102,11 @@ pub fn ui(
         });
     });
 
-    // the legend's fold switch, top right
+    // the legend's fold switch, top right; a canvas too small for the
+    // legend beside the rig shows neither rather than cover the drawing
     let legend_text = if state.legend_hidden { "Show legend" } else { "Hide legend" };
     area(ui, "legend-switch", rect.right_top() + vec2(-14.0, 6.0), Align2::RIGHT_TOP).show(ui.ctx(), |ui| {
-        if ui.small_button(legend_text).clicked() {
+        if legend_fits(rect) && ui.small_button(legend_text).clicked() {
             state.legend_hidden = !state.legend_hidden;
         }
     });

@@ -44,6 +44,16 @@ impl ViewKind {
         }
     }
 
+    /// Its short name, for a canvas too narrow for [`ViewKind::label`].
+    pub fn short_label(self) -> &'static str {
+        match self {
+            ViewKind::Elevation => "x–y",
+            ViewKind::Plan => "x–z",
+            ViewKind::Side => "z–y",
+            ViewKind::Orbit => "3-D",
+        }
+    }
+
     /// The keyboard key that switches to it (with no modifier, outside text fields).
     pub fn key(self) -> egui::Key {
         match self {
