@@ -92,3 +92,13 @@ fn the_rig_unchanged_is_finite() {
     let txt = check_text("base.ron", &a);
     assert!(!txt.split_whitespace().any(|w| w == "inf" || w == "NaN"), "{txt}");
 }
+
+/// A floor's friction limit of 2.2e-308 (found by the big run on
+/// 2026-12-05): the feet's check printed "over by inf %". Refused now: a
+/// friction coefficient below 0.01 is no grip to rely on.
+#[test]
+fn friction_limit_of_2e_minus_308() {
+    refused_or_finite("friction2e-308.ron");
+    let e = load_scenario(&input("friction2e-308.ron")).expect_err("refused").to_string();
+    assert!(e.contains("friction_limit") && e.contains("between 0.01 and 2"), "{e}");
+}

@@ -579,7 +579,15 @@ fn build_floor(ctx: &mut Ctx, i: usize, f: &FloorDto) -> Option<Floor> {
         None => None,
     };
     let friction_limit = match f.friction_limit {
-        Some(v) => Some(ctx.number(v, p("friction_limit"), 0.0, 2.0, "a friction coefficient between 0 and 2")?),
+        // below 0.01 no grip can be relied on (tie the feet instead), and a
+        // limit of about zero would make every share of it infinite
+        Some(v) => Some(ctx.number(
+            v,
+            p("friction_limit"),
+            0.01,
+            2.0,
+            "a friction coefficient between 0.01 and 2 (below 0.01 no grip may be relied on: tie the feet)",
+        )?),
         None => None,
     };
     let (sx, sz, t, e, nu) = (sx?, sz?, t?, modulus?, poisson?);
