@@ -35,20 +35,8 @@ fn names(d: &Path) -> Vec<String> {
     v
 }
 
-const GOOD: &str = r#"Scenario(
-    format: 1,
-    title: "e2e",
-    nodes: [
-        Node(id: "A1", at: ("0 m", "6 m"), support: Anchor),
-        Node(id: "J1", at: ("0 m", "2 m")),
-    ],
-    members: [
-        Member(id: "sling", ends: ("A1", "J1"), kind: WireRope, area: "64.7 mm^2", modulus: "100 GPa", rating: BreakingStrength("90.7 kN")),
-    ],
-    masses: [ Mass(id: "load", at: "J1", mass: "250 kg") ],
-    cases: [ Static(id: "hanging"), Sudden(id: "sudden", mass: "load") ],
-)
-"#;
+// one sling hung from an anchor, a static and a sudden case (shared with the other CLI tests)
+const GOOD: &str = include_str!("fixtures/single-sling.ron");
 
 #[test]
 fn dev_zero_stops_at_the_cap_while_reading() {

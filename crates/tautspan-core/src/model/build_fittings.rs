@@ -23,11 +23,11 @@ pub(super) enum Host {
 
 fn rated_load(ctx: &mut Ctx, q: &Qty, path: &str) -> Option<(Force, String)> {
     match parse_rated_load(&q.0, Sign::Positive) {
-        Ok((n, _)) if super::plausible::implausible_magnitude(n, &q.0).is_some() => {
-            ctx.err(path, super::plausible::implausible_magnitude(n, &q.0).unwrap_or_default());
-            None
-        }
         Ok((n, mass)) => {
+            if let Some(why) = super::plausible::implausible_magnitude(n, &q.0) {
+                ctx.err(path, why);
+                return None;
+            }
             let note = if mass {
                 format!(
                     "{} given as a mass: its weight at standard gravity 9.80665 m/s^2 (ISO 80000-3) = {} kN",
