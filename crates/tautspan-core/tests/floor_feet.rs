@@ -139,8 +139,10 @@ fn tripod(floor_fields: &str, feet: [(f64, f64); 3], mass_kg: f64) -> String {
 /// roundoff and solver tolerance). Each leg leans at θ from vertical with
 /// tan θ = r / h; at a foot, statics gives H = T sin θ and N = T cos θ + half
 /// the leg's weight, T the leg's compression: friction_required = H / N
-/// (1e-6). Deflection under each foot: the series Σ_j C_ij N_j (T&W §28,
-/// normalised to the tabulated centre α as the tool states; 1e-6), and the
+/// (1e-6). Deflection under each foot: the double series Σ_j C_ij N_j
+/// (T&W §28, 600 terms each way, normalised to the tabulated centre α as
+/// the tool states; 1e-5: the tool sums one direction in closed form and
+/// cuts the other at 200 terms, the reference cuts both at 600), and the
 /// panel's largest deflection is at least that.
 #[test]
 fn symmetric_frame_shares_friction_and_deflection() {
@@ -172,16 +174,16 @@ fn symmetric_frame_shares_friction_and_deflection() {
     }
     assert!(rel(total, 900.0 * G + 4.0 * 2.0 * half_leg_n) < 1e-9);
     let d = flexural_rigidity(30e9, 0.15, 0.2);
-    let centre = navier_flexibility([4.0, 4.0], d, [2.0, 2.0], [2.0, 2.0], 200);
+    let centre = navier_flexibility([4.0, 4.0], d, [2.0, 2.0], [2.0, 2.0], 600);
     let norm = point_load_coefficient(Edges::SimplySupported, 4.0, 4.0) * 16.0 / d / centre;
     let w0: f64 = feet
         .iter()
-        .map(|&(x, z)| norm * navier_flexibility([4.0, 4.0], d, [feet[0].0, feet[0].1], [x, z], 200))
+        .map(|&(x, z)| norm * navier_flexibility([4.0, 4.0], d, [feet[0].0, feet[0].1], [x, z], 600))
         .sum::<f64>()
         * total
         / 4.0;
     let node_drop = -c0.nodes[0].position_m[1];
-    assert!(rel(node_drop, w0) < 1e-6, "foot drop {node_drop} vs series {w0}");
+    assert!(rel(node_drop, w0) < 1e-5, "foot drop {node_drop} vs series {w0}");
     assert!(f.deflection_m >= w0 * (1.0 - 1e-9));
     assert!(f.deflection_m < 1.6 * w0);
     assert_eq!(f.state, State::Ok);

@@ -102,3 +102,23 @@ fn friction_limit_of_2e_minus_308() {
     let e = load_scenario(&input("friction2e-308.ron")).expect_err("refused").to_string();
     assert!(e.contains("friction_limit") && e.contains("between 0.01 and 2"), "{e}");
 }
+
+/// A foot node repeated hundreds of times at the same place (the big run of
+/// 2026-12-05 found 835 copies: 20,101 problems, 2.5 s in release, since
+/// every pair of copies was reported). Wanted: each copy reported once, as
+/// a duplicate id and as at the same place as the first, so the problems
+/// grow with the copies, not with their pairs.
+#[test]
+fn a_node_repeated_many_times_is_reported_once_per_copy() {
+    let copies = 1500;
+    let base = input("strut1e300.ron").replace("\"-1e300 m\"", "\"2 m\"");
+    let line = "        Node(id: \"J\", at: (\"1 m\", \"1 m\")),\n";
+    let text = base.replacen(line, &line.repeat(copies + 1), 1);
+    assert_ne!(text, base, "the rig has the node line to repeat");
+    let errors = load_scenario(&text).expect_err("refused").0;
+    let same_place = errors.iter().filter(|e| e.to_string().contains("same place as node \"J\" (nodes[2])")).count();
+    let duplicate = errors.iter().filter(|e| e.to_string().contains("duplicate node id \"J\"")).count();
+    assert_eq!(same_place, copies, "one per copy, against the first");
+    assert_eq!(duplicate, copies);
+    assert!(errors.len() <= 2 * copies + 4, "{} problems", errors.len());
+}

@@ -17,16 +17,23 @@ pub const FLEXIBILITY_TERMS: usize = 200;
 /// Terms each way for the deflection field over the panel.
 pub const FIELD_TERMS: usize = 120;
 
-/// `sin(k π t)` for k = 1..=n by the Chebyshev recurrence.
+/// `sin(k π t)` for k = 1..=n by the Chebyshev recurrence, restarted from
+/// two exact sines every 32 terms. (Restarting one of the two alone leaves
+/// the other's error in the recurrence, which grows by up to `1/sin(πt)`
+/// per block and compounds from block to block: near an edge that wiped
+/// out the series past a few hundred terms.)
 fn sines(t: f64, n: usize) -> Vec<f64> {
     let th = PI * t;
     let c2 = 2.0 * th.cos();
     let mut out = Vec::with_capacity(n);
     let (mut prev, mut cur) = (0.0, th.sin());
     for k in 1..=n {
+        if k % 32 == 0 {
+            prev = (th * (k - 1) as f64).sin();
+            cur = (th * k as f64).sin();
+        }
         out.push(cur);
-        // refresh from the exact sine now and then to keep the recurrence honest
-        let next = if k % 32 == 0 { (th * (k + 1) as f64).sin() } else { c2 * cur - prev };
+        let next = c2 * cur - prev;
         prev = cur;
         cur = next;
     }
@@ -149,6 +156,22 @@ mod tests {
         assert!(((c200 - c400) / c400).abs() < 2e-5, "{c200} {c400}");
         let edge = navier_flexibility([3.0, 5.0], 1.0, [0.0, 2.5], [1.5, 2.5], 200);
         assert!(edge.abs() < 1e-12 * c400);
+    }
+
+    // The sines against `f64::sin` term by term, for a foot at the panel's
+    // edge clearance (1 mm on a 4 m span), near the edge and in the middle,
+    // to 1,000 terms: within 1e-11 (the recurrence's roundoff grows by at
+    // most 1/sin(πt) ≈ 1,300 within a block of 32 from ~1e-16; the
+    // reference's own argument k π t is rounded by about k π ε ≈ 3e-13).
+    #[test]
+    fn sines_stay_exact_near_the_edges() {
+        for t in [0.00025, 0.025, 0.3, 0.5, 0.9997] {
+            let s = sines(t, 1000);
+            for (k, v) in s.iter().enumerate() {
+                let exact = (PI * t * (k + 1) as f64).sin();
+                assert!((v - exact).abs() < 1e-11, "t {t} k {}: {v} vs {exact}", k + 1);
+            }
+        }
     }
 
     // The field of several loads is the sum of the flexibilities

@@ -1,5 +1,6 @@
 //! A floor panel under its feet: the flexibility matrix at the feet's real
-//! positions (simply supported: the Navier series, [`navier_flexibility`];
+//! positions (simply supported: the Navier series summed along one
+//! direction in closed form, [`navier_flexibility_matrix`];
 //! clamped: the Ritz solution, [`ClampedPlate`]) and the deflection field
 //! of the feet's forces over the whole panel with its largest value.
 //!
@@ -17,7 +18,8 @@
 //! clamped; see the kernels), the search adding well under that (tests).
 
 use super::plate_clamped::{ClampedPlate, RITZ_TERMS};
-use super::plate_navier::{FIELD_TERMS, FLEXIBILITY_TERMS, NavierField, navier_flexibility};
+use super::plate_navier::{FIELD_TERMS, FLEXIBILITY_TERMS, NavierField};
+use super::plate_single_series::navier_flexibility_matrix;
 use super::slab::{Edges, point_load_coefficient};
 
 /// The plate of one panel with its feet, in the panel's local coordinates
@@ -47,13 +49,11 @@ impl PlatePanel {
         let table = point_load_coefficient(edges, span[0], span[1]) * short * short / rigidity;
         let (clamped, unit_fields, normalisation) = match edges {
             Edges::SimplySupported => {
-                let normalisation = table / navier_flexibility(span, rigidity, centre, centre, FLEXIBILITY_TERMS);
-                for i in 0..n {
-                    for j in 0..=i {
-                        let c = normalisation * navier_flexibility(span, rigidity, feet[i], feet[j], FLEXIBILITY_TERMS);
-                        flexibility[i * n + j] = c;
-                        flexibility[j * n + i] = c;
-                    }
+                let at_centre = navier_flexibility_matrix(span, rigidity, &[centre], FLEXIBILITY_TERMS)[0];
+                let normalisation = table / at_centre;
+                flexibility = navier_flexibility_matrix(span, rigidity, feet, FLEXIBILITY_TERMS);
+                for c in &mut flexibility {
+                    *c *= normalisation;
                 }
                 (None, Vec::new(), normalisation)
             }

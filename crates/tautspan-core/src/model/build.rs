@@ -481,30 +481,45 @@ pub fn build(dto: &ScenarioDto) -> Result<Scenario, Vec<Problem>> {
 pub const COINCIDENT_M: f64 = 1e-6;
 
 /// Refuses nodes drawn at the same place (a joint there would not be
-/// connected to the other, which is never what the drawing means): sorted
-/// by x, each node is compared with the next ones within the tolerance in
-/// x only, so a large rig costs n log n.
+/// connected to the other, which is never what the drawing means). Each
+/// node is reported once, against the first node drawn at its place. The
+/// nodes go into a grid of cells of [`COINCIDENT_M`]; a cell keeps only nodes
+/// that are apart from each other (or joined by a member), so it holds a
+/// handful at most, and a rig of n nodes costs n lookups of 27 cells even
+/// when a file repeats one node thousands of times.
 fn coincident_nodes(ctx: &mut Ctx, nodes: &[Node], joined: &std::collections::HashSet<(usize, usize)>) {
     let at = |k: usize| nodes[k].position.map(|c| c.value);
-    let mut order: Vec<usize> = (0..nodes.len()).collect();
-    order.sort_by(|&a, &b| at(a)[0].total_cmp(&at(b)[0]));
-    for (i, &a) in order.iter().enumerate() {
-        for &b in &order[i + 1..] {
-            let (pa, pb) = (at(a), at(b));
-            if pb[0] - pa[0] >= COINCIDENT_M {
-                break;
+    // coordinates are within ±1e7 m (checked before), so a cell index fits
+    // an i64 with room; a non-finite coordinate has its own error already
+    let cell = |p: [f64; 3]| p.map(|c| (c / COINCIDENT_M).floor() as i64);
+    let mut grid: std::collections::HashMap<[i64; 3], Vec<usize>> = std::collections::HashMap::new();
+    for b in 0..nodes.len() {
+        let pb = at(b);
+        let home = cell(pb);
+        let mut first: Option<usize> = None;
+        for dx in -1..=1 {
+            for dy in -1..=1 {
+                for dz in -1..=1 {
+                    let key = [home[0] + dx, home[1] + dy, home[2] + dz];
+                    for &a in grid.get(&key).map_or(&[][..], Vec::as_slice) {
+                        let pa = at(a);
+                        let d = ((pb[0] - pa[0]).powi(2) + (pb[1] - pa[1]).powi(2) + (pb[2] - pa[2]).powi(2)).sqrt();
+                        if d < COINCIDENT_M && !joined.contains(&(a, b)) && first.is_none_or(|f| a < f) {
+                            first = Some(a);
+                        }
+                    }
+                }
             }
-            let d = ((pb[0] - pa[0]).powi(2) + (pb[1] - pa[1]).powi(2) + (pb[2] - pa[2]).powi(2)).sqrt();
-            let (first, second) = (a.min(b), a.max(b));
-            if d < COINCIDENT_M && !joined.contains(&(first, second)) {
-                ctx.err(
-                    format!("nodes[{second}].at"),
-                    format!(
-                        "node \"{}\" is at the same place as node \"{}\" (nodes[{first}]), closer than 0.001 mm; join them into one node or move one apart",
-                        nodes[second].id, nodes[first].id
-                    ),
-                );
-            }
+        }
+        match first {
+            Some(a) => ctx.err(
+                format!("nodes[{b}].at"),
+                format!(
+                    "node \"{}\" is at the same place as node \"{}\" (nodes[{a}]), closer than 0.001 mm; join them into one node or move one apart",
+                    nodes[b].id, nodes[a].id
+                ),
+            ),
+            None => grid.entry(home).or_default().push(b),
         }
     }
 }
