@@ -428,9 +428,17 @@ fn check_finite(a: &Analysis) -> Result<(), String> {
 }
 
 /// The words a non-finite float prints as, standing alone in `out`.
-fn non_finite_word(out: &str) -> Option<&str> {
-    out.split(|c: char| !(c.is_ascii_alphanumeric() || c == '.'))
-        .find(|w| matches!(*w, "NaN" | "inf" | "Infinity" | "infinity"))
+fn non_finite_word(out: &str) -> Option<String> {
+    out.lines().find_map(|line| {
+        let w = line
+            .split(|c: char| !(c.is_ascii_alphanumeric() || c == '.'))
+            .find(|w| matches!(*w, "NaN" | "inf" | "Infinity" | "infinity"))?;
+        // the word with the words before it on its line, so findings of
+        // different causes are kept apart (the big run keys on the message)
+        let at = line.find(w).unwrap_or(0);
+        let before: String = line[..at].chars().rev().take(60).collect::<Vec<_>>().into_iter().rev().collect();
+        Some(format!("{w}` after \"{}", before.trim()))
+    })
 }
 
 /// The whole pipeline on one text; `Err` names the bug.
@@ -440,7 +448,7 @@ fn pipeline(text: &str) -> Result<(), String> {
     check_finite(&a)?;
     let txt = check_text("fuzz.ron", &a);
     if let Some(w) = non_finite_word(&txt) {
-        return Err(format!("`{w}` in the text output"));
+        return Err(format!("`{w}\" in the text output"));
     }
     let mut json = Vec::new();
     write_check_json(&mut json, "fuzz.ron", &a).map_err(|e| format!("JSON write: {e}"))?;
@@ -448,13 +456,13 @@ fn pipeline(text: &str) -> Result<(), String> {
     let mut csv = Vec::new();
     write_csv_rows(&mut csv, "fuzz.ron", &a).map_err(|e| format!("CSV write: {e}"))?;
     if let Some(w) = non_finite_word(&String::from_utf8_lossy(&csv)) {
-        return Err(format!("`{w}` in the CSV output"));
+        return Err(format!("`{w}\" in the CSV output"));
     }
     // the report in one system or the other, by the text's length (half the cost of both)
     let units = if text.len().is_multiple_of(2) { UnitSystem::Si } else { UnitSystem::UsCustomary };
     let html = html_with_units(&loaded.scenario, &a, "2026-01-01", units);
     if let Some(w) = non_finite_word(&html) {
-        return Err(format!("`{w}` in the report ({})", units.name()));
+        return Err(format!("`{w}\" in the report ({})", units.name()));
     }
     Ok(())
 }
@@ -555,11 +563,14 @@ fn mutated_examples_never_panic_hang_or_print_non_finite() {
 }
 
 /// The big run by hand: `TAUTSPAN_FUZZ_CASES` cases over
-/// `TAUTSPAN_FUZZ_THREADS` threads (default 1), each thread its own seed;
+/// `TAUTSPAN_FUZZ_THREADS` threads (default 1), each thread its own seed
+/// (changed by `TAUTSPAN_FUZZ_SALT`, 0 to 255, for cases not run before);
 /// every distinct finding is written to `target/fuzz-findings/`.
 fn big_run() {
     let cases: u64 = std::env::var("TAUTSPAN_FUZZ_CASES").ok().and_then(|v| v.parse().ok()).unwrap_or(0);
     let threads: u64 = std::env::var("TAUTSPAN_FUZZ_THREADS").ok().and_then(|v| v.parse().ok()).unwrap_or(1).max(1);
+    // a run of new cases rather than a repeat of the last: `TAUTSPAN_FUZZ_SALT`
+    let salt: u8 = std::env::var("TAUTSPAN_FUZZ_SALT").ok().and_then(|v| v.parse().ok()).unwrap_or(0);
     let bases = Arc::new(examples());
     let out_dir = PathBuf::from(env!("CARGO_MANIFEST_DIR")).join("../../target/fuzz-findings");
     std::fs::create_dir_all(&out_dir).expect("findings folder");
@@ -575,6 +586,7 @@ fn big_run() {
             std::thread::spawn(move || {
                 let mut seed = SEED;
                 seed[0] ^= k as u8 + 1;
+                seed[1] ^= salt;
                 let mut runner =
                     TestRunner::new_with_rng(Config::default(), TestRng::from_seed(RngAlgorithm::ChaCha, &seed));
                 let strat = strategy();
