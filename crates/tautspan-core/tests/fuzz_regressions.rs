@@ -122,3 +122,20 @@ fn a_node_repeated_many_times_is_reported_once_per_copy() {
     assert_eq!(duplicate, copies);
     assert!(errors.len() <= 2 * copies + 4, "{} problems", errors.len());
 }
+
+/// A plain eye bolt pulled 27° off its axis (the big run of 2026-12-05):
+/// rated for in-line pull only (ASME B30.26), so it has no allowable there.
+/// The comparison said "over" with a dash, but the verdict's worst line
+/// said "inf % of its allowable". Wanted: every output finite, and the
+/// worst line says it is over where it has no rating.
+#[test]
+fn plain_eye_bolt_pulled_at_an_angle() {
+    refused_or_finite("plain-eye-bolt-at-angle.ron");
+    let loaded = load_scenario(&input("plain-eye-bolt-at-angle.ron")).expect("valid");
+    let a = analyse(&loaded.scenario);
+    let text = check_text("f.ron", &a);
+    assert!(
+        text.contains("worst: rated part hoist/eye bolt in case hanging, over: loaded where it has no rating"),
+        "{text}"
+    );
+}

@@ -6,7 +6,8 @@
 //! the 71 × 71 square net with a mass at every joint (9,940 members, 4,761
 //! masses): open to the first results shown (target < 1 s) and the
 //! UI-thread frame while one of its joints is dragged (target 60 Hz,
-//! < 16.7 ms), and its frame in plan and in 3-D (target < 8 ms). Run with `cargo bench -p tautspan-gui --bench frame`.
+//! < 16.7 ms), and its frame in plan and in 3-D (target < 8 ms). Run with `cargo bench -p tautspan-gui --bench frame`;
+//! `TAUTSPAN_FRAME_BENCH=big` runs the 71 × 71 net alone.
 
 #![allow(missing_docs, reason = "criterion's macros generate undocumented items")]
 
@@ -261,6 +262,11 @@ fn mid_net() {
 }
 
 fn bench(c: &mut Criterion) {
+    // `TAUTSPAN_FRAME_BENCH=big` runs the 71 × 71 net alone (for a profiler)
+    if std::env::var("TAUTSPAN_FRAME_BENCH").is_ok_and(|v| v == "big") {
+        big_net();
+        return;
+    }
     mid_net();
     big_net();
     let dto = net(34, 10);

@@ -88,6 +88,18 @@ pub fn worst(a: &Analysis) -> Option<Worst> {
 }
 
 impl Worst {
+    /// How it stands: "unchecked", a percentage of its allowable with
+    /// `digits` significant digits, or, where it has no allowable at all
+    /// (a plain eye bolt pulled at an angle), "over" with that reason.
+    pub fn amount(&self, digits: usize) -> String {
+        match self.state {
+            State::Unchecked => "unchecked".to_string(),
+            State::Over if !self.utilisation.is_finite() => "over: loaded where it has no rating".to_string(),
+            _ if !self.utilisation.is_finite() => "no allowable where it is".to_string(),
+            _ => format!("{} % of its allowable", crate::units::format_number(self.utilisation * 100.0, digits)),
+        }
+    }
+
     /// One line for the verdict: "worst: rated part A/anchor in case s, 125.0 %".
     pub fn line(&self) -> String {
         let what = match self.kind {
@@ -95,10 +107,6 @@ impl Worst {
             ItemKind::Floor => "floor",
             ItemKind::Part => "rated part",
         };
-        let how = match self.state {
-            State::Unchecked => "unchecked".to_string(),
-            _ => format!("{} % of its allowable", crate::units::format_number(self.utilisation * 100.0, 4)),
-        };
-        format!("worst: {what} {} in case {}, {how}", self.id, self.case)
+        format!("worst: {what} {} in case {}, {}", self.id, self.case, self.amount(4))
     }
 }

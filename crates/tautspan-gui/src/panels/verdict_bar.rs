@@ -50,9 +50,10 @@ pub fn ui(ui: &mut Ui, derived: &Derived, out: &mut Vec<Command>) {
             ui.label(RichText::new(format!("not solved: {}", unsolved.join(", "))).color(AGAINST));
         }
         if let Some(w) = &solved.worst {
-            let what = match w.state {
-                State::Unchecked => "unchecked".to_string(),
-                _ => format!("{:.1} %", w.utilisation * 100.0),
+            let what = if w.state == State::Unchecked || !w.utilisation.is_finite() {
+                w.amount(3)
+            } else {
+                format!("{:.1} %", w.utilisation * 100.0)
             };
             let rope = solved.scenario.members.iter().any(|m| m.id == w.id && m.run.is_some());
             let kind = match w.kind {
