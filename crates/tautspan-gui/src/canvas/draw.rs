@@ -9,6 +9,7 @@
 //! placed in `labels`.
 
 use super::input::CanvasInput;
+use super::strokes::Strokes;
 use crate::canvas::geometry::{GeoFloor, GeoMass, Geometry};
 use crate::canvas::labels::{self, Candidate, label};
 use crate::canvas::view::{View, ViewKind};
@@ -274,7 +275,7 @@ pub fn draw(
     let mut labels = Vec::new();
     // every member's strokes gathered and handed to the painter at once (a
     // large net has tens of thousands; one call each costs more than drawing)
-    let mut shapes: Vec<Shape> = Vec::with_capacity(geo.members.len() * 2);
+    let mut shapes = Strokes::new(geo.members.len() + geo.nodes.len());
     for (k, m) in geo.members.iter().enumerate() {
         let Some((a, b)) = geo.ends(m) else { continue };
         let (sa, sb) = (view.to_screen(a.pos_m[0], a.pos_m[1]), view.to_screen(b.pos_m[0], b.pos_m[1]));
@@ -290,15 +291,14 @@ pub fn draw(
         let result = result_at(k, &m.id);
         if let Some(share) = path.get(m.id.as_str()) {
             // the glow widens with the member's share of the mass's weight
-            shapes
-                .push(Shape::line_segment([sa, sb], Stroke::new(8.0 + 8.0 * share.clamp(0.0, 1.0) as f32, PATH_GLOW)));
+            shapes.segment(sa, sb, Stroke::new(8.0 + 8.0 * share.clamp(0.0, 1.0) as f32, PATH_GLOW));
         }
         if picked {
-            shapes.push(Shape::line_segment([sa, sb], Stroke::new(11.0, PICK)));
+            shapes.segment(sa, sb, Stroke::new(11.0, PICK));
         }
         line(&mut shapes, painter, sa, sb, result);
         if !m.parts.is_empty() {
-            painter.extend(std::mem::take(&mut shapes));
+            shapes.flush(painter);
             parts_mark(painter, parts_mark_at(sa, sb), m.parts.len());
         }
         if input.labels
@@ -319,13 +319,10 @@ pub fn draw(
         let picked = matches!(input.selection, Selection::Rope(id) if *id == r.id);
         for &(sa, sb) in &spans {
             if let Some(share) = path.get(r.id.as_str()) {
-                shapes.push(Shape::line_segment(
-                    [sa, sb],
-                    Stroke::new(8.0 + 8.0 * share.clamp(0.0, 1.0) as f32, PATH_GLOW),
-                ));
+                shapes.segment(sa, sb, Stroke::new(8.0 + 8.0 * share.clamp(0.0, 1.0) as f32, PATH_GLOW));
             }
             if picked {
-                shapes.push(Shape::line_segment([sa, sb], Stroke::new(11.0, PICK)));
+                shapes.segment(sa, sb, Stroke::new(11.0, PICK));
             }
             line(&mut shapes, painter, sa, sb, result);
         }
@@ -337,7 +334,7 @@ pub fn draw(
             labels.push(Candidate { member, ends: [sa, sb], utilisation: res.utilisation, picked });
         }
     }
-    painter.extend(shapes);
+    shapes.flush(painter);
     for n in &geo.nodes {
         if let Some(d) = n.sheave_m {
             sheave_symbol(painter, view, view.to_screen(n.pos_m[0], n.pos_m[1]), d);
@@ -405,13 +402,13 @@ pub fn draw(
     // names and mass boxes only where they can be read: with more joints
     // than fit one a 40 × 40 pt square of the canvas, a small mark instead
     let readable = view.rect.area() / geo.nodes.len().max(1) as f32 >= READABLE_PT * READABLE_PT;
-    let mut marks: Vec<Shape> = Vec::new();
+    let mut marks = Strokes::new(geo.members.len() + geo.nodes.len());
     for m in &geo.masses {
         let (Some(n), Some(r)) = (geo.node(&m.at), mass_rect(geo, view, m)) else { continue };
         let picked = matches!(input.selection, Selection::Mass(id) if *id == m.id);
         if !readable && !picked {
             let p = view.to_screen(n.pos_m[0], n.pos_m[1]);
-            marks.push(Shape::rect_filled(Rect::from_center_size(p + vec2(0.0, 6.0), vec2(5.0, 5.0)), 0.0, MASS_FILL));
+            marks.square(p + vec2(0.0, 6.0), 5.0, MASS_FILL);
             continue;
         }
         let p = view.to_screen(n.pos_m[0], n.pos_m[1]);
@@ -424,9 +421,12 @@ pub fn draw(
         painter.text(r.center(), Align2::CENTER_CENTER, text, FontId::proportional(11.0), Color32::WHITE);
     }
 
-    painter.extend(marks);
+    marks.flush(painter);
     let stroke = Stroke::new(1.5, INK);
     let mut joints: Vec<Shape> = Vec::with_capacity(geo.nodes.len() * 2);
+    // where names cannot be read, a joint is a small square: thousands of
+    // circles would only cover each other, at most of a frame's cost
+    let mut joint_marks = Strokes::new(geo.members.len() + geo.nodes.len());
     let mut names: Vec<(Pos2, &str)> = Vec::new();
     for n in &geo.nodes {
         let p = view.to_screen(n.pos_m[0], n.pos_m[1]);
@@ -439,6 +439,10 @@ pub fn draw(
         }
         match n.support {
             SupportDto::Anchor => anchor_symbol(painter, p, stroke),
+            SupportDto::Joint if !readable => {
+                joint_marks.square(p, 6.0, INK);
+                joint_marks.square(p, 3.0, Color32::WHITE);
+            }
             SupportDto::Joint => {
                 joints.push(Shape::circle_filled(p, 5.5, Color32::WHITE));
                 joints.push(Shape::circle_stroke(p, 5.5, Stroke::new(2.0, INK)));
@@ -456,6 +460,7 @@ pub fn draw(
         }
     }
     painter.extend(joints);
+    joint_marks.flush(painter);
     // nodes on one screen point (one above the other in plan, one behind
     // the other in the elevation) share one label naming them all
     let mut shared: Vec<(Pos2, String)> = Vec::new();
@@ -490,19 +495,19 @@ pub fn draw(
 
 /// One member or rope span into `shapes`: shaded by utilisation, dashed
 /// when slack, heavy and hatched when over, grey before there are results.
-fn line(shapes: &mut Vec<Shape>, painter: &Painter, sa: Pos2, sb: Pos2, result: Option<&MemberResult>) {
+fn line(shapes: &mut Strokes, painter: &Painter, sa: Pos2, sb: Pos2, result: Option<&MemberResult>) {
     let (col, width, state) = match result {
         Some(r) => (colour(r.utilisation), if r.state == State::Over { 6.0 } else { 3.5 }, Some(r.state)),
         None => (UNSOLVED, 3.0, None),
     };
     if state == Some(State::Slack) {
-        shapes.extend(Shape::dashed_line(&[sa, sb], Stroke::new(width + 1.5, CASING), 9.0, 6.0));
-        shapes.extend(Shape::dashed_line(&[sa, sb], Stroke::new(width, col), 9.0, 6.0));
+        shapes.dashed(sa, sb, Stroke::new(width + 1.5, CASING), 9.0, 6.0);
+        shapes.dashed(sa, sb, Stroke::new(width, col), 9.0, 6.0);
     } else {
-        shapes.push(Shape::line_segment([sa, sb], Stroke::new(width + 2.0, CASING)));
-        shapes.push(Shape::line_segment([sa, sb], Stroke::new(width, col)));
+        shapes.segment(sa, sb, Stroke::new(width + 2.0, CASING));
+        shapes.segment(sa, sb, Stroke::new(width, col));
         if state == Some(State::Over) {
-            painter.extend(std::mem::take(shapes));
+            shapes.flush(painter);
             hatch_over(painter, sa, sb, CASING);
         }
     }

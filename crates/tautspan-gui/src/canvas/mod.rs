@@ -18,6 +18,7 @@ pub(crate) mod input;
 pub(crate) mod labels;
 pub(crate) mod overlay;
 pub(crate) mod sling;
+mod strokes;
 pub(crate) mod view;
 
 use crate::canvas::geometry::Geometry;
