@@ -83,7 +83,7 @@ impl Strokes {
 fn quad(mesh: &mut Mesh, a: Pos2, b: Pos2, stroke: Stroke) {
     let d = b - a;
     let length = d.length();
-    if !(length > 0.0) || stroke.width <= 0.0 || stroke.color == Color32::TRANSPARENT {
+    if length.is_nan() || length <= 0.0 || stroke.width <= 0.0 || stroke.color == Color32::TRANSPARENT {
         return;
     }
     let n = vec2(-d.y, d.x) * (0.5 * stroke.width / length);
