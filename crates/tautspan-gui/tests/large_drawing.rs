@@ -42,7 +42,7 @@ fn a_large_net_is_drawn_in_its_utilisation_colours() {
     assert!(case.converged);
     let drawn = vertex_colours(&h);
     assert!(drawn.len() > 8 * 1_800, "two quads a member at least: {} vertices", drawn.len());
-    let view = h.state().view.clone();
+    let view = h.state().view;
     for m in case.members.iter().step_by(97) {
         let [r, g, b] = rgb(m.utilisation);
         let want = Color32::from_rgb(r, g, b);
