@@ -314,9 +314,19 @@ fn path_line(out: &mut String, what: &str, p: &LoadPathResult) {
             format_number(LOAD_PATH_THRESHOLD * 100.0, 3)
         ));
     }
+    // part of the weight not followed to a support: below the cut, or
+    // going round a loop of members past the trace's budget
+    let untraced = if p.untraced >= LOAD_PATH_THRESHOLD {
+        format!(
+            " ({} % of the weight not traced to a support: flows too small to follow, or carried round a loop of members)",
+            pct(p.untraced)
+        )
+    } else {
+        String::new()
+    };
     let _ = writeln!(
         out,
-        "  {what}: {}{below} -> {}",
+        "  {what}: {}{below} -> {}{untraced}",
         shares_text(&p.members, &p.shares),
         shares_text(&p.supports, &p.support_shares)
     );
