@@ -246,3 +246,18 @@ fn a_loop_is_followed_round_until_the_weight_leaves() {
     assert_eq!(p.supports.len(), 1);
     assert!((p.supports[0].1 - 1.0).abs() < 1e-4 && p.untraced < 1e-4);
 }
+
+/// The load paths of a net with more masses than are traced on one thread
+/// (21 × 21: 361 masses, past the 256 that share the cores) are the same,
+/// in the same order, whether the analysis may use the machine's cores or
+/// only its own thread (as the app's solve worker does, leaving a core for
+/// drawing): the traces are pure functions of the solved flow.
+#[test]
+fn one_thread_or_many_give_the_same_paths() {
+    let s = load_scenario(&grid_net(21, "2 kg")).unwrap().scenario;
+    let many = analyse(&s);
+    let one = tautspan_core::analysis::with_thread_limit(1, || analyse(&s));
+    assert_eq!(many.cases[0].load_path.len(), 361);
+    assert_eq!(many.cases[0].load_path, one.cases[0].load_path);
+    assert_eq!(many.cases[0].combined_load_path, one.cases[0].combined_load_path);
+}

@@ -53,7 +53,7 @@ pub fn load_path_results(
             to_result(s, flow.trace(&[(node, 1.0)], LOAD_PATH_THRESHOLD, MAX_LISTED, scratch), "")
         }
     };
-    let threads = std::thread::available_parallelism().map_or(1, |n| n.get()).min(MAX_THREADS);
+    let threads = super::threads::threads_for(MAX_THREADS);
     let traced: Vec<LoadPathResult> = if threads > 1 && to_trace.len() >= PARALLEL_FROM {
         let chunk = to_trace.len().div_ceil(threads);
         std::thread::scope(|scope| {

@@ -19,6 +19,7 @@ mod simulate_case;
 mod simulate_stream;
 mod strut;
 mod swing_arc;
+mod threads;
 mod warning_group;
 mod warning_kind;
 mod warnings;
@@ -40,6 +41,7 @@ pub use simulate_stream::{
 };
 pub use strut::{Compression, compression, compression_explanation};
 pub use swing_arc::{GRID_STEP_DEG, PEAK_TOLERANCE, arc_loads};
+pub use threads::{set_thread_limit, with_thread_limit};
 pub use warning_group::{SUBJECTS_IN_TEXT, WarningGroup, first_few, group_warnings};
 pub use warning_kind::WarningKind;
 pub use worst::{ItemKind, Worst, worst};

@@ -103,6 +103,10 @@ impl SolveWorker {
         let (done, rx) = channel::<Outcome>();
         let inbox = shared.clone();
         std::thread::Builder::new().name("tautspan-solve".to_string()).spawn(move || {
+            // the analysis shares its load paths among the cores; leave one
+            // for the interface thread, so a frame is never queued behind them
+            let cores = std::thread::available_parallelism().map_or(1, std::num::NonZero::get);
+            tautspan_core::analysis::set_thread_limit(cores.saturating_sub(1));
             let mut prior: Option<Arc<Solved>> = None;
             loop {
                 let (job, trash) = {
