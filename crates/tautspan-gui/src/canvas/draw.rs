@@ -276,7 +276,7 @@ pub fn draw(
     // every member's strokes gathered and handed to the painter at once (a
     // large net has tens of thousands; one call each costs more than drawing)
     let mut shapes = Strokes::new(geo.members.len() + geo.nodes.len());
-    for (k, m) in geo.members.iter().enumerate() {
+    for (k, m) in geo.members_in_order() {
         let Some((a, b)) = geo.ends(m) else { continue };
         let (sa, sb) = (view.to_screen(a.pos_m[0], a.pos_m[1]), view.to_screen(b.pos_m[0], b.pos_m[1]));
         let picked = matches!(input.selection, Selection::Member(id) if *id == m.id);
@@ -403,7 +403,7 @@ pub fn draw(
     // than fit one a 40 × 40 pt square of the canvas, a small mark instead
     let readable = view.rect.area() / geo.nodes.len().max(1) as f32 >= READABLE_PT * READABLE_PT;
     let mut marks = Strokes::new(geo.members.len() + geo.nodes.len());
-    for m in &geo.masses {
+    for m in geo.masses.iter() {
         let (Some(n), Some(r)) = (geo.node(&m.at), mass_rect(geo, view, m)) else { continue };
         let picked = matches!(input.selection, Selection::Mass(id) if *id == m.id);
         if !readable && !picked {
@@ -564,7 +564,7 @@ pub fn deflection_caption(ui: &mut egui::Ui, view: &View, caption: &str) {
 /// The drawn shape under the deflected one: thin dashed members, small rings.
 fn draw_ghost(painter: &Painter, view: &View, geo: &Geometry) {
     let stroke = Stroke::new(1.5, UNSOLVED);
-    for m in &geo.members {
+    for m in geo.members.iter() {
         let (Some(a), Some(b)) = (geo.node(&m.ends.0), geo.node(&m.ends.1)) else { continue };
         let (sa, sb) = (view.to_screen(a.pos_m[0], a.pos_m[1]), view.to_screen(b.pos_m[0], b.pos_m[1]));
         painter.extend(Shape::dashed_line(&[sa, sb], stroke, 5.0, 4.0));

@@ -8,6 +8,7 @@
 use crate::canvas::view::View;
 use egui::{Rect, pos2};
 use std::collections::HashMap;
+use std::sync::Arc;
 use tautspan_core::file::{ScenarioDto, SupportDto};
 use tautspan_core::units::{Dimension, Sign, parse_quantity};
 
@@ -141,16 +142,19 @@ impl GeoFloor {
 pub struct Geometry {
     /// Nodes whose positions parse.
     pub nodes: Vec<GeoNode>,
-    /// Members.
-    pub members: Vec<GeoMember>,
+    /// Members (shared between the drawn and the projected geometry).
+    pub members: Arc<Vec<GeoMember>>,
+    /// The order members are painted in, far to near in the orbit (indices
+    /// into `members`); empty: as listed.
+    order: Vec<usize>,
     /// Ropes over sheaves.
     pub ropes: Vec<GeoRope>,
     /// Masses.
-    pub masses: Vec<GeoMass>,
+    pub masses: Arc<Vec<GeoMass>>,
     /// Slabs under floor nodes.
     pub floors: Vec<GeoFloor>,
     /// Node index by id.
-    index: HashMap<String, usize>,
+    index: Arc<HashMap<String, usize>>,
 }
 
 fn len(text: &str) -> Option<f64> {
@@ -250,19 +254,21 @@ impl Geometry {
             })
             .collect();
         Geometry {
-            index,
-            members,
+            index: Arc::new(index),
+            members: Arc::new(members),
+            order: Vec::new(),
             ropes: ropes_of(dto),
-            masses: dto
-                .masses
-                .iter()
-                .map(|m| GeoMass {
-                    id: m.id.clone(),
-                    at: m.at.clone(),
-                    kg: mass_kg(&m.mass.0),
-                    read_from: m.mass.0.clone(),
-                })
-                .collect(),
+            masses: Arc::new(
+                dto.masses
+                    .iter()
+                    .map(|m| GeoMass {
+                        id: m.id.clone(),
+                        at: m.at.clone(),
+                        kg: mass_kg(&m.mass.0),
+                        read_from: m.mass.0.clone(),
+                    })
+                    .collect(),
+            ),
             nodes,
             floors,
         }
@@ -307,20 +313,33 @@ impl Geometry {
                 g.sheave_m = sheave_of(n);
             }
         }
-        for (g, m) in self.masses.iter_mut().zip(&dto.masses) {
-            if g.read_from != m.mass.0 {
-                g.kg = mass_kg(&m.mass.0);
-                g.read_from.clone_from(&m.mass.0);
+        // masses and members are shared with the projected copy: copied
+        // only when one of them changed
+        if self.masses.iter().zip(&dto.masses).any(|(g, m)| g.read_from != m.mass.0) {
+            for (g, m) in Arc::make_mut(&mut self.masses).iter_mut().zip(&dto.masses) {
+                if g.read_from != m.mass.0 {
+                    g.kg = mass_kg(&m.mass.0);
+                    g.read_from.clone_from(&m.mass.0);
+                }
             }
         }
-        for (g, m) in self.members.iter_mut().zip(&dto.members) {
-            // the parts may have been edited in place (a WLL typed)
-            if !(g.parts.is_empty() && m.fittings.is_empty()) {
-                g.parts = parts_of(&m.fittings);
+        // the parts may have been edited in place (a WLL typed)
+        if self.members.iter().zip(&dto.members).any(|(g, m)| !(g.parts.is_empty() && m.fittings.is_empty())) {
+            for (g, m) in Arc::make_mut(&mut self.members).iter_mut().zip(&dto.members) {
+                if !(g.parts.is_empty() && m.fittings.is_empty()) {
+                    g.parts = parts_of(&m.fittings);
+                }
             }
         }
         self.floors = floors_of(&self.nodes, dto);
         true
+    }
+
+    /// The members with their indices, in the order they are painted (far
+    /// to near in the orbit).
+    pub fn members_in_order(&self) -> impl Iterator<Item = (usize, &GeoMember)> {
+        let natural = self.order.is_empty().then_some(0..self.members.len());
+        natural.into_iter().flatten().chain(self.order.iter().copied()).map(|k| (k, &self.members[k]))
     }
 
     /// A member's two ends, when both are drawn.
@@ -341,11 +360,10 @@ impl Geometry {
             f.at_m = view.project(f.xyz_m).0;
         }
         if view.kind == crate::canvas::view::ViewKind::Orbit {
-            let depth = |a: &str, b: &str| out.node(a).map_or(0.0, |n| n.depth) + out.node(b).map_or(0.0, |n| n.depth);
-            let mut members: Vec<(f64, GeoMember)> =
-                out.members.iter().map(|m| (depth(&m.ends.0, &m.ends.1), m.clone())).collect();
-            members.sort_by(|a, b| a.0.total_cmp(&b.0));
-            out.members = members.into_iter().map(|(_, m)| m).collect();
+            let depth = |m: &GeoMember| m.end_at.map_or(0.0, |[a, b]| out.nodes[a].depth + out.nodes[b].depth);
+            let mut order: Vec<(f64, usize)> = out.members.iter().enumerate().map(|(k, m)| (depth(m), k)).collect();
+            order.sort_by(|a, b| a.0.total_cmp(&b.0));
+            out.order = order.into_iter().map(|(_, k)| k).collect();
             let rope_depth = |r: &GeoRope| {
                 r.path.iter().filter_map(|id| out.node(id)).map(|n| n.depth).sum::<f64>() / r.path.len().max(1) as f64
             };
@@ -420,11 +438,30 @@ mod tests {
     }
 
     #[test]
+    fn the_orbit_paints_far_to_near_and_shares_the_members() {
+        let dto: ScenarioDto =
+            tautspan_core::file::parse_scenario_text(crate::DEMO_SCENARIO).map(|(d, _)| d).unwrap_or_default();
+        let g = Geometry::of(&dto);
+        let natural: Vec<usize> = g.members_in_order().map(|(k, _)| k).collect();
+        assert_eq!(natural, (0..g.members.len()).collect::<Vec<_>>());
+        let view = View { kind: crate::canvas::view::ViewKind::Orbit, yaw_deg: 30.0, ..View::default() };
+        let p = g.projected(&view);
+        assert!(Arc::ptr_eq(&p.members, &g.members), "projecting copies no member");
+        let depth = |m: &GeoMember| m.end_at.map_or(0.0, |[a, b]| p.nodes[a].depth + p.nodes[b].depth);
+        let order: Vec<f64> = p.members_in_order().map(|(_, m)| depth(m)).collect();
+        assert_eq!(order.len(), g.members.len());
+        assert!(order.windows(2).all(|w| w[0] <= w[1]), "far to near: {order:?}");
+        let mut seen: Vec<usize> = p.members_in_order().map(|(k, _)| k).collect();
+        seen.sort_unstable();
+        assert_eq!(seen, natural, "every member once");
+    }
+
+    #[test]
     fn members_know_where_their_ends_are() {
         let dto: ScenarioDto =
             tautspan_core::file::parse_scenario_text(crate::DEMO_SCENARIO).map(|(d, _)| d).unwrap_or_default();
         let g = Geometry::of(&dto);
-        for m in &g.members {
+        for m in g.members.iter() {
             let (a, b) = g.ends(m).unwrap_or_else(|| panic!("{}", m.id));
             assert_eq!((a.id.as_str(), b.id.as_str()), (m.ends.0.as_str(), m.ends.1.as_str()));
         }
