@@ -26,6 +26,9 @@ pub struct Solved {
     pub warning_groups: Vec<(Option<String>, WarningGroup)>,
     /// The worst item over every case (the verdict bar's), found once here.
     pub worst: Option<Worst>,
+    /// Each case's line in the cases panel (its largest utilisation and
+    /// worst state), in the order of the cases, found once here.
+    pub case_summaries: Vec<(String, Option<tautspan_core::analysis::State>)>,
 }
 
 /// Validate and analyse a document. With a `prior` answer (the previous
@@ -61,7 +64,8 @@ pub fn analyse_model(scenario: Scenario, prior: Option<&Solved>, start: Instant)
         .chain(analysis.cases.iter().flat_map(|c| c.warning_groups().into_iter().map(|g| (Some(c.id.clone()), g))))
         .collect();
     let worst = worst(&analysis);
-    Solved { scenario, analysis, solve_ms: start.elapsed().as_secs_f64() * 1e3, warning_groups, worst }
+    let case_summaries = analysis.cases.iter().map(super::case_summary::case_summary).collect();
+    Solved { scenario, analysis, solve_ms: start.elapsed().as_secs_f64() * 1e3, warning_groups, worst, case_summaries }
 }
 
 /// The same members joining the same nodes, by id.

@@ -2,13 +2,15 @@
 //! `Document` (here), `command` (what the panels ask for), `edits` (the
 //! edits themselves), `placing` (nodes placed and moved in x, y and z), `undo`, `rename` (ids renamed with every reference),
 //! `selection`; answers come from `solve_worker` (one thread re-solving off
-//! the UI thread) into `derived` (the results shown), through `core_bridge`,
+//! the UI thread) into `derived` (the results shown, with each case's line
+//! in `case_summary`), through `core_bridge`,
 //! the only door to `tautspan_core`'s analysis.
 //!
 //! The document the app edits: the scenario's file types (quantities as the
 //! user typed them), the file it came from, the dirty flag, the revision
 //! that tells derived results when to recompute, and undo/redo.
 
+pub(crate) mod case_summary;
 pub(crate) mod command;
 pub mod core_bridge;
 pub(crate) mod derived;

@@ -12,7 +12,7 @@ use crate::fields::qty_field::{FieldBuffers, QtyField};
 use crate::fields::units_display::{Shown, UnitSystem};
 use crate::panels::warning_severity::{NEAR_AMBER, OVER_RED, UNCHECKED_VIOLET};
 use egui::{RichText, Ui};
-use tautspan_core::analysis::{CaseResult, State};
+use tautspan_core::analysis::State;
 use tautspan_core::file::{CaseDto, Qty, ScenarioDto};
 use tautspan_core::units::{Dimension, Sign};
 
@@ -23,43 +23,6 @@ fn kind_of(c: &CaseDto) -> &'static str {
         CaseDto::Drop { .. } => "drop",
         CaseDto::Sudden { .. } => "sudden",
     }
-}
-
-/// A case's line beside its name: the largest utilisation of every member,
-/// floor and rated part in it ("max 34 %"), and its worst state: over where
-/// anything is over, else unchecked where anything is, else near; "not
-/// solved" where the case failed.
-pub fn summary(r: &CaseResult) -> (String, Option<State>) {
-    if r.error.is_some() || !r.converged {
-        return ("not solved".to_string(), Some(State::Over));
-    }
-    let items = r
-        .members
-        .iter()
-        .map(|m| (m.utilisation, m.state))
-        .chain(r.floors.iter().map(|f| (f.utilisation, f.state)))
-        .chain(r.parts().map(|p| (p.utilisation, p.state)));
-    let (mut max, mut worst) = (0.0_f64, None);
-    for (u, st) in items {
-        if u.is_finite() {
-            max = max.max(u);
-        }
-        let rank = |s: Option<State>| match s {
-            Some(State::Over) => 3,
-            Some(State::Unchecked) => 2,
-            Some(State::Near) => 1,
-            _ => 0,
-        };
-        if rank(Some(st)) > rank(worst) {
-            worst = Some(st);
-        }
-    }
-    let text = match worst {
-        Some(State::Over) => format!("OVER, max {:.0} %", max * 100.0),
-        Some(State::Unchecked) => format!("UNCHECKED items, max {:.0} %", max * 100.0),
-        _ => format!("max {:.0} %", max * 100.0),
-    };
-    (text, worst)
 }
 
 /// Draw the cases panel.
@@ -79,7 +42,10 @@ pub fn ui(
         ui.push_id(("case", i), |ui| {
             ui.horizontal(|ui| {
                 let id = c.id().to_string();
-                let state = derived.case(Some(&id)).filter(|r| r.id == id).map(summary);
+                let state = derived.solved.as_ref().and_then(|s| {
+                    let k = s.analysis.cases.iter().position(|r| r.id == id)?;
+                    s.case_summaries.get(k).cloned()
+                });
                 if ui
                     .selectable_label(shown == Some(id.as_str()), format!("{id} ({})", kind_of(c)))
                     .on_hover_text("Show this case on the canvas")
