@@ -56,3 +56,68 @@ fn a_large_net_is_drawn_in_its_utilisation_colours() {
     // 29 × 29 interior joints (the 120 on the edge are anchors, drawn as such)
     assert!(ink >= 4 * 841, "a square of ink a joint: {ink} ink vertices");
 }
+
+/// Ink squares (a joint's mark where names cannot be read) centred within
+/// 1 pt of `p`.
+fn joint_mark_at(drawn: &[(egui::Pos2, Color32)], p: egui::Pos2) -> bool {
+    let ink = Color32::from_rgb(0x2b, 0x2d, 0x33);
+    // a 6 pt square: its corners 3 pt either side of the centre
+    drawn.iter().filter(|(q, c)| *c == ink && (q.x - p.x).abs() <= 4.0 && (q.y - p.y).abs() <= 4.0).count() >= 4
+}
+
+// Dragging a joint of the large net in plan: while the pointer moves, the
+// kept drawing has no mark where the joint was and the frame draws it where
+// it is now, with its members ending there; after the release the whole
+// drawing is made again at the new place (one joint mark, at the new
+// place only).
+#[test]
+fn a_joint_dragged_on_a_large_net_is_drawn_where_it_is() {
+    let (dto, _) = tautspan_core::file::parse_scenario_text(&grid::grid_net(31, "2 kg")).unwrap();
+    let mut app = TautspanApp::with_document(Document::new(dto, None), Prefs::default());
+    app.files.native = false;
+    let mut h = common::harness(app);
+    h.state_mut().view.kind = ViewKind::Plan;
+    h.state_mut().view.fit_pending = true;
+    h.run();
+    // close in, centred on the joint, so the grid snaps to the half metre
+    // (its step: the first of 1, 2, 5 × 10ⁿ m at least 50 pt)
+    h.state_mut().view.px_per_m = 120.0;
+    let centre = h.state().view.project([15.0, 0.0, 15.0]).0;
+    h.state_mut().view.centre_m = centre;
+    h.run();
+    let view = h.state().view;
+    let from = view.to_screen_xyz([15.0, 0.0, 15.0]);
+    let to = view.to_screen_xyz([15.5, 0.0, 15.0]);
+    assert!(joint_mark_at(&vertex_colours(&h), from), "the joint is marked before the drag");
+    h.event(egui::Event::PointerMoved(from));
+    h.run();
+    h.event(egui::Event::PointerButton {
+        pos: from,
+        button: egui::PointerButton::Primary,
+        pressed: true,
+        modifiers: egui::Modifiers::NONE,
+    });
+    h.run();
+    for k in 1..=5 {
+        h.event(egui::Event::PointerMoved(from + (to - from) * (k as f32 / 5.0)));
+        h.run();
+    }
+    assert_eq!(h.state().canvas.dragging.as_deref(), Some("n15_15"));
+    let x = h.state().doc.dto.nodes.iter().find(|n| n.id == "n15_15").map(|n| n.at.x.0.clone());
+    assert_eq!(x.as_deref(), Some("15.5 m"));
+    let during = vertex_colours(&h);
+    assert!(!joint_mark_at(&during, from), "no mark left where the joint was");
+    assert!(joint_mark_at(&during, to), "the joint is drawn where it is now");
+    h.event(egui::Event::PointerButton {
+        pos: to,
+        button: egui::PointerButton::Primary,
+        pressed: false,
+        modifiers: egui::Modifiers::NONE,
+    });
+    h.run();
+    assert!(h.state().canvas.dragging.is_none());
+    let after = vertex_colours(&h);
+    assert!(!joint_mark_at(&after, from) && joint_mark_at(&after, to));
+    // the neighbour's members still end at the neighbour
+    assert!(joint_mark_at(&after, view.to_screen_xyz([14.0, 0.0, 15.0])));
+}

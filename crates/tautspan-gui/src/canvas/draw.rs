@@ -151,6 +151,39 @@ pub struct Picking<'a> {
     pub sling: &'a [String],
     /// Draw the legend (the user may fold it away).
     pub legend: bool,
+    /// All of the drawing, or the part that stays or moves while a node is dragged.
+    pub part: Part,
+}
+
+/// Which part of the drawing to draw. While a node of a large drawing is
+/// dragged, everything that does not move is drawn once and kept; each
+/// frame draws only the dragged node with its members and mass on top.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum Part {
+    /// The whole drawing.
+    All,
+    /// All but the node (an index into the geometry's nodes), its members,
+    /// ropes and mass.
+    Without(usize),
+    /// Only the node, its members, ropes and mass.
+    Only(usize),
+}
+
+impl Part {
+    /// Whether an item touching these nodes is drawn.
+    fn keeps(self, touches: impl Fn(usize) -> bool) -> bool {
+        match self {
+            Part::All => true,
+            Part::Without(k) => !touches(k),
+            Part::Only(k) => touches(k),
+        }
+    }
+
+    /// Whether the parts that never move are drawn (grid, floors, legend,
+    /// labels, the routing lines).
+    fn still(self) -> bool {
+        !matches!(self, Part::Only(_))
+    }
 }
 
 /// Smallest radius a sheave is drawn with, points, so a small sheave far
@@ -179,14 +212,17 @@ pub fn draw(
 ) {
     let (member_start, hover) = (picking.member_start, picking.hover);
     let units = input.units;
-    draw_grid(painter, view, units);
-    if let Some(d) = deflection {
+    let part = picking.part;
+    if part.still() {
+        draw_grid(painter, view, units);
+    }
+    if let Some(d) = deflection.filter(|_| part.still()) {
         draw_ghost(painter, view, d.drawn);
     }
     let case = input.derived.case(input.case);
     let mut panels_drawn: Vec<&str> = Vec::new();
     let (mut floor_labelled, mut floor_labels): (Vec<&str>, Vec<Rect>) = (Vec::new(), Vec::new());
-    for f in &geo.floors {
+    for f in geo.floors.iter().filter(|_| part.still()) {
         let picked = *input.selection == Selection::Floor(f.floor_id.clone());
         // plan and 3-D show the panel: once per slab, however many feet stand on it
         if matches!(view.kind, ViewKind::Plan | ViewKind::Orbit) {
@@ -275,8 +311,11 @@ pub fn draw(
     let mut labels = Vec::new();
     // every member's strokes gathered and handed to the painter at once (a
     // large net has tens of thousands; one call each costs more than drawing)
-    let mut shapes = Strokes::new(geo.members.len() + geo.nodes.len());
+    let mut shapes = Strokes::new(geo.members.len() + geo.nodes.len()).with_room_for(2 * geo.members.len());
     for (k, m) in geo.members_in_order() {
+        if !part.keeps(|n| m.end_at.is_some_and(|e| e.contains(&n))) {
+            continue;
+        }
         let Some((a, b)) = geo.ends(m) else { continue };
         let (sa, sb) = (view.to_screen(a.pos_m[0], a.pos_m[1]), view.to_screen(b.pos_m[0], b.pos_m[1]));
         let picked = matches!(input.selection, Selection::Member(id) if *id == m.id);
@@ -313,7 +352,13 @@ pub fn draw(
         let (a, b) = (geo.node(a)?, geo.node(b)?);
         Some((view.to_screen(a.pos_m[0], a.pos_m[1]), view.to_screen(b.pos_m[0], b.pos_m[1])))
     };
+    let on_rope = |r: &crate::canvas::geometry::GeoRope, n: usize| {
+        geo.nodes.get(n).is_some_and(|node| r.path.contains(&node.id))
+    };
     for (k, r) in geo.ropes.iter().enumerate() {
+        if !part.keeps(|n| on_rope(r, n)) {
+            continue;
+        }
         let spans: Vec<(Pos2, Pos2)> = r.spans().filter_map(|(a, b)| on_screen(a, b)).collect();
         let result = result_at(geo.members.len() + k, &r.id);
         let picked = matches!(input.selection, Selection::Rope(id) if *id == r.id);
@@ -335,13 +380,16 @@ pub fn draw(
         }
     }
     shapes.flush(painter);
-    for n in &geo.nodes {
+    for (i, n) in geo.nodes.iter().enumerate() {
+        if !part.keeps(|k| k == i) {
+            continue;
+        }
         if let Some(d) = n.sheave_m {
             sheave_symbol(painter, view, view.to_screen(n.pos_m[0], n.pos_m[1]), d);
         }
     }
 
-    if input.labels {
+    if input.labels && part.still() {
         let hidden = labels::draw(painter, view.rect, centre, labels, INK, |k| {
             // candidates past the members are the ropes, in order
             let id = match geo.members.get(k) {
@@ -370,12 +418,12 @@ pub fn draw(
         }
     }
 
-    if let (Some(start), Some(h)) = (member_start.and_then(|s| geo.node(s)), hover) {
+    if let (Some(start), Some(h)) = (member_start.and_then(|s| geo.node(s)).filter(|_| part.still()), hover) {
         let s = view.to_screen(start.pos_m[0], start.pos_m[1]);
         painter.extend(Shape::dashed_line(&[s, h], Stroke::new(2.0, PICK), 6.0, 4.0));
     }
     // the sling helper's legs so far: from the hook to each pick point
-    if let Some(hook) = picking.sling.first().and_then(|id| geo.node(id)) {
+    if let Some(hook) = picking.sling.first().and_then(|id| geo.node(id)).filter(|_| part.still()) {
         let h = view.to_screen(hook.pos_m[0], hook.pos_m[1]);
         for n in picking.sling.iter().skip(1).filter_map(|id| geo.node(id)) {
             painter.extend(Shape::dashed_line(
@@ -394,7 +442,7 @@ pub fn draw(
         .filter_map(|id| geo.node(id))
         .map(|n| view.to_screen(n.pos_m[0], n.pos_m[1]))
         .collect();
-    if !route.is_empty() {
+    if !route.is_empty() && part.still() {
         route.extend(hover);
         painter.extend(Shape::dashed_line(&route, Stroke::new(2.0, PICK), 6.0, 4.0));
     }
@@ -402,8 +450,11 @@ pub fn draw(
     // names and mass boxes only where they can be read: with more joints
     // than fit one a 40 × 40 pt square of the canvas, a small mark instead
     let readable = view.rect.area() / geo.nodes.len().max(1) as f32 >= READABLE_PT * READABLE_PT;
-    let mut marks = Strokes::new(geo.members.len() + geo.nodes.len());
+    let mut marks = Strokes::new(geo.members.len() + geo.nodes.len()).with_room_for(geo.masses.len());
     for m in geo.masses.iter() {
+        if part != Part::All && !part.keeps(|k| geo.nodes.get(k).is_some_and(|n| n.id == m.at)) {
+            continue;
+        }
         let (Some(n), Some(r)) = (geo.node(&m.at), mass_rect(geo, view, m)) else { continue };
         let picked = matches!(input.selection, Selection::Mass(id) if *id == m.id);
         if !readable && !picked {
@@ -426,9 +477,12 @@ pub fn draw(
     let mut joints: Vec<Shape> = Vec::with_capacity(geo.nodes.len() * 2);
     // where names cannot be read, a joint is a small square: thousands of
     // circles would only cover each other, at most of a frame's cost
-    let mut joint_marks = Strokes::new(geo.members.len() + geo.nodes.len());
+    let mut joint_marks = Strokes::new(geo.members.len() + geo.nodes.len()).with_room_for(2 * geo.nodes.len());
     let mut names: Vec<(Pos2, &str)> = Vec::new();
-    for n in &geo.nodes {
+    for (i, n) in geo.nodes.iter().enumerate() {
+        if !part.keeps(|k| k == i) {
+            continue;
+        }
         let p = view.to_screen(n.pos_m[0], n.pos_m[1]);
         if matches!(input.selection, Selection::Node(id) if *id == n.id)
             || member_start == Some(n.id.as_str())
@@ -478,7 +532,7 @@ pub fn draw(
     }
     // in the deflected view the caption holds the top left; the legend goes below it
     let legend_top = if deflection.is_some() { CAPTION_HEIGHT + 16.0 } else { 12.0 } + LEGEND_SWITCH_HEIGHT;
-    if !picking.legend {
+    if !picking.legend || !part.still() {
         return;
     }
     legend(painter, view, input.derived.solved.as_ref().map(|s| s.scenario.near_limit).unwrap_or(0.8), legend_top);

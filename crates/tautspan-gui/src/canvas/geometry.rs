@@ -374,6 +374,11 @@ impl Geometry {
         out
     }
 
+    /// Where a node is in `nodes`, by id.
+    pub fn node_index(&self, id: &str) -> Option<usize> {
+        self.index.get(id).copied()
+    }
+
     /// A node by id.
     pub fn node(&self, id: &str) -> Option<&GeoNode> {
         self.index.get(id).and_then(|&i| self.nodes.get(i))

@@ -87,6 +87,8 @@ struct PaintKey {
     units: UnitSystem,
     picking: (Option<String>, Vec<String>, Vec<String>, Option<Pos2>),
     legend: bool,
+    /// The whole drawing, or what stays while a node is dragged.
+    part: draw::Part,
 }
 
 impl PaintKey {
@@ -117,6 +119,7 @@ impl PaintKey {
                 hover.filter(|_| routing),
             ),
             legend: !state.legend_hidden && overlay::legend_fits(view.rect),
+            part: draw::Part::All,
         }
     }
 }
@@ -456,7 +459,29 @@ pub fn ui(ui: &mut Ui, state: &mut CanvasState, view: &mut View, input: &CanvasI
 
     let painter = ui.painter_at(rect);
     let key_input = KeyInput { input, pixels_per_point: ui.ctx().pixels_per_point() };
-    let key = PaintKey::of(state, view, &key_input, response.hover_pos());
+    let mut key = PaintKey::of(state, view, &key_input, response.hover_pos());
+    // a node of a large drawing dragged: what does not move is drawn once
+    // and kept (its key leaves out the revision the drag changes), and each
+    // frame draws the node with its members on top; a floor's foot moves
+    // its slab too, and the deflected view moves everything, so those are
+    // drawn whole
+    let dragged = state.dragging.as_deref().and_then(|id| geo.node_index(id)).filter(|&k| {
+        geo.members.len() + geo.nodes.len() > strokes::LARGE_DRAWING
+            && deflected.is_none()
+            && !matches!(geo.nodes[k].support, SupportDto::Floor(_))
+    });
+    if let Some(k) = dragged {
+        key.revision = u64::MAX;
+        key.part = draw::Part::Without(k);
+    }
+    let picking_of = |part: draw::Part| draw::Picking {
+        member_start: state.member_start.as_deref(),
+        rope_path: &state.rope_path,
+        hover: response.hover_pos(),
+        sling: state.sling.route(),
+        legend: !state.legend_hidden && overlay::legend_fits(view.rect),
+        part,
+    };
     match &state.painted {
         // nothing the drawing depends on changed: the last frame's shapes again
         Some((k, shapes)) if *k == key => painter.extend(shapes.iter().cloned()),
@@ -464,19 +489,15 @@ pub fn ui(ui: &mut Ui, state: &mut CanvasState, view: &mut View, input: &CanvasI
             let layer = painter.layer_id();
             let first = ui.ctx().graphics(|g| g.get(layer).map_or(0, |l| l.next_idx().0));
             let deflection = deflected.as_ref().map(|_| Deflection { drawn: &shown });
-            let picking = draw::Picking {
-                member_start: state.member_start.as_deref(),
-                rope_path: &state.rope_path,
-                hover: response.hover_pos(),
-                sling: state.sling.route(),
-                legend: !state.legend_hidden && overlay::legend_fits(view.rect),
-            };
-            draw::draw(&painter, view, geo, input, &picking, deflection.as_ref());
+            draw::draw(&painter, view, geo, input, &picking_of(key.part), deflection.as_ref());
             let shapes: Vec<egui::Shape> = ui.ctx().graphics(|g| {
                 g.get(layer).map_or_else(Vec::new, |l| l.all_entries().skip(first).map(|c| c.shape.clone()).collect())
             });
             state.painted = Some((key, Arc::new(baked(ui.ctx(), rect, shapes))));
         }
+    }
+    if let Some(k) = dragged {
+        draw::draw(&painter, view, geo, input, &picking_of(draw::Part::Only(k)), None);
     }
     if let Some((_, caption)) = &deflected {
         draw::deflection_caption(ui, view, caption);

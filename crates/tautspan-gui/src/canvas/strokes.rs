@@ -30,6 +30,16 @@ impl Strokes {
         }
     }
 
+    /// Room for `quads` strokes or squares, where they go into a mesh (a
+    /// large net's mesh grows to megabytes: grown once, not by doubling).
+    pub fn with_room_for(mut self, quads: usize) -> Self {
+        if let Some(mesh) = &mut self.mesh {
+            mesh.reserve_vertices(4 * quads);
+            mesh.reserve_triangles(2 * quads);
+        }
+        self
+    }
+
     /// A straight stroke from `a` to `b` with square-cut ends.
     pub fn segment(&mut self, a: Pos2, b: Pos2, stroke: Stroke) {
         match &mut self.mesh {
