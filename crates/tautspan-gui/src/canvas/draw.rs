@@ -352,9 +352,8 @@ pub fn draw(
         let (a, b) = (geo.node(a)?, geo.node(b)?);
         Some((view.to_screen(a.pos_m[0], a.pos_m[1]), view.to_screen(b.pos_m[0], b.pos_m[1])))
     };
-    let on_rope = |r: &crate::canvas::geometry::GeoRope, n: usize| {
-        geo.nodes.get(n).is_some_and(|node| r.path.contains(&node.id))
-    };
+    let on_rope =
+        |r: &crate::canvas::geometry::GeoRope, n: usize| geo.nodes.get(n).is_some_and(|node| r.path.contains(&node.id));
     for (k, r) in geo.ropes.iter().enumerate() {
         if !part.keeps(|n| on_rope(r, n)) {
             continue;
