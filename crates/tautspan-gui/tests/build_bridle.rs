@@ -92,27 +92,8 @@ fn dragging_a_node_re_solves_live_and_is_one_undo_step() {
     let solves = h.state().derived.solves;
     let from = h.state().view.to_screen(0.0, 3.5);
     let to = h.state().view.to_screen(0.5, 3.5);
-    h.event(egui::Event::PointerMoved(from));
-    h.run();
-    h.event(egui::Event::PointerButton {
-        pos: from,
-        button: egui::PointerButton::Primary,
-        pressed: true,
-        modifiers: egui::Modifiers::NONE,
-    });
-    h.run();
-    for k in 1..=5 {
-        let p = from + (to - from) * (k as f32 / 5.0);
-        h.event(egui::Event::PointerMoved(p));
-        h.run();
-    }
-    h.event(egui::Event::PointerButton {
-        pos: to,
-        button: egui::PointerButton::Primary,
-        pressed: false,
-        modifiers: egui::Modifiers::NONE,
-    });
-    h.run();
+    common::press_and_move(&mut h, from, to, 5);
+    common::release(&mut h, to);
     let j1 = h.state().doc.dto.nodes.iter().find(|n| n.id == "J1").map(|n| n.at.x.0.clone());
     assert_eq!(j1.as_deref(), Some("0.5 m"), "snapped to the grid, in the unit it was written in");
     assert!(h.state().derived.solves > solves, "re-solved while dragging");

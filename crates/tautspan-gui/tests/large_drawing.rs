@@ -12,6 +12,19 @@ use egui::Color32;
 use tautspan_core::colour_ramp::rgb;
 use tautspan_gui::{Document, Prefs, TautspanApp, ViewKind};
 
+/// The app on the 31 × 31 square net (1,860 members, 961 joints), solved,
+/// shown whole in plan.
+fn net_in_plan() -> egui_kittest::Harness<'static, TautspanApp> {
+    let (dto, _) = tautspan_core::file::parse_scenario_text(&grid::grid_net(31, "2 kg")).unwrap();
+    let mut app = TautspanApp::with_document(Document::new(dto, None), Prefs::default());
+    app.files.native = false;
+    let mut h = common::harness(app);
+    h.state_mut().view.kind = ViewKind::Plan;
+    h.state_mut().view.fit_pending = true;
+    h.run();
+    h
+}
+
 fn vertex_colours(h: &egui_kittest::Harness<'_, TautspanApp>) -> Vec<(egui::Pos2, Color32)> {
     let mut out = Vec::new();
     for clipped in &h.output().shapes {
@@ -30,13 +43,7 @@ fn vertex_colours(h: &egui_kittest::Harness<'_, TautspanApp>) -> Vec<(egui::Pos2
 // per joint at least.
 #[test]
 fn a_large_net_is_drawn_in_its_utilisation_colours() {
-    let (dto, _) = tautspan_core::file::parse_scenario_text(&grid::grid_net(31, "2 kg")).unwrap();
-    let mut app = TautspanApp::with_document(Document::new(dto, None), Prefs::default());
-    app.files.native = false;
-    let mut h = common::harness(app);
-    h.state_mut().view.kind = ViewKind::Plan;
-    h.state_mut().view.fit_pending = true;
-    h.run();
+    let h = net_in_plan();
     let solved = h.state().derived.solved.clone().unwrap();
     let case = &solved.analysis.cases[0];
     assert!(case.converged);
@@ -72,13 +79,7 @@ fn joint_mark_at(drawn: &[(egui::Pos2, Color32)], p: egui::Pos2) -> bool {
 // place only).
 #[test]
 fn a_joint_dragged_on_a_large_net_is_drawn_where_it_is() {
-    let (dto, _) = tautspan_core::file::parse_scenario_text(&grid::grid_net(31, "2 kg")).unwrap();
-    let mut app = TautspanApp::with_document(Document::new(dto, None), Prefs::default());
-    app.files.native = false;
-    let mut h = common::harness(app);
-    h.state_mut().view.kind = ViewKind::Plan;
-    h.state_mut().view.fit_pending = true;
-    h.run();
+    let mut h = net_in_plan();
     // close in, centred on the joint, so the grid snaps to the half metre
     // (its step: the first of 1, 2, 5 × 10ⁿ m at least 50 pt)
     h.state_mut().view.px_per_m = 120.0;
@@ -89,32 +90,14 @@ fn a_joint_dragged_on_a_large_net_is_drawn_where_it_is() {
     let from = view.to_screen_xyz([15.0, 0.0, 15.0]);
     let to = view.to_screen_xyz([15.5, 0.0, 15.0]);
     assert!(joint_mark_at(&vertex_colours(&h), from), "the joint is marked before the drag");
-    h.event(egui::Event::PointerMoved(from));
-    h.run();
-    h.event(egui::Event::PointerButton {
-        pos: from,
-        button: egui::PointerButton::Primary,
-        pressed: true,
-        modifiers: egui::Modifiers::NONE,
-    });
-    h.run();
-    for k in 1..=5 {
-        h.event(egui::Event::PointerMoved(from + (to - from) * (k as f32 / 5.0)));
-        h.run();
-    }
+    common::press_and_move(&mut h, from, to, 5);
     assert_eq!(h.state().canvas.dragging.as_deref(), Some("n15_15"));
     let x = h.state().doc.dto.nodes.iter().find(|n| n.id == "n15_15").map(|n| n.at.x.0.clone());
     assert_eq!(x.as_deref(), Some("15.5 m"));
     let during = vertex_colours(&h);
     assert!(!joint_mark_at(&during, from), "no mark left where the joint was");
     assert!(joint_mark_at(&during, to), "the joint is drawn where it is now");
-    h.event(egui::Event::PointerButton {
-        pos: to,
-        button: egui::PointerButton::Primary,
-        pressed: false,
-        modifiers: egui::Modifiers::NONE,
-    });
-    h.run();
+    common::release(&mut h, to);
     assert!(h.state().canvas.dragging.is_none());
     let after = vertex_colours(&h);
     assert!(!joint_mark_at(&after, from) && joint_mark_at(&after, to));

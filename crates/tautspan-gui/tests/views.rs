@@ -477,27 +477,8 @@ fn a_node_dragged_in_plan_moves_in_x_and_z_and_keeps_its_height() {
     // two, and whichever it is moves in x and z and keeps its height
     let from = h.state().view.to_screen_xyz([0.0, 1.0, -1.0]);
     let to = h.state().view.to_screen_xyz([1.0, 1.0, -0.5]);
-    h.event(egui::Event::PointerMoved(from));
-    h.run();
-    h.event(egui::Event::PointerButton {
-        pos: from,
-        button: egui::PointerButton::Primary,
-        pressed: true,
-        modifiers: egui::Modifiers::NONE,
-    });
-    h.run();
-    for k in 1..=8 {
-        let t = k as f32 / 8.0;
-        h.event(egui::Event::PointerMoved(from + (to - from) * t));
-        h.run();
-    }
-    h.event(egui::Event::PointerButton {
-        pos: to,
-        button: egui::PointerButton::Primary,
-        pressed: false,
-        modifiers: egui::Modifiers::NONE,
-    });
-    h.run();
+    common::press_and_move(&mut h, from, to, 8);
+    common::release(&mut h, to);
     let dragged = match h.state().selection.clone() {
         Selection::Node(id) => id,
         other => panic!("a node is dragged, not {other:?}"),

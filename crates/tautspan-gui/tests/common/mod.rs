@@ -49,23 +49,42 @@ pub fn builtin_demo_app() -> TautspanApp {
     app
 }
 
+/// The primary button pressed or released at a screen point.
+pub fn button(h: &mut Harness<'_, TautspanApp>, pos: egui::Pos2, pressed: bool) {
+    h.event(egui::Event::PointerButton {
+        pos,
+        button: egui::PointerButton::Primary,
+        pressed,
+        modifiers: egui::Modifiers::NONE,
+    });
+}
+
+/// Press at `from` and move to `to` in `steps` frames, the button held
+/// (a drag under way: `release` ends it).
+pub fn press_and_move(h: &mut Harness<'_, TautspanApp>, from: egui::Pos2, to: egui::Pos2, steps: u32) {
+    h.event(egui::Event::PointerMoved(from));
+    h.run();
+    button(h, from, true);
+    h.run();
+    for k in 1..=steps {
+        h.event(egui::Event::PointerMoved(from + (to - from) * (k as f32 / steps as f32)));
+        h.run();
+    }
+}
+
+/// Release the button at `at`, ending a drag.
+pub fn release(h: &mut Harness<'_, TautspanApp>, at: egui::Pos2) {
+    button(h, at, false);
+    h.run();
+}
+
 /// Click the canvas at a world point (m).
 pub fn click_world(h: &mut Harness<'_, TautspanApp>, x_m: f64, y_m: f64) {
     let p = h.state().view.to_screen(x_m, y_m);
     h.event(egui::Event::PointerMoved(p));
     h.run();
-    h.event(egui::Event::PointerButton {
-        pos: p,
-        button: egui::PointerButton::Primary,
-        pressed: true,
-        modifiers: egui::Modifiers::NONE,
-    });
-    h.event(egui::Event::PointerButton {
-        pos: p,
-        button: egui::PointerButton::Primary,
-        pressed: false,
-        modifiers: egui::Modifiers::NONE,
-    });
+    button(h, p, true);
+    button(h, p, false);
     h.run();
 }
 
