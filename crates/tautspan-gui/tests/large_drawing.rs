@@ -15,7 +15,8 @@ use tautspan_gui::{Document, Prefs, TautspanApp, ViewKind};
 /// The app on the 31 × 31 square net (1,860 members, 961 joints), solved,
 /// shown whole in plan.
 fn net_in_plan() -> egui_kittest::Harness<'static, TautspanApp> {
-    let (dto, _) = tautspan_core::file::parse_scenario_text(&grid::grid_net(31, "2 kg")).unwrap();
+    let (dto, _) =
+        tautspan_core::file::parse_scenario_text(&grid::grid_net(31, "2 kg")).unwrap_or_else(|e| panic!("{e:?}"));
     let mut app = TautspanApp::with_document(Document::new(dto, None), Prefs::default());
     app.files.native = false;
     let mut h = common::harness(app);
