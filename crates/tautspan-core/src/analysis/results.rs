@@ -242,8 +242,20 @@ pub struct LoadPathResult {
     /// How many supports take some of the weight, below the threshold.
     pub supports_below_threshold: usize,
     /// Fraction of the weight not followed to a support (flows far below
-    /// the threshold): a bound on how much any share may read low.
+    /// the threshold, or weight going round a loop of members past the
+    /// trace's budget): a bound on how much any share may read low.
     pub untraced: f64,
+}
+
+impl LoadPathResult {
+    /// Why weight may go untraced, in words for every output.
+    pub const UNTRACED_REASON: &'static str = "flows too small to follow, or carried round a loop of members";
+
+    /// Whether the untraced part is large enough to say (at least the
+    /// listing threshold, 1 % of the weight).
+    pub fn untraced_worth_saying(&self) -> bool {
+        self.untraced >= super::LOAD_PATH_THRESHOLD
+    }
 }
 
 /// Largest release angle and drop height inside the allowable.

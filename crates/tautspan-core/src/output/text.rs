@@ -314,13 +314,8 @@ fn path_line(out: &mut String, what: &str, p: &LoadPathResult) {
             format_number(LOAD_PATH_THRESHOLD * 100.0, 3)
         ));
     }
-    // part of the weight not followed to a support: below the cut, or
-    // going round a loop of members past the trace's budget
-    let untraced = if p.untraced >= LOAD_PATH_THRESHOLD {
-        format!(
-            " ({} % of the weight not traced to a support: flows too small to follow, or carried round a loop of members)",
-            pct(p.untraced)
-        )
+    let untraced = if p.untraced_worth_saying() {
+        format!(" ({} % of the weight not traced to a support: {})", pct(p.untraced), LoadPathResult::UNTRACED_REASON)
     } else {
         String::new()
     };
@@ -421,4 +416,32 @@ pub fn scope_text(a: &Analysis) -> String {
         let _ = writeln!(out, "  - {c}");
     }
     out
+}
+
+#[cfg(test)]
+mod path_line_tests {
+    use super::*;
+
+    // The untraced part of a path is said from the listing threshold (1 %)
+    // up, with its reason; below it the line is as before.
+    #[test]
+    fn untraced_weight_is_said_from_one_percent() {
+        let path = |untraced: f64| LoadPathResult {
+            mass: "w".into(),
+            members: vec!["m".into()],
+            shares: vec![1.0],
+            below_threshold: 0,
+            not_listed: 0,
+            supports: vec!["A".into()],
+            support_shares: vec![1.0 - untraced],
+            supports_below_threshold: 0,
+            untraced,
+        };
+        let mut out = String::new();
+        path_line(&mut out, "load path of w", &path(0.25));
+        assert!(out.contains("(25.0 % of the weight not traced to a support: flows too small to follow"), "{out}");
+        let mut out = String::new();
+        path_line(&mut out, "load path of w", &path(0.005));
+        assert!(!out.contains("not traced"), "{out}");
+    }
 }

@@ -223,33 +223,43 @@ fn floors(c: &CaseResult, units: UnitSystem) -> String {
 /// Above this many masses the per-mass paths go behind a disclosure.
 const MANY_MASSES: usize = 10;
 
-fn load_paths(c: &CaseResult) -> String {
+/// One path's paragraph: its members and supports with their shares, the
+/// counts below the threshold, and the weight not traced where it is worth
+/// saying.
+fn path_paragraph(p: &LoadPathResult) -> String {
     let share = |ids: &[String], shares: &[f64]| {
         ids.iter().zip(shares).map(|(id, f)| format!("{} {}", escape(id), percent(*f))).collect::<Vec<_>>().join(", ")
     };
-    let one = |p: &LoadPathResult| {
-        let mut below = String::new();
-        if p.not_listed > 0 {
-            below.push_str(&format!(" ({} more at or above {})", p.not_listed, percent(LOAD_PATH_THRESHOLD)));
-        }
-        if p.below_threshold > 0 {
-            below.push_str(&format!(
-                " ({} more members below {} each)",
-                p.below_threshold,
-                percent(LOAD_PATH_THRESHOLD)
-            ));
-        }
+    let mut below = String::new();
+    if p.not_listed > 0 {
+        below.push_str(&format!(" ({} more at or above {})", p.not_listed, percent(LOAD_PATH_THRESHOLD)));
+    }
+    if p.below_threshold > 0 {
+        below.push_str(&format!(" ({} more members below {} each)", p.below_threshold, percent(LOAD_PATH_THRESHOLD)));
+    }
+    let untraced = if p.untraced_worth_saying() {
         format!(
-            "<p>Load path of {}: members {}{below} to supports {}.</p>",
-            if p.mass == ALL_MASSES {
-                "all masses together".to_string()
-            } else {
-                format!("mass <b>{}</b>", escape(&p.mass))
-            },
-            if p.members.is_empty() { "none".to_string() } else { share(&p.members, &p.shares) },
-            if p.supports.is_empty() { "none".to_string() } else { share(&p.supports, &p.support_shares) }
+            " {} of the weight is not traced to a support ({}).",
+            percent(p.untraced),
+            LoadPathResult::UNTRACED_REASON
         )
+    } else {
+        String::new()
     };
+    format!(
+        "<p>Load path of {}: members {}{below} to supports {}.{untraced}</p>",
+        if p.mass == ALL_MASSES {
+            "all masses together".to_string()
+        } else {
+            format!("mass <b>{}</b>", escape(&p.mass))
+        },
+        if p.members.is_empty() { "none".to_string() } else { share(&p.members, &p.shares) },
+        if p.supports.is_empty() { "none".to_string() } else { share(&p.supports, &p.support_shares) }
+    )
+}
+
+fn load_paths(c: &CaseResult) -> String {
+    let one = path_paragraph;
     let per_mass: String = c.load_path.iter().map(one).collect();
     match &c.combined_load_path {
         Some(all) if c.load_path.len() > MANY_MASSES => format!(
@@ -271,4 +281,32 @@ fn supports(c: &CaseResult, units: UnitSystem) -> String {
         })
         .collect();
     table("case-supports", &["Support", "Reaction x", "Reaction y", "Reaction z"], &rows)
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    fn path(untraced: f64) -> LoadPathResult {
+        LoadPathResult {
+            mass: "w".into(),
+            members: vec!["m".into()],
+            shares: vec![1.0],
+            below_threshold: 0,
+            not_listed: 0,
+            supports: vec!["A".into()],
+            support_shares: vec![1.0 - untraced],
+            supports_below_threshold: 0,
+            untraced,
+        }
+    }
+
+    // The untraced part is said from the listing threshold (1 %) up, with
+    // its reason; below it the line is as before.
+    #[test]
+    fn untraced_weight_is_said_from_one_percent() {
+        let html = path_paragraph(&path(0.25));
+        assert!(html.contains("25\u{a0}% of the weight is not traced to a support (flows too small"), "{html}");
+        assert!(!path_paragraph(&path(0.005)).contains("not traced"));
+    }
 }

@@ -267,6 +267,16 @@ fn mass(ui: &mut Ui, input: &InspectorInput<'_>, i: usize, bufs: &mut FieldBuffe
             ui.label(RichText::new(format!("{} more members carry less each", p.below_threshold)).weak());
         }
         ui.label(format!("Reaches: {}", listed(&p.supports, &p.support_shares)));
+        if p.untraced_worth_saying() {
+            ui.label(
+                RichText::new(format!(
+                    "{:.0} % of its weight is not traced to a support ({})",
+                    p.untraced * 100.0,
+                    tautspan_core::analysis::LoadPathResult::UNTRACED_REASON
+                ))
+                .weak(),
+            );
+        }
     }
 }
 
