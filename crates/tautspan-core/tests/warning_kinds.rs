@@ -87,7 +87,8 @@ fn a_foot_lifting_off_is_named_with_its_floor_and_case() {
     assert_eq!(f.feet[1].normal_force_n, 0.0);
     let w = of_kind(&a, "s", WarningKind::FootLifts);
     assert_eq!(w.len(), 1, "{:?}", a.cases[0].warning_items);
-    assert_eq!(w[0].subject.as_deref(), Some("slab"));
+    // the foot is the subject (a click selects it; a group names the feet)
+    assert_eq!(w[0].subject.as_deref(), Some("b"));
     assert_eq!(w[0].message, "floor slab: foot b lifts off in case s; normal force 0");
 }
 

@@ -204,12 +204,14 @@ pub fn case_warnings(s: &Scenario, case: &Case, r: &CaseResult, static_r: Option
     for f in &r.floors {
         for foot in f.feet.iter().filter(|x| x.state == State::Over) {
             match (&foot.reason, foot.utilisation) {
+                // the foot itself is the subject: a group names the feet,
+                // and a click selects the foot
                 (Some(why), _) => {
-                    push(WarningKind::FootOver, &f.id, msg(format_args!("floor {}, case {}: {}", f.id, r.id, why)))
+                    push(WarningKind::FootOver, &foot.node, msg(format_args!("floor {}, case {}: {}", f.id, r.id, why)))
                 }
                 (None, Some(u)) => push(
                     WarningKind::FootOver,
-                    &f.id,
+                    &foot.node,
                     msg(format_args!(
                         "floor {}, foot {}: normal force {} against the rated concentrated load {}: utilisation {} (over by {})",
                         f.id,
@@ -227,7 +229,7 @@ pub fn case_warnings(s: &Scenario, case: &Case, r: &CaseResult, static_r: Option
             for foot in f.feet.iter().filter(|x| x.state == State::Slack) {
                 push(
                     WarningKind::FootLifts,
-                    &f.id,
+                    &foot.node,
                     msg(format_args!("floor {}: foot {} lifts off in case {}; normal force 0", f.id, foot.node, r.id)),
                 );
             }
