@@ -328,8 +328,12 @@ fn lifted_foot_with_a_horizontal_reaction_is_reported() {
     assert!(a.cases[0].warning_items.iter().any(|w| w.kind == tautspan_core::analysis::WarningKind::FootOver
         && w.message.contains("foot b has lifted off yet needs a horizontal reaction")));
     // its subject is the foot (a group names the feet, not the floor once a foot)
-    assert!(a.cases[0].warning_items.iter().any(|w| w.kind == tautspan_core::analysis::WarningKind::FootOver
-        && w.subject.as_deref() == Some("b")));
+    assert!(
+        a.cases[0]
+            .warning_items
+            .iter()
+            .any(|w| w.kind == tautspan_core::analysis::WarningKind::FootOver && w.subject.as_deref() == Some("b"))
+    );
     // the plate under b still deflects from a's load
     let panel = l.scenario.floors[0].plate.as_ref().unwrap();
     assert!(panel.deflection_at(&[fa.normal_force_n, 0.0], [2.4, 2.0]) > 0.0);
