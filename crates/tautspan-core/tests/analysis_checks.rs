@@ -447,3 +447,45 @@ fn warm_start_from_a_prior_answer_gives_the_same_answer() {
         }
     }
 }
+
+/// A prior answer of a rig with other members is not started from. A
+/// tripod drawn leg by leg: with two legs the apex is a mechanism and hangs
+/// below its feet (the legs in tension); a re-solve of the three-legged
+/// tripod started from that shape would keep a second, inverted
+/// equilibrium. The answer must be the drawn one, apex up, as a cold solve
+/// gives it.
+#[test]
+fn warm_start_is_refused_across_a_change_of_members() {
+    use tautspan_core::analysis::{Prior, analyse_from};
+    let rig = |legs: &str| {
+        format!(
+            r#"Scenario(format: 1, title: "tripod",
+            nodes: [
+                Node(id: "P1", at: ("1 m", "0 m", "0 m"), support: Anchor),
+                Node(id: "P2", at: ("-0.5 m", "0 m", "0.866 m"), support: Anchor),
+                Node(id: "P3", at: ("-0.5 m", "0 m", "-0.866 m"), support: Anchor),
+                Node(id: "J1", at: ("0 m", "2 m", "0 m")),
+            ],
+            members: [{legs}],
+            masses: [ Mass(id: "w", at: "J1", mass: "250 kg") ],
+            cases: [ Static(id: "s") ])"#
+        )
+    };
+    let leg = |k: u32| {
+        format!(r#"Member(id: "R{k}", ends: ("P{k}", "J1"), kind: Rod, area: "300 mm^2", material: "steel"),"#)
+    };
+    let two = load_scenario(&rig(&format!("{}{}", leg(1), leg(2)))).unwrap().scenario;
+    let two_legs = analyse(&two);
+    let apex = |a: &tautspan_core::analysis::Analysis| a.cases[0].nodes[3].position_m[1];
+    if two_legs.cases[0].converged {
+        assert!(apex(&two_legs) < 0.0, "two legs: the apex swings below its feet");
+    }
+    let three = load_scenario(&rig(&format!("{}{}{}", leg(1), leg(2), leg(3)))).unwrap().scenario;
+    let warm = analyse_from(&three, Some(Prior { scenario: &two, analysis: &two_legs }));
+    assert!(warm.cases[0].converged);
+    assert!(apex(&warm) > 1.9, "the tripod stands: apex at {}", apex(&warm));
+    let cold = analyse(&three);
+    for (ma, mb) in cold.cases[0].members.iter().zip(&warm.cases[0].members) {
+        assert_eq!(ma.force_n, mb.force_n, "{}: the cold solve's answer", ma.id);
+    }
+}

@@ -267,11 +267,20 @@ pub struct Prior<'a> {
 
 /// Start positions from a prior answer: each node's drawn position now plus
 /// the displacement it had at the prior static equilibrium. `None` when the
-/// nodes are not the same ones in the same order or there is no converged
-/// static case to start from.
+/// nodes are not the same ones in the same order, the members not the same
+/// ones joining the same nodes, or there is no converged static case to
+/// start from. (After a member is added or removed the prior shape may be a
+/// mechanism's, a joint on two legs swung below its feet, which the new rig
+/// would keep as a second, inverted equilibrium instead of the drawn one.)
 fn warm_start(s: &Scenario, prior: Option<Prior<'_>>) -> Option<Vec<[f64; 3]>> {
     let p = prior?;
     if p.scenario.nodes.len() != s.nodes.len() || p.scenario.nodes.iter().zip(&s.nodes).any(|(a, b)| a.id != b.id) {
+        return None;
+    }
+    // node indices are the same (same ids in the same order), so ends compare as indices
+    if p.scenario.members.len() != s.members.len()
+        || p.scenario.members.iter().zip(&s.members).any(|(a, b)| a.id != b.id || a.ends != b.ends)
+    {
         return None;
     }
     let st = p.analysis.cases.iter().find(|c| c.kind == "static" && c.converged && c.nodes.len() == s.nodes.len())?;

@@ -49,13 +49,9 @@ pub fn validate(dto: &ScenarioDto) -> Result<Scenario, Vec<Problem>> {
 /// Analyse a validated scenario, warm-started from `prior` (the second step
 /// of [`solve`]); the time reported runs from `start`.
 pub fn analyse_model(scenario: Scenario, prior: Option<&Solved>, start: Instant) -> Solved {
-    // only a prior of the same members joining the same nodes: after a
-    // member is added or removed the prior shape may be a mechanism's (a
-    // joint on two legs swung below its feet) that the new rig would keep
-    // as a second, inverted equilibrium instead of the drawn one
-    let prior = prior
-        .filter(|p| same_members(&p.scenario, &scenario))
-        .map(|p| Prior { scenario: &p.scenario, analysis: &p.analysis });
+    // the core starts from the prior only where it has the same nodes and
+    // the same members joining them
+    let prior = prior.map(|p| Prior { scenario: &p.scenario, analysis: &p.analysis });
     let analysis = analyse_from(&scenario, prior);
     let warning_groups = analysis
         .warning_groups()
@@ -66,13 +62,6 @@ pub fn analyse_model(scenario: Scenario, prior: Option<&Solved>, start: Instant)
     let worst = worst(&analysis);
     let case_summaries = analysis.cases.iter().map(super::case_summary::case_summary).collect();
     Solved { scenario, analysis, solve_ms: start.elapsed().as_secs_f64() * 1e3, warning_groups, worst, case_summaries }
-}
-
-/// The same members joining the same nodes, by id.
-fn same_members(a: &Scenario, b: &Scenario) -> bool {
-    let ends = |s: &Scenario, m: &tautspan_core::model::Member| m.ends.map(|k| s.nodes.get(k).map(|n| n.id.clone()));
-    a.members.len() == b.members.len()
-        && a.members.iter().zip(&b.members).all(|(x, y)| x.id == y.id && ends(a, x) == ends(b, y))
 }
 
 /// How a member's allowable was found, in words (formula, inputs, sources).
