@@ -256,6 +256,23 @@ impl LoadPathResult {
     pub fn untraced_worth_saying(&self) -> bool {
         self.untraced >= super::LOAD_PATH_THRESHOLD
     }
+
+    /// For the outputs' tests: mass `w` on member `m` to anchor `A`, with
+    /// `untraced` of its weight not followed.
+    #[cfg(test)]
+    pub(crate) fn one_member(untraced: f64) -> Self {
+        LoadPathResult {
+            mass: "w".into(),
+            members: vec!["m".into()],
+            shares: vec![1.0],
+            below_threshold: 0,
+            not_listed: 0,
+            supports: vec!["A".into()],
+            support_shares: vec![1.0 - untraced],
+            supports_below_threshold: 0,
+            untraced,
+        }
+    }
 }
 
 /// Largest release angle and drop height inside the allowable.

@@ -426,17 +426,7 @@ mod path_line_tests {
     // up, with its reason; below it the line is as before.
     #[test]
     fn untraced_weight_is_said_from_one_percent() {
-        let path = |untraced: f64| LoadPathResult {
-            mass: "w".into(),
-            members: vec!["m".into()],
-            shares: vec![1.0],
-            below_threshold: 0,
-            not_listed: 0,
-            supports: vec!["A".into()],
-            support_shares: vec![1.0 - untraced],
-            supports_below_threshold: 0,
-            untraced,
-        };
+        let path = LoadPathResult::one_member;
         let mut out = String::new();
         path_line(&mut out, "load path of w", &path(0.25));
         assert!(out.contains("(25.0 % of the weight not traced to a support: flows too small to follow"), "{out}");

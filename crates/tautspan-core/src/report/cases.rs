@@ -288,17 +288,7 @@ mod tests {
     use super::*;
 
     fn path(untraced: f64) -> LoadPathResult {
-        LoadPathResult {
-            mass: "w".into(),
-            members: vec!["m".into()],
-            shares: vec![1.0],
-            below_threshold: 0,
-            not_listed: 0,
-            supports: vec!["A".into()],
-            support_shares: vec![1.0 - untraced],
-            supports_below_threshold: 0,
-            untraced,
-        }
+        LoadPathResult::one_member(untraced)
     }
 
     // The untraced part is said from the listing threshold (1 %) up, with

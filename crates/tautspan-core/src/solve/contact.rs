@@ -39,12 +39,7 @@ pub(crate) fn contact_forces(flex: &[f64], p: &[f64]) -> Vec<f64> {
         let Some(i) = pick else { break };
         free[i] = true;
         for _ in 0..(n + 2) {
-            let idx: Vec<usize> = (0..n).filter(|&k| free[k]).collect();
-            let m = idx.len();
-            let sub: Vec<f64> = idx.iter().flat_map(|&r| idx.iter().map(move |&c| flex[r * n + c])).collect();
-            let Some(l) = cholesky(&sub, m) else { return force };
-            let mut rhs: Vec<f64> = idx.iter().map(|&r| p[r]).collect();
-            solve_in_place(&l, m, &mut rhs);
+            let Some((idx, rhs)) = solve_on_free(flex, p, &free) else { return force };
             z.fill(0.0);
             for (&k, v) in idx.iter().zip(&rhs) {
                 z[k] = *v;
@@ -79,6 +74,20 @@ pub(crate) fn contact_forces(flex: &[f64], p: &[f64]) -> Vec<f64> {
     force
 }
 
+/// The feet in contact `free` (indices, ascending) and their forces with
+/// the plate meeting each of them: `C_FF P_F = p_F`. `None` where `C_FF`
+/// does not factor.
+fn solve_on_free(flex: &[f64], p: &[f64], free: &[bool]) -> Option<(Vec<usize>, Vec<f64>)> {
+    let n = p.len();
+    let idx: Vec<usize> = (0..n).filter(|&k| free[k]).collect();
+    let m = idx.len();
+    let sub: Vec<f64> = idx.iter().flat_map(|&r| idx.iter().map(move |&c| flex[r * n + c])).collect();
+    let l = cholesky(&sub, m)?;
+    let mut rhs: Vec<f64> = idx.iter().map(|&r| p[r]).collect();
+    solve_in_place(&l, m, &mut rhs);
+    Some((idx, rhs))
+}
+
 /// A feasible start for the active-set method, so a floor whose feet all
 /// press (the usual case) costs one factorisation instead of one per foot:
 /// take the feet pressed into the undeflected floor as the contact set,
@@ -93,15 +102,10 @@ fn warm_start(flex: &[f64], p: &[f64], free: &mut [bool], force: &mut [f64]) {
         *f = *v > 0.0;
     }
     for _ in 0..=n {
-        let idx: Vec<usize> = (0..n).filter(|&k| free[k]).collect();
-        let m = idx.len();
-        if m == 0 {
+        if !free.iter().any(|f| *f) {
             break;
         }
-        let sub: Vec<f64> = idx.iter().flat_map(|&r| idx.iter().map(move |&c| flex[r * n + c])).collect();
-        let Some(l) = cholesky(&sub, m) else { break };
-        let mut rhs: Vec<f64> = idx.iter().map(|&r| p[r]).collect();
-        solve_in_place(&l, m, &mut rhs);
+        let Some((idx, rhs)) = solve_on_free(flex, p, free) else { break };
         if rhs.iter().all(|v| *v > 0.0) {
             for (&k, v) in idx.iter().zip(&rhs) {
                 force[k] = *v;

@@ -510,7 +510,7 @@ pub fn ui(ui: &mut Ui, state: &mut CanvasState, view: &mut View, input: &CanvasI
 }
 
 /// Shapes above which a drawing is tessellated without anti-aliased edges.
-const LARGE_DRAWING: usize = 5_000;
+const MANY_SHAPES: usize = 5_000;
 
 /// The painted shapes with every run of strokes and fills between two texts
 /// tessellated once into one mesh, so a kept drawing costs a copy of its
@@ -522,7 +522,7 @@ fn baked(ctx: &egui::Context, clip: egui::Rect, shapes: Vec<egui::Shape>) -> Vec
     let mut options = ctx.tessellation_options(|o| *o);
     // a large net's strokes lie a few pixels apart: anti-aliased edges add
     // little there and cost most of the tessellation, so they are left off
-    options.feathering = options.feathering && shapes.len() <= LARGE_DRAWING;
+    options.feathering = options.feathering && shapes.len() <= MANY_SHAPES;
     let atlas = ctx.fonts(|f| f.font_image_size());
     let mut tessellator = egui::epaint::Tessellator::new(ctx.pixels_per_point(), options, atlas, Vec::new());
     tessellator.set_clip_rect(clip);
